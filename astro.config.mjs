@@ -1,0 +1,29 @@
+// @ts-check
+import { defineConfig } from 'astro/config';
+import node from '@astrojs/node';
+import react from '@astrojs/react';
+import mdx from '@astrojs/mdx';
+import tailwindcss from '@tailwindcss/vite';
+import bootAtStart from './integrations/boot-at-start.mjs';
+
+// Astro 5.18 trusts the Host header only for listed domains; without them Astro.url is wrong and the
+// built-in origin check refuses same-site form posts. Extra hosts come from ALLOWED_HOSTS at build time.
+const extraHosts = (process.env.ALLOWED_HOSTS ?? '')
+  .split(',')
+  .map((h) => h.trim())
+  .filter(Boolean);
+
+export default defineConfig({
+  output: 'server',
+  adapter: node({ mode: 'standalone' }),
+  integrations: [react(), mdx(), bootAtStart()],
+  security: {
+    checkOrigin: true,
+    allowedDomains: ['localhost', '127.0.0.1', ...extraHosts].map((hostname) => ({ hostname })),
+  },
+  server: { port: 4321, host: '127.0.0.1' },
+  devToolbar: { enabled: false },
+  vite: {
+    plugins: [tailwindcss()],
+  },
+});

@@ -1,0 +1,82 @@
+// What each role may do, written once. Pages, API routes and islands all ask `can`.
+// Pure: no server imports, so islands can hide controls the server would refuse anyway.
+
+export type Role = 'lead' | 'advisor' | 'member' | 'alumni';
+export const ROLE_LABELS: Record<Role, string> = { lead: 'Lead', advisor: 'Advisor', member: 'Member', alumni: 'Alumni' };
+
+export type Action =
+  | 'read' // everything that is not admin: guides, records, calculations, people directory
+  | 'season:manage'
+  | 'subsystem:manage'
+  | 'people:manage'
+  | 'invitation:manage'
+  | 'audit:read'
+  | 'export:run'
+  | 'outbox:read'
+  | 'digest:send'
+  | 'record:create'
+  | 'record:edit'
+  | 'record:status'
+  | 'record:review'
+  | 'record:comment'
+  | 'attachment:upload'
+  | 'calculation:create'
+  | 'calculation:recompute'
+  | 'onboarding:curate'
+  | 'onboarding:follow'
+  | 'onboarding:see-all';
+
+/** What the rule needs to know about the thing acted on. */
+export interface Subject {
+  /** The record or calculation belongs to the current season. */
+  seasonIsCurrent?: boolean;
+}
+
+type Rule = boolean | ((subject: Subject) => boolean);
+const currentSeasonOnly: Rule = (s) => s.seasonIsCurrent === true;
+
+const POLICY: Record<Role, Partial<Record<Action, Rule>>> = {
+  lead: {}, // leads may do everything; see can()
+  advisor: {
+    read: true,
+    'record:review': true,
+    'record:comment': true,
+    'onboarding:curate': true,
+    'onboarding:follow': true,
+  },
+  member: {
+    read: true,
+    'record:create': true,
+    'record:edit': currentSeasonOnly,
+    'record:status': currentSeasonOnly,
+    'record:comment': true,
+    'attachment:upload': currentSeasonOnly,
+    'calculation:create': true,
+    'calculation:recompute': true,
+    'onboarding:follow': true,
+  },
+  alumni: {
+    read: true,
+    'record:comment': true,
+    'onboarding:follow': true,
+  },
+};
+
+export interface Actor {
+  role: Role;
+}
+
+export function can(user: Actor | null | undefined, action: Action, subject: Subject = {}): boolean {
+  if (!user) return false;
+  if (user.role === 'lead') return true;
+  const rule = POLICY[user.role]?.[action];
+  if (rule === undefined || rule === false) return false;
+  return rule === true ? true : rule(subject);
+}
+
+export const ALL_ACTIONS: Action[] = [
+  'read', 'season:manage', 'subsystem:manage', 'people:manage', 'invitation:manage', 'audit:read', 'export:run',
+  'outbox:read', 'digest:send', 'record:create', 'record:edit', 'record:status', 'record:review', 'record:comment',
+  'attachment:upload', 'calculation:create', 'calculation:recompute', 'onboarding:curate', 'onboarding:follow',
+  'onboarding:see-all',
+];

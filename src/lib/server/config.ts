@@ -1,0 +1,57 @@
+import { z } from 'zod';
+
+const flag = z
+  .enum(['1', '0', 'true', 'false', 'yes', 'no', ''])
+  .optional()
+  .transform((v) => v === '1' || v === 'true' || v === 'yes');
+
+/** Every setting the server reads. Parsed once; nothing else reads process.env. */
+export const settingsSchema = z.object({
+  HOST: z.string().min(1).default('127.0.0.1'),
+  PORT: z.coerce.number().int().min(1).max(65535).default(4321),
+  WAKEBOOK_DB: z.string().min(1).default('data/wakebook.db'),
+  WAKEBOOK_UPLOADS: z.string().min(1).default('data/uploads'),
+  WAKEBOOK_DEMO: flag,
+  SMTP_URL: z
+    .string()
+    .optional()
+    .transform((v) => (v ? v : undefined))
+    .refine((v) => v === undefined || /^smtps?:\/\//.test(v), 'must start with smtp:// or smtps://'),
+  PUBLIC_URL: z
+    .string()
+    .optional()
+    .transform((v) => (v ? v.replace(/\/+$/, '') : undefined))
+    .refine((v) => v === undefined || /^https?:\/\/[^\s]+$/.test(v), 'must be an http(s) URL'),
+  /** Secure cookies are the default in production; set to 0 to serve plain http on a LAN host. */
+  WAKEBOOK_SECURE_COOKIES: z
+    .enum(['1', '0', 'auto', ''])
+    .optional()
+    .transform((v) => (v === '1' ? true : v === '0' ? false : 'auto' as const)),
+  WAKEBOOK_MAX_UPLOAD_MB: z.coerce.number().positive().max(1024).default(20),
+  NODE_ENV: z.string().optional(),
+});
+
+export type Settings = z.infer<typeof settingsSchema>;
+
+export class SettingsError extends Error {}
+
+export function parseSettings(env: Record<string, string | undefined>): Settings {
+  const result = settingsSchema.safeParse(env);
+  if (!result.success) {
+    const lines = result.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`);
+    throw new SettingsError(`Wakebook cannot start: invalid settings\n${lines.join('\n')}`);
+  }
+  return result.data;
+}
+
+let cached: Settings | undefined;
+
+export function settings(): Settings {
+  cached ??= parseSettings(process.env);
+  return cached;
+}
+
+/** Tests point the server at a fresh database; production never calls this. */
+export function resetSettingsForTests(): void {
+  cached = undefined;
+}

@@ -1,0 +1,5 @@
+export * from './common';
+export * from './people';
+export * from './records';
+export * from './calculations';
+export * from './activity';

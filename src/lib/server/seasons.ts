@@ -1,0 +1,56 @@
+import { asc, desc, eq } from 'drizzle-orm';
+import { db } from './db/client';
+import { seasons, subsystems } from './db/schema';
+
+export interface SeasonView {
+  id: string;
+  name: string;
+  startsOn: string;
+  endsOn: string;
+  phase: string;
+  current: boolean;
+  boat: string | null;
+}
+
+function toView(s: typeof seasons.$inferSelect): SeasonView {
+  return { id: s.id, name: s.name, startsOn: s.startsOn, endsOn: s.endsOn, phase: s.phase, current: s.isCurrent, boat: s.boat };
+}
+
+/** Newest season first. */
+export function listSeasons(): SeasonView[] {
+  return db().select().from(seasons).orderBy(desc(seasons.startsOn)).all().map(toView);
+}
+
+export function currentSeason(): SeasonView | null {
+  const s = db().select().from(seasons).where(eq(seasons.isCurrent, true)).get();
+  return s ? toView(s) : null;
+}
+
+export function findSeason(id: string): SeasonView | null {
+  const s = db().select().from(seasons).where(eq(seasons.id, id)).get();
+  return s ? toView(s) : null;
+}
+
+export interface SubsystemView {
+  slug: string;
+  name: string;
+  summary: string;
+}
+
+export function listSubsystems(): SubsystemView[] {
+  return db()
+    .select({ slug: subsystems.slug, name: subsystems.name, summary: subsystems.summary })
+    .from(subsystems)
+    .orderBy(asc(subsystems.position), asc(subsystems.name))
+    .all();
+}
+
+export function findSubsystem(slug: string): SubsystemView | null {
+  return (
+    db()
+      .select({ slug: subsystems.slug, name: subsystems.name, summary: subsystems.summary })
+      .from(subsystems)
+      .where(eq(subsystems.slug, slug))
+      .get() ?? null
+  );
+}
