@@ -1,0 +1,60 @@
+// Foundation benchmark: the plain Node http ceiling for a page of the same size, GET /api/me signed in and the
+// signed-in home page, all in one run on loopback.
+import { fork } from 'node:child_process';
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { runLoad, type LoadResult } from './load';
+import { startBuiltServer, signInCookie } from './server';
+
+export default async function benchHttp(opts: { seconds?: number } = {}): Promise<object[]> {
+  const seconds = opts.seconds ?? 8;
+  const server = await startBuiltServer(4620);
+  const out: object[] = [];
+  try {
+    const cookie = await signInCookie(server.base, 'member@wakebook.test');
+    const home = await (await fetch(`${server.base}/`, { headers: { cookie } })).text();
+    // The ceiling: plain node:http answering a page of the same size as the signed-in home page.
+    const body = Buffer.from(home);
+    const bodyFile = join(mkdtempSync(join(tmpdir(), 'wakebook-ceiling-')), 'page.html');
+    writeFileSync(bodyFile, body);
+    // Its own process: wrk runs synchronously here and would starve a server in this one.
+    const plain = fork(new URL('./plain-server.mjs', import.meta.url).pathname, ['4621', bodyFile], { stdio: ['ignore', 'ignore', 'inherit', 'ipc'] });
+    await new Promise<void>((r) => plain.once('message', () => r()));
+    try {
+      const ceiling = await runLoad({ name: 'http.ceiling.plain-node', url: 'http://127.0.0.1:4621/', seconds });
+      out.push(report(ceiling, ceiling, { bytes: body.length }));
+      const me = await runLoad({ name: 'http.api.me', url: `${server.base}/api/me`, headers: { cookie }, seconds });
+      out.push(report(me, ceiling));
+      const page = await runLoad({ name: 'http.page.home', url: `${server.base}/`, headers: { cookie }, seconds });
+      out.push(report(page, ceiling, { bytes: body.length }));
+      out.push({ name: 'server.cold-start', n: 1, p50_ms: round(server.startMs), p99_ms: round(server.startMs), rss_mb: round(server.rssMb()) });
+    } finally {
+      plain.kill();
+    }
+  } finally {
+    await server.stop();
+  }
+  return out;
+}
+
+function round(x: number): number {
+  return Math.round(x * 100) / 100;
+}
+
+function report(r: LoadResult, ceiling: LoadResult, extra: object = {}) {
+  return {
+    name: r.name,
+    n: r.n,
+    p50_ms: round(r.p50_ms),
+    p99_ms: round(r.p99_ms),
+    ops_per_s: round(r.ops_per_s),
+    pct_of_ceiling: round((100 * r.ops_per_s) / ceiling.ops_per_s),
+    errors: r.errors,
+    tool: r.tool,
+    connections: r.connections,
+    seconds: r.seconds,
+    ...extra,
+  };
+}
+

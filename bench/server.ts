@@ -1,0 +1,59 @@
+// Starts the built server on a fresh demo database for a benchmark and stops it by its own PID.
+import { spawn, type ChildProcess } from 'node:child_process';
+import { existsSync, mkdtempSync, readFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+
+export interface RunningServer {
+  base: string;
+  child: ChildProcess;
+  startMs: number;
+  stop(): Promise<void>;
+  rssMb(): number;
+}
+
+export async function startBuiltServer(port: number, env: Record<string, string> = {}): Promise<RunningServer> {
+  if (!existsSync('dist/server/entry.mjs')) throw new Error('Build first: npm run build');
+  const dir = mkdtempSync(join(tmpdir(), 'wakebook-bench-'));
+  const t0 = performance.now();
+  const child = spawn(process.execPath, ['dist/server/entry.mjs'], {
+    env: { ...process.env, HOST: '127.0.0.1', PORT: String(port), WAKEBOOK_DB: join(dir, 'bench.db'), WAKEBOOK_UPLOADS: join(dir, 'uploads'), WAKEBOOK_DEMO: '1', ...env },
+    stdio: ['ignore', 'ignore', 'inherit'],
+  });
+  const base = `http://127.0.0.1:${port}`;
+  for (let i = 0; ; i++) {
+    try {
+      if ((await fetch(`${base}/api/health`)).ok) break;
+    } catch {
+      // not yet
+    }
+    if (i > 300) throw new Error('server did not start');
+    await new Promise((r) => setTimeout(r, 50));
+  }
+  const startMs = performance.now() - t0;
+  return {
+    base,
+    child,
+    startMs,
+    rssMb() {
+      try {
+        const status = readFileSync(`/proc/${child.pid}/status`, 'utf8');
+        return Number(/VmRSS:\s+(\d+)/.exec(status)?.[1] ?? 0) / 1024;
+      } catch {
+        return NaN;
+      }
+    },
+    async stop() {
+      child.kill('SIGTERM');
+      await new Promise((r) => child.once('exit', r));
+    },
+  };
+}
+
+export async function signInCookie(base: string, email: string, password = 'wakebook-demo'): Promise<string> {
+  const res = await fetch(`${base}/api/auth/sign-in`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email, password }) });
+  if (!res.ok) throw new Error(`sign-in failed: ${res.status}`);
+  const cookie = res.headers.getSetCookie().find((c) => c.startsWith('wakebook_session='));
+  if (!cookie) throw new Error('no session cookie');
+  return cookie.split(';')[0];
+}
