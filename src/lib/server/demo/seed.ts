@@ -3,30 +3,28 @@ import { db } from '../db/client';
 import { users, seasons, subsystems, seasonMemberships, membershipSubsystems } from '../db/schema';
 import { hashPassword } from '../auth/password';
 import { newId } from '../ids';
-import { loadDemoTeam, DEMO_PASSWORD, type DemoTeam } from './team';
+import { loadDemoTeam, demoDir, DEMO_PASSWORD, type DemoTeam } from './team';
+import { loadDemoCalculations, seedCalculations } from './calculations';
+import type { SeedIds, Tx } from './seed-types';
 import { recordAudit } from '../audit';
 
 /** Seeds the fictional demo team into an empty database. With any user present it does nothing. */
 export async function seedDemoIfEmpty(): Promise<boolean> {
   const [{ n }] = db().select({ n: count() }).from(users).all();
   if (n > 0) return false;
-  const team = loadDemoTeam();
+  const dir = demoDir();
+  const team = loadDemoTeam(dir);
+  const calcs = loadDemoCalculations(dir);
   const passwordHash = await hashPassword(DEMO_PASSWORD);
   db().transaction((tx) => {
     // A second process may have seeded between our count and this transaction.
     const [{ n: again }] = tx.select({ n: count() }).from(users).all();
     if (again > 0) return;
-    seedTeam(tx, team, passwordHash);
+    const ids = seedTeam(tx, team, passwordHash);
+    seedCalculations(tx, ids, calcs);
   });
   recordAudit({ actor: null, action: 'demo.seed', targetType: 'database' });
   return true;
-}
-
-type Tx = Parameters<Parameters<ReturnType<typeof db>['transaction']>[0]>[0];
-
-export interface SeedIds {
-  seasonIdByName: Map<string, string>;
-  userIdByEmail: Map<string, string>;
 }
 
 function seedTeam(tx: Tx, team: DemoTeam, passwordHash: string): SeedIds {

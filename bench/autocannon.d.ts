@@ -1,0 +1,2 @@
+// autocannon ships no types; the benchmark reads only a few numeric fields of its result.
+declare module 'autocannon';

@@ -1,0 +1,31 @@
+// Calculator engine benchmarks: one propeller evaluation, one race solve, one ~200-propeller sweep.
+// Each goes through runCalculator (schema parse + compute), as the API does.
+import { runCalculator } from '../src/lib/calc/index';
+import { summarize, timeIt, type BenchSummary } from './stats';
+
+function mustRun(kind: string, inputs: object) {
+  const r = runCalculator(kind, inputs);
+  if (!r.ok) throw new Error(`${kind} failed in benchmark: ${JSON.stringify(r)}`);
+  return r;
+}
+
+export default async function benchCalc(): Promise<BenchSummary[]> {
+  const out: BenchSummary[] = [];
+
+  const propRuns = 20000;
+  const prop = timeIt(
+    (i) => mustRun('propeller', { blades: 3, bladeAreaRatio: 0.5, pitchRatio: 1.0, diameter_m: 0.2, rpm: 1200 + (i % 800), speed_mps: 4, temperature_C: 20 }),
+    propRuns,
+  );
+  out.push(summarize('calc.propeller.evaluate', prop, { docs: 'B-series K_T/K_Q, thrust, torque, power and the 41-point open-water series' }));
+
+  const raceRuns = 1000;
+  const race = timeIt((i) => mustRun('race', { batteryEnergy_Wh: 1400 + (i % 600), pitchRatio: 1.0 + (i % 5) * 0.05 }), raceRuns);
+  out.push(summarize('calc.race.solve', race, { docs: 'speed and rpm where T(1−t) = R and P_D = budget, plus the 31-point power series' }));
+
+  const sweepRuns = 15;
+  const sweep = timeIt((i) => mustRun('propeller-sweep', { batteryEnergy_Wh: 1600 + i * 10 }), sweepRuns, 2);
+  out.push(summarize('calc.propeller-sweep.204', sweep, { docs: '17 × 12 = 204 propellers: race solve + sprint thrust each' }));
+
+  return out;
+}

@@ -1,0 +1,63 @@
+import { cableCalculator } from './cable';
+import { coolingCalculator } from './cooling';
+import { energyCalculator } from './energy';
+import { OutOfRangeError } from './errors';
+import { propellerCalculator } from './propeller';
+import { raceCalculator } from './race';
+import { resistanceCalculator } from './resistance';
+import { solarCalculator } from './solar';
+import { sweepCalculator } from './sweep';
+import type { CalcResult, Calculator } from './types';
+import { waterCalculator } from './water';
+
+export type * from './types';
+export { OutOfRangeError } from './errors';
+
+export const calculators = Object.freeze({
+  water: waterCalculator,
+  propeller: propellerCalculator,
+  resistance: resistanceCalculator,
+  solar: solarCalculator,
+  energy: energyCalculator,
+  cooling: coolingCalculator,
+  cable: cableCalculator,
+  race: raceCalculator,
+  'propeller-sweep': sweepCalculator,
+} as const);
+
+export type CalculatorKind = keyof typeof calculators;
+
+export const calculatorKinds = Object.freeze(Object.keys(calculators) as CalculatorKind[]);
+
+export function getCalculator(kind: string): Calculator<any, any> | undefined {
+  return Object.prototype.hasOwnProperty.call(calculators, kind) ? (calculators as Record<string, Calculator<any, any>>)[kind] : undefined;
+}
+
+export type RunResult =
+  | { ok: true; inputs: Record<string, unknown>; result: CalcResult<Record<string, number | string | null>>; engineVersion: string }
+  | { ok: false; error: 'invalid_input'; issues: { path: string; message: string }[] }
+  | { ok: false; error: 'out_of_range'; input: string; message: string };
+
+/**
+ * Parse and compute in one step, for the API routes and the islands alike. An unknown kind is reported as
+ * invalid input on the path `kind` (routes that know the kind is missing should answer 404 first).
+ */
+export function runCalculator(kind: string, rawInputs: unknown): RunResult {
+  const calc = getCalculator(kind);
+  if (!calc) return { ok: false, error: 'invalid_input', issues: [{ path: 'kind', message: `Unknown calculator kind "${kind}".` }] };
+  const parsed = calc.inputSchema.safeParse(rawInputs ?? {});
+  if (!parsed.success) {
+    return {
+      ok: false,
+      error: 'invalid_input',
+      issues: parsed.error.issues.map((i) => ({ path: i.path.map(String).join('.'), message: i.message })),
+    };
+  }
+  try {
+    const result = calc.compute(parsed.data);
+    return { ok: true, inputs: parsed.data as Record<string, unknown>, result, engineVersion: calc.engineVersion };
+  } catch (e) {
+    if (e instanceof OutOfRangeError) return { ok: false, error: 'out_of_range', input: e.input, message: e.message };
+    throw e;
+  }
+}

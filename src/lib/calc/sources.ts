@@ -1,0 +1,94 @@
+import type { Source } from './types';
+
+// Full citations, kept in one place so every calculator names them the same way.
+
+export const SRC_ITTC_WATER: Source = {
+  citation:
+    'ITTC (2011), "Fresh Water and Seawater Properties", ITTC Recommended Procedures and Guidelines 7.5-02-01-03, Rev. 02 (basis: IAPWS-95, IAPWS 2008 viscosity, TEOS-10 seawater at S_A 35.16504 g/kg).',
+  use: 'Density and kinematic viscosity of fresh water and seawater; check values at 15 and 20 °C.',
+};
+export const SRC_IAPWS95: Source = {
+  citation:
+    'IAPWS R6-95(2018), "Revised Release on the IAPWS Formulation 1995 for the Thermodynamic Properties of Ordinary Water Substance for General and Scientific Use"; W. Wagner & A. Pruß (2002), J. Phys. Chem. Ref. Data 31(2), 387–535, Tables 1–2 and 6–7.',
+  use: 'Pure-water density and specific heat capacity at 0.101325 MPa.',
+};
+export const SRC_IAPWS08_VISC: Source = {
+  citation:
+    'IAPWS R12-08 (2008), "Release on the IAPWS Formulation 2008 for the Viscosity of Ordinary Water Substance"; M.L. Huber et al. (2009), J. Phys. Chem. Ref. Data 38(2), 101–125.',
+  use: 'Dynamic viscosity of pure water.',
+};
+export const SRC_IAPWS08_SEA: Source = {
+  citation:
+    'IAPWS R13-08 (2008), "Release on the IAPWS Formulation 2008 for the Thermodynamic Properties of Seawater"; R. Feistel (2008), Deep-Sea Research I 55, 1639–1671, Table 2.',
+  use: 'Saline part of the seawater Gibbs function (seawater density).',
+};
+export const SRC_SHARQAWY: Source = {
+  citation:
+    'M.H. Sharqawy, J.H. Lienhard V & S.M. Zubair (2010), "Thermophysical properties of seawater: a review of existing correlations and data", Desalination and Water Treatment 16, 354–380, Eq. 22.',
+  use: 'Seawater viscosity relative to pure water.',
+};
+export const SRC_OOSTERVELD: Source = {
+  citation:
+    'M.W.C. Oosterveld & P. van Oossanen (1975), "Further computer-analyzed data of the Wageningen B-screw series", International Shipbuilding Progress 22(251), 251–262, Table 5 (K_T, K_Q polynomials at Rn = 2·10⁶) and Table 6 (Reynolds corrections, not applied below 2·10⁶).',
+  use: 'Open-water thrust and torque coefficients of B-series propellers.',
+};
+export const SRC_BERNITSAS: Source = {
+  citation:
+    'M.M. Bernitsas, D. Ray & P. Kinley (1981), "K_T, K_Q and efficiency curves for the Wageningen B-series propellers", Report 237, Dept. of Naval Architecture and Marine Engineering, University of Michigan, Table 1.',
+  use: 'Independent transcription of the B-series coefficients.',
+};
+export const SRC_HELMA: Source = {
+  citation: 'S. Helma (2020), "Surprising behaviour of the Wageningen B-screw series polynomials", J. Mar. Sci. Eng. 8(3), 211.',
+  use: 'Behaviour of the polynomials near and beyond their range.',
+};
+export const SRC_ITTC57: Source = {
+  citation:
+    '8th ITTC (1957), model-ship correlation line; J.B. Hadler (1958), "Coefficients for International Towing Tank Conference 1957 model-ship correlation line", DTMB Report 1185; A. Morrall (1970), "1957 ITTC model-ship correlation line values of frictional resistance coefficient", NPL Ship Report 142.',
+  use: 'Frictional resistance coefficient C_F = 0.075/(log₁₀Re − 2)².',
+};
+export const SRC_ITTC78: Source = {
+  citation: '15th ITTC (1978), ITTC-1978 performance prediction method (form-factor approach, viscous resistance (1+k)·R_F).',
+  use: 'Form factor applied to the frictional resistance.',
+};
+export const SRC_ROSS: Source = {
+  citation: 'R.G. Ross Jr. (1981), "Design techniques for flat-plate photovoltaic arrays", Proc. 15th IEEE Photovoltaic Specialists Conference, 811–817.',
+  use: 'Cell temperature from NOCT: T_c = T_a + (NOCT − 20)/800 · G.',
+};
+export const SRC_PVWATTS: Source = {
+  citation: 'A.P. Dobos (2014), "PVWatts Version 5 Manual", NREL/TP-6A20-62641, National Renewable Energy Laboratory.',
+  use: 'DC power with a linear temperature coefficient: P = P_STC · G/1000 · (1 + γ(T_c − 25)).',
+};
+export const SRC_PVLIB: Source = {
+  citation: 'pvlib-python test suite: test_temperature.py::test_ross and test_pvsystem.py::test_pvwatts_dc_scalars (W.F. Holmgren, C.W. Hansen & M.A. Mikofski (2018), J. Open Source Software 3(29), 884).',
+  use: 'Published test vectors for the cell-temperature and power models.',
+};
+export const SRC_COPPER: Source = {
+  citation:
+    'IEC 60028:1925, "International standard of resistance for copper" (ρ₂₀ = 1/58 Ω·mm²/m = 1.7241·10⁻⁸ Ω·m, α₂₀ = 0.00393 /K); NBS Handbook 100 (1966), "Copper Wire Tables".',
+  use: 'Resistance of annealed copper conductors and its temperature coefficient.',
+};
+export const SRC_FLOYD: Source = {
+  citation: 'T.L. Floyd, "Electric Circuit Fundamentals", Pearson, AWG wire table (Ω per 1000 ft at 20 °C).',
+  use: 'Check values for conductor resistance.',
+};
+export const SRC_COLEBROOK: Source = {
+  citation: 'C.F. Colebrook (1939), "Turbulent flow in pipes, with particular reference to the transition region between the smooth and rough pipe laws", J. Inst. Civil Engineers 11(4), 133–156.',
+  use: 'Darcy friction factor in turbulent pipe flow (solved iteratively).',
+};
+export const SRC_FLUIDS: Source = {
+  citation: 'C. Bell et al., "fluids" Python library documentation, fluids.friction (friction_factor, Colebrook, Haaland, Swamee_Jain examples).',
+  use: 'Reference values for the friction-factor correlations.',
+};
+export const SRC_ASHRAE_EG: Source = {
+  citation:
+    'ASHRAE Handbook—Fundamentals, ch. 31 "Physical Properties of Secondary Coolants (Brines)", density of aqueous ethylene glycol solutions by volume (lb/ft³), as reproduced in Viega Design Manual IM-PR 566442 1114, Table 5-16.',
+  use: 'Density of a 50 % (by volume) ethylene-glycol coolant.',
+};
+export const SRC_ETB_EG: Source = {
+  citation: 'The Engineering ToolBox, "Ethylene Glycol Heat-Transfer Fluid", table of dynamic viscosity of ethylene glycol solutions (% by volume).',
+  use: 'Viscosity of a 50 % (by volume) ethylene-glycol coolant for the pipe Reynolds number.',
+};
+export const SRC_RANKINE_FROUDE: Source = {
+  citation: 'W.J.M. Rankine (1865), Trans. Inst. Naval Architects 6, 13–39; R.E. Froude (1889), Trans. Inst. Naval Architects 30, 390–405 (actuator-disk momentum theory).',
+  use: 'Ideal propulsive efficiency η_ideal = 2/(1 + √(1 + C_T)), an upper bound for any propeller.',
+};

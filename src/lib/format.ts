@@ -1,0 +1,22 @@
+/** Numbers for people: fixed decimals, thin grouping, and very large or small values in exponent form. */
+export function formatNumber(value: unknown, digits = 3): string {
+  if (value === null || value === undefined || value === '') return '–';
+  if (typeof value !== 'number') return String(value);
+  if (!Number.isFinite(value)) return value > 0 ? '∞' : value < 0 ? '−∞' : '–';
+  const abs = Math.abs(value);
+  if (abs !== 0 && (abs >= 1e7 || abs < 10 ** -Math.max(digits, 1))) return value.toExponential(Math.max(2, Math.min(digits, 6))).replace('-', '−');
+  return value.toLocaleString('en-GB', { minimumFractionDigits: digits, maximumFractionDigits: digits }).replace('-', '−');
+}
+
+export function formatWithUnit(value: unknown, digits: number, unit: string): string {
+  const n = formatNumber(value, digits);
+  return unit && n !== '–' ? `${n} ${unit}` : n;
+}
+
+/** An input as the person typed it: whole numbers stay whole, decimals keep their own places (up to 6). */
+export function formatInputValue(value: unknown, kind?: string): string {
+  if (typeof value !== 'number') return value === null || value === undefined ? '–' : String(value);
+  if (kind === 'integer' || Number.isInteger(value)) return formatNumber(value, 0);
+  const places = Math.min(6, (String(value).split('.')[1] ?? '').length);
+  return formatNumber(value, places);
+}

@@ -1,0 +1,31 @@
+import { z } from 'zod';
+
+const slug = z.string().trim().min(1).max(64).regex(/^[a-z0-9-]+$/, 'Use a subsystem slug.');
+const id = z.string().trim().min(1).max(64).regex(/^[A-Za-z0-9_-]+$/, 'Not a valid id.');
+
+/** Raw calculator inputs: a flat object of numbers and short strings; each calculator's own schema checks the rest. */
+export const rawInputsSchema = z
+  .record(z.string().max(64), z.union([z.number(), z.string().max(64), z.boolean(), z.null()]))
+  .refine((o) => Object.keys(o).length <= 64, 'Too many inputs.');
+
+export const runCalculatorInputSchema = z.object({ inputs: rawInputsSchema.default({}) });
+
+export const calculationInputSchema = z.object({
+  kind: z.string().trim().min(1).max(64),
+  title: z.string().trim().min(3, 'Give the calculation a title of at least 3 characters.').max(160),
+  subsystem: slug,
+  seasonId: id.optional(),
+  notes: z.string().max(20_000).default(''),
+  inputs: rawInputsSchema,
+});
+export type CalculationInput = z.infer<typeof calculationInputSchema>;
+
+export const calculationListQuerySchema = z.object({
+  subsystem: slug.optional().or(z.literal('')),
+  season: id.optional().or(z.literal('')),
+  kind: z.string().max(64).optional().or(z.literal('')),
+  limit: z.coerce.number().int().min(1).max(100).default(25),
+  cursor: z.string().max(100).optional(),
+});
+
+export const compareQuerySchema = z.object({ a: id, b: id });

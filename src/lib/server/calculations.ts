@@ -1,0 +1,242 @@
+import { and, desc, eq, inArray, isNull, lt, or, type SQL } from 'drizzle-orm';
+import { db } from './db/client';
+import { calculations, calculationResults, recordCalculations, records, seasons, subsystems, users } from './db/schema';
+import { getCalculator, runCalculator, type CalcResult } from '../calc';
+import { OutOfRangeError } from '../calc/errors';
+import { invalidInput, notFound } from './http';
+import { newId } from './ids';
+import { recordAudit } from './audit';
+import { currentSeason, findSeason, findSubsystem } from './seasons';
+import type { CalculationInput } from '../schemas/calculations';
+
+type Actor = { id: string; email: string };
+type Outputs = Record<string, number | string | null>;
+
+export interface CalculationResultView {
+  id: string;
+  engineVersion: string;
+  computedAt: string;
+  outputs: Outputs;
+  warnings: string[];
+}
+
+export interface CalculationView {
+  id: string;
+  kind: string;
+  kindTitle: string;
+  title: string;
+  subsystem: string;
+  subsystemName: string;
+  seasonId: string;
+  season: string;
+  seasonIsCurrent: boolean;
+  author: string | null;
+  notes: string;
+  inputs: Record<string, unknown>;
+  outputs: Outputs;
+  warnings: string[];
+  series: CalcResult<Outputs>['series'] | null;
+  grid: CalcResult<Outputs>['grid'] | null;
+  engineVersion: string;
+  currentEngineVersion: string | null;
+  computedAt: string;
+  createdAt: string;
+  results: CalculationResultView[];
+  records: { id: string; title: string; kind: string; status: string }[];
+  url: string;
+}
+
+/** Runs a calculator and turns its failures into API errors (400 for the schema, 422 for the method's range). */
+export function computeOrThrow(kind: string, rawInputs: unknown) {
+  const calc = getCalculator(kind);
+  if (!calc) throw notFound('That calculator');
+  const run = runCalculator(kind, rawInputs);
+  if (run.ok) return run;
+  if (run.error === 'invalid_input') throw invalidInput(run.issues.map((i) => ({ path: i.path ? `inputs.${i.path}` : 'inputs', message: i.message })));
+  throw new OutOfRangeError(run.input, run.message);
+}
+
+export function createCalculation(input: CalculationInput, actor: Actor): CalculationView {
+  const run = computeOrThrow(input.kind, input.inputs);
+  if (!findSubsystem(input.subsystem)) throw invalidInput([{ path: 'subsystem', message: 'No such subsystem.' }]);
+  const season = input.seasonId ? findSeason(input.seasonId) : currentSeason();
+  if (!season) throw invalidInput([{ path: 'seasonId', message: input.seasonId ? 'No such season.' : 'No season is current; choose one.' }]);
+  const id = newId();
+  const now = new Date();
+  db().transaction((tx) => {
+    tx.insert(calculations)
+      .values({ id, kind: input.kind, title: input.title, subsystemSlug: input.subsystem, seasonId: season.id, authorId: actor.id, notes: input.notes, inputs: run.inputs, createdAt: now, updatedAt: now })
+      .run();
+    insertResult(tx, id, run, actor.id, now);
+  });
+  recordAudit({ actor, action: 'calculation.create', targetType: 'calculation', targetId: id, detail: { kind: input.kind, title: input.title } });
+  return getCalculation(id)!;
+}
+
+type Tx = Parameters<Parameters<ReturnType<typeof db>['transaction']>[0]>[0];
+
+function insertResult(tx: Tx, calculationId: string, run: ReturnType<typeof computeOrThrow>, actorId: string | null, at: Date) {
+  tx.insert(calculationResults)
+    .values({
+      id: newId(),
+      calculationId,
+      engineVersion: run.engineVersion,
+      outputs: run.result.outputs,
+      series: { series: run.result.series ?? null, grid: run.result.grid ?? null },
+      warnings: run.result.warnings,
+      computedById: actorId,
+      computedAt: at,
+    })
+    .run();
+}
+
+/** Stores a new result with today's engine and keeps the earlier ones; returns what changed. */
+export function recomputeCalculation(id: string, actor: Actor) {
+  const before = getCalculation(id);
+  if (!before) throw notFound('That calculation');
+  const run = computeOrThrow(before.kind, before.inputs);
+  const now = new Date();
+  db().transaction((tx) => {
+    insertResult(tx, id, run, actor.id, now);
+    tx.update(calculations).set({ updatedAt: now }).where(eq(calculations.id, id)).run();
+  });
+  recordAudit({ actor, action: 'calculation.recompute', targetType: 'calculation', targetId: id, detail: { from: before.engineVersion, to: run.engineVersion } });
+  const after = getCalculation(id)!;
+  return { calculation: after, previous: before.results[0], changes: diffOutputs(before.outputs, after.outputs) };
+}
+
+export function diffOutputs(a: Outputs, b: Outputs) {
+  const names = [...new Set([...Object.keys(a), ...Object.keys(b)])];
+  return names
+    .map((name) => ({ name, before: a[name] ?? null, after: b[name] ?? null }))
+    .filter((c) => !sameValue(c.before, c.after));
+}
+
+function sameValue(x: unknown, y: unknown): boolean {
+  if (typeof x === 'number' && typeof y === 'number') return x === y || Math.abs(x - y) <= 1e-12 * Math.max(1, Math.abs(x), Math.abs(y));
+  return x === y;
+}
+
+export function getCalculation(id: string): CalculationView | null {
+  const row = db()
+    .select({ c: calculations, subsystemName: subsystems.name, season: seasons.name, seasonIsCurrent: seasons.isCurrent, author: users.name })
+    .from(calculations)
+    .innerJoin(subsystems, eq(subsystems.slug, calculations.subsystemSlug))
+    .innerJoin(seasons, eq(seasons.id, calculations.seasonId))
+    .leftJoin(users, eq(users.id, calculations.authorId))
+    .where(and(eq(calculations.id, id), isNull(calculations.deletedAt)))
+    .get();
+  if (!row) return null;
+  const results = db()
+    .select()
+    .from(calculationResults)
+    .where(eq(calculationResults.calculationId, id))
+    .orderBy(desc(calculationResults.computedAt), desc(calculationResults.id))
+    .all();
+  const latest = results[0];
+  const linked = db()
+    .select({ id: records.id, title: records.title, kind: records.kind, status: records.status })
+    .from(recordCalculations)
+    .innerJoin(records, eq(records.id, recordCalculations.recordId))
+    .where(and(eq(recordCalculations.calculationId, id), isNull(records.deletedAt)))
+    .all();
+  const stored = (latest?.series ?? null) as { series?: CalculationView['series']; grid?: CalculationView['grid'] } | null;
+  const c = row.c;
+  return {
+    id: c.id,
+    kind: c.kind,
+    kindTitle: getCalculator(c.kind)?.title ?? c.kind,
+    title: c.title,
+    subsystem: c.subsystemSlug,
+    subsystemName: row.subsystemName,
+    seasonId: c.seasonId,
+    season: row.season,
+    seasonIsCurrent: row.seasonIsCurrent,
+    author: row.author,
+    notes: c.notes,
+    inputs: c.inputs,
+    outputs: (latest?.outputs ?? {}) as Outputs,
+    warnings: latest?.warnings ?? [],
+    series: stored?.series ?? null,
+    grid: stored?.grid ?? null,
+    engineVersion: latest?.engineVersion ?? '',
+    currentEngineVersion: getCalculator(c.kind)?.engineVersion ?? null,
+    computedAt: (latest?.computedAt ?? c.createdAt).toISOString(),
+    createdAt: c.createdAt.toISOString(),
+    results: results.map((r) => ({ id: r.id, engineVersion: r.engineVersion, computedAt: r.computedAt.toISOString(), outputs: r.outputs as Outputs, warnings: r.warnings })),
+    records: linked,
+    url: `/calculations/${c.id}`,
+  };
+}
+
+export interface CalculationListItem {
+  id: string;
+  kind: string;
+  title: string;
+  subsystem: string;
+  subsystemName: string;
+  seasonId: string;
+  season: string;
+  author: string | null;
+  createdAt: string;
+  url: string;
+}
+
+export function listCalculations(q: { subsystem?: string; season?: string; kind?: string; limit: number; cursor?: string }) {
+  const where: (SQL | undefined)[] = [isNull(calculations.deletedAt)];
+  if (q.subsystem) where.push(eq(calculations.subsystemSlug, q.subsystem));
+  if (q.season) where.push(eq(calculations.seasonId, q.season));
+  if (q.kind) where.push(eq(calculations.kind, q.kind));
+  const m = q.cursor ? /^(\d{1,15})\.([A-Za-z0-9_-]{1,64})$/.exec(q.cursor) : null;
+  if (q.cursor && !m) throw invalidInput([{ path: 'cursor', message: 'Not a valid cursor.' }]);
+  if (m) {
+    const at = new Date(Number(m[1]));
+    where.push(or(lt(calculations.createdAt, at), and(eq(calculations.createdAt, at), lt(calculations.id, m[2]))));
+  }
+  const rows = db()
+    .select({
+      id: calculations.id,
+      kind: calculations.kind,
+      title: calculations.title,
+      subsystem: calculations.subsystemSlug,
+      subsystemName: subsystems.name,
+      seasonId: calculations.seasonId,
+      season: seasons.name,
+      author: users.name,
+      createdAt: calculations.createdAt,
+    })
+    .from(calculations)
+    .innerJoin(subsystems, eq(subsystems.slug, calculations.subsystemSlug))
+    .innerJoin(seasons, eq(seasons.id, calculations.seasonId))
+    .leftJoin(users, eq(users.id, calculations.authorId))
+    .where(and(...where))
+    .orderBy(desc(calculations.createdAt), desc(calculations.id))
+    .limit(q.limit + 1)
+    .all();
+  const page: CalculationListItem[] = rows.slice(0, q.limit).map((r) => ({ ...r, createdAt: r.createdAt.toISOString(), url: `/calculations/${r.id}` }));
+  const last = page[page.length - 1];
+  return { calculations: page, nextCursor: rows.length > q.limit && last ? `${Date.parse(last.createdAt)}.${last.id}` : null };
+}
+
+/** Two saved calculations side by side: every input and output with both values and whether they differ. */
+export function compareCalculations(aId: string, bId: string) {
+  const a = getCalculation(aId);
+  const b = getCalculation(bId);
+  if (!a || !b) throw notFound('One of those calculations');
+  const rows = (x: Record<string, unknown>, y: Record<string, unknown>) =>
+    [...new Set([...Object.keys(x), ...Object.keys(y)])].map((name) => ({ name, a: x[name] ?? null, b: y[name] ?? null, differs: !sameValue(x[name] ?? null, y[name] ?? null) }));
+  return { a, b, sameKind: a.kind === b.kind, inputs: rows(a.inputs, b.inputs), outputs: rows(a.outputs, b.outputs) };
+}
+
+export function existingCalculationIds(ids: string[]): Set<string> {
+  if (ids.length === 0) return new Set();
+  return new Set(
+    db()
+      .select({ id: calculations.id })
+      .from(calculations)
+      .where(and(inArray(calculations.id, ids), isNull(calculations.deletedAt)))
+      .all()
+      .map((r) => r.id),
+  );
+}
+

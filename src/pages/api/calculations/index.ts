@@ -1,0 +1,17 @@
+import type { APIRoute } from 'astro';
+import { handle, json, parseQuery, readJson, requirePermission } from '~/lib/server/http';
+import { calculationInputSchema, calculationListQuerySchema } from '~/lib/schemas/calculations';
+import { createCalculation, listCalculations } from '~/lib/server/calculations';
+
+export const GET: APIRoute = handle(({ locals, url }) => {
+  requirePermission(locals, 'read');
+  const q = parseQuery(url, calculationListQuerySchema);
+  return json(listCalculations({ subsystem: q.subsystem || undefined, season: q.season || undefined, kind: q.kind || undefined, limit: q.limit, cursor: q.cursor }));
+});
+
+/** Saves a calculation; outputs are always computed here (any outputs the client sends are ignored). */
+export const POST: APIRoute = handle(async ({ locals, request }) => {
+  const user = requirePermission(locals, 'calculation:create');
+  const input = await readJson(request, calculationInputSchema, 64 * 1024);
+  return json({ calculation: createCalculation(input, user) }, 201);
+});

@@ -1,0 +1,78 @@
+import { describe, it, expect, beforeAll, afterAll } from 'vitest';
+import type { Browser, Page } from 'playwright-core';
+import { launch, baseUrl, shot, signIn } from './browser';
+
+let browser: Browser;
+let page: Page;
+beforeAll(async () => {
+  browser = await launch();
+  page = await browser.newPage({ viewport: { width: 1280, height: 1000 } });
+  await signIn(page, 'member@wakebook.test');
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+const output = (name: string) => page.locator(`[data-testid="outputs"] [data-output="${name}"]`);
+
+describe('calculators as a member uses them', () => {
+  let savedUrl = '';
+
+  it('opens the propeller calculator, changes an input and sees the result and the chart change', async () => {
+    await page.goto(`${baseUrl()}/calculations`);
+    await page.getByRole('link', { name: 'Propeller open-water performance' }).click();
+    await page.waitForURL(/\/calculations\/new\/propeller$/);
+    await output('thrust_N').waitFor();
+    const thrustBefore = await output('thrust_N').textContent();
+    const chartLabelBefore = await page.locator('figure figcaption').first().textContent();
+    await page.getByLabel('Pitch ratio P/D').fill('1.2');
+    await expect.poll(() => output('thrust_N').textContent()).not.toBe(thrustBefore);
+    await expect.poll(() => page.locator('figure figcaption').first().textContent()).not.toBe(chartLabelBefore);
+    expect(await page.locator('canvas').count()).toBeGreaterThan(0);
+    await shot(page, 'calculator-propeller');
+  });
+
+  it('shows the field message and a 422-style explanation outside the series range', async () => {
+    await page.getByLabel('Pitch ratio P/D').fill('1.8');
+    await page.getByText(/outside|range/i).first().waitFor();
+    expect(await page.getByLabel('Pitch ratio P/D').getAttribute('aria-invalid')).toBe('true');
+    await page.getByLabel('Pitch ratio P/D').fill('1.1');
+    await output('thrust_N').waitFor();
+  });
+
+  it('saves with a title, subsystem and notes, and reopens the saved calculation', async () => {
+    await page.getByRole('button', { name: 'Save calculation' }).click();
+    await page.getByText(/title of at least 3 characters/).waitFor();
+    await page.getByLabel('Title').fill('E2E endurance propeller check');
+    await page.getByLabel('Subsystem').selectOption('propulsion');
+    await page.getByLabel(/^Notes/).fill('Saved by the browser test.');
+    await Promise.all([page.waitForURL(/\/calculations\/[a-z2-7]{16}$/), page.getByRole('button', { name: 'Save calculation' }).click()]);
+    savedUrl = page.url();
+    await page.getByRole('heading', { level: 1, name: 'E2E endurance propeller check' }).waitFor();
+    expect(await page.locator('[data-output="pitchRatio"]').count()).toBe(0);
+    expect(await output('thrust_N').textContent()).toMatch(/\d/);
+    await page.reload();
+    await page.getByText('Saved by the browser test.').waitFor();
+    await shot(page, 'calculation-saved');
+  });
+
+  it('recomputes with today’s engine and reports that nothing changed', async () => {
+    await page.goto(savedUrl);
+    await page.getByRole('button', { name: /Recompute/ }).click();
+    await page.getByText('No output changed.').waitFor();
+  });
+
+  it('compares two saved calculations side by side with overlaid curves', async () => {
+    await page.goto(`${baseUrl()}/calculations?kind=propeller`);
+    await page.getByLabel('Compare Tern 5 endurance propeller at cruise').check();
+    await page.getByLabel('Compare Tern 5 sprint propeller off the start').check();
+    await Promise.all([page.waitForURL(/\/calculations\/compare/), page.getByRole('button', { name: 'Compare the two ticked' }).click()]);
+    await page.getByRole('heading', { name: 'Compare calculations' }).waitFor();
+    const pitchRow = page.getByRole('row', { name: /Pitch ratio/ });
+    expect(await pitchRow.textContent()).toContain('differs');
+    await page.locator('figure').first().scrollIntoViewIfNeeded();
+    await page.locator('canvas').first().waitFor();
+    expect(await page.locator('figcaption').first().textContent()).toContain('(B, dashed)');
+    await shot(page, 'calculations-compare');
+  });
+});
