@@ -22,6 +22,7 @@ export interface CallResult {
   headers: Headers;
   body: any;
   text: string;
+  bytes: Uint8Array;
   cookies: Map<string, string>;
   /** The raw Set-Cookie header lines. */
   setCookie: string[];
@@ -60,12 +61,13 @@ export async function call(route: Partial<Record<Method, APIRoute>>, method: Met
     const eq = pair.indexOf('=');
     setCookies.set(pair.slice(0, eq), pair.slice(eq + 1));
   }
-  const text = await response.text();
+  const bytes = new Uint8Array(await response.arrayBuffer());
+  const text = new TextDecoder().decode(bytes);
   let parsed: unknown = undefined;
   try {
     parsed = text ? JSON.parse(text) : undefined;
   } catch {
     parsed = undefined;
   }
-  return { status: response.status, headers: response.headers, body: parsed, text, cookies: setCookies, setCookie };
+  return { status: response.status, headers: response.headers, body: parsed, text, bytes, cookies: setCookies, setCookie };
 }

@@ -5,6 +5,7 @@ import { hashPassword } from '../auth/password';
 import { newId } from '../ids';
 import { loadDemoTeam, demoDir, DEMO_PASSWORD, type DemoTeam } from './team';
 import { loadDemoCalculations, seedCalculations } from './calculations';
+import { loadDemoRecords, seedRecords } from './records';
 import type { SeedIds, Tx } from './seed-types';
 import { recordAudit } from '../audit';
 
@@ -15,6 +16,7 @@ export async function seedDemoIfEmpty(): Promise<boolean> {
   const dir = demoDir();
   const team = loadDemoTeam(dir);
   const calcs = loadDemoCalculations(dir);
+  const recs = loadDemoRecords(dir);
   const passwordHash = await hashPassword(DEMO_PASSWORD);
   db().transaction((tx) => {
     // A second process may have seeded between our count and this transaction.
@@ -22,6 +24,7 @@ export async function seedDemoIfEmpty(): Promise<boolean> {
     if (again > 0) return;
     const ids = seedTeam(tx, team, passwordHash);
     seedCalculations(tx, ids, calcs);
+    seedRecords(tx, ids, dir, recs, new Map(calcs.map((c) => [c.id, c.title])));
   });
   recordAudit({ actor: null, action: 'demo.seed', targetType: 'database' });
   return true;

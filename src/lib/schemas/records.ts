@@ -1,0 +1,62 @@
+import { z } from 'zod';
+
+const id = z.string().trim().min(1).max(64).regex(/^[A-Za-z0-9_-]+$/, 'Not a valid id.');
+const slug = z.string().trim().min(1).max(64).regex(/^[a-z0-9-]+$/, 'Use a subsystem slug.');
+const ids = z.array(id).max(50).default([]);
+
+export const recordKindSchema = z.enum(['decision', 'lesson']);
+export const lessonSourceSchema = z.enum(['testing', 'building', 'racing', 'organising']);
+export const recordStatusSchema = z.enum(['draft', 'proposed', 'accepted', 'superseded', 'withdrawn', 'open', 'addressed']);
+
+/** The editor document is checked against the editor's schema on the server (records/body.ts). */
+const body = z.record(z.string(), z.unknown());
+
+export const recordCreateSchema = z.object({
+  kind: recordKindSchema,
+  title: z.string().trim().min(3, 'Give the record a title of at least 3 characters.').max(200),
+  subsystem: slug,
+  seasonId: id.optional(),
+  status: recordStatusSchema.optional(),
+  source: lessonSourceSchema.optional(),
+  body,
+  calculationIds: ids,
+  relatedRecordIds: ids,
+});
+export type RecordCreateInput = z.infer<typeof recordCreateSchema>;
+
+export const recordPatchSchema = z
+  .object({
+    version: z.number().int().min(1),
+    title: z.string().trim().min(3, 'Give the record a title of at least 3 characters.').max(200).optional(),
+    subsystem: slug.optional(),
+    seasonId: id.optional(),
+    source: lessonSourceSchema.nullable().optional(),
+    body: body.optional(),
+    calculationIds: z.array(id).max(50).optional(),
+    relatedRecordIds: z.array(id).max(50).optional(),
+    note: z.string().trim().max(300).optional(),
+  })
+  .strict();
+export type RecordPatchInput = z.infer<typeof recordPatchSchema>;
+
+export const recordStatusChangeSchema = z.object({
+  status: recordStatusSchema,
+  supersededBy: id.optional(),
+  version: z.number().int().min(1).optional(),
+});
+
+export const recordListQuerySchema = z.object({
+  kind: recordKindSchema.optional().or(z.literal('')),
+  subsystem: slug.optional().or(z.literal('')),
+  season: id.optional().or(z.literal('')),
+  status: recordStatusSchema.optional().or(z.literal('')),
+  limit: z.coerce.number().int().min(1).max(100).default(25),
+  cursor: z.string().max(100).optional(),
+});
+
+export const commentInputSchema = z.object({
+  body: z.string().trim().min(1, 'Write something first.').max(5000, 'Keep a comment under 5,000 characters.'),
+  parentId: id.optional(),
+});
+
+export const reviewInputSchema = z.object({ note: z.string().trim().max(1000).optional() });

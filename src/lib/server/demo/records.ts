@@ -1,0 +1,104 @@
+import { existsSync, readdirSync, readFileSync } from 'node:fs';
+import { resolve } from 'node:path';
+import { parse as parseYaml } from 'yaml';
+import { z } from 'zod';
+import { attachments, comments, recordCalculations, recordLinks, recordRevisions, records } from '../db/schema';
+import type { RecordStatus } from '../db/schema';
+import { newId } from '../ids';
+import { processBody } from '../records/body';
+import { sniffType } from '../filetype';
+import { storeBytes } from '../storage';
+import { markdownToDoc } from './markdown';
+import type { SeedIds, Tx } from './seed-types';
+
+const dateish = z.union([z.date(), z.string()]).transform((v) => (v instanceof Date ? v : new Date(v)));
+
+const frontSchema = z.object({
+  id: z.string().regex(/^demo-rec-[a-z0-9-]+$/),
+  kind: z.enum(['decision', 'lesson']),
+  title: z.string(),
+  subsystem: z.string(),
+  season: z.string(),
+  status: z.string(),
+  author: z.email(),
+  createdAt: dateish,
+  source: z.enum(['testing', 'building', 'racing', 'organising']).optional(),
+  calculations: z.array(z.string()).default([]),
+  related: z.array(z.string()).default([]),
+  supersedes: z.string().optional(),
+  reviewedBy: z.email().optional(),
+  reviewedOn: dateish.optional(),
+  attachments: z.array(z.string()).default([]),
+  comments: z.array(z.object({ author: z.email(), at: dateish, body: z.string() })).default([]),
+});
+
+export type DemoRecord = z.infer<typeof frontSchema> & { markdown: string };
+
+export function loadDemoRecords(dir: string): DemoRecord[] {
+  const folder = resolve(dir, 'records');
+  if (!existsSync(folder)) return [];
+  return readdirSync(folder)
+    .filter((f) => f.endsWith('.md'))
+    .sort()
+    .map((f) => {
+      const text = readFileSync(resolve(folder, f), 'utf8');
+      const m = /^---\n([\s\S]*?)\n---\n([\s\S]*)$/.exec(text);
+      if (!m) throw new Error(`demo record ${f}: no front matter`);
+      return { ...frontSchema.parse(parseYaml(m[1])), markdown: m[2] };
+    });
+}
+
+/** Demo prose names other records and calculations by id; in the app they become links with their titles. */
+function linkMentions(markdown: string, titles: Map<string, { title: string; url: string }>): string {
+  return markdown.replace(/\b(demo-(?:rec|calc)-[a-z0-9-]*[a-z0-9])\b/g, (id) => {
+    const t = titles.get(id);
+    return t ? `[${t.title.replace(/[[\]]/g, '')}](${t.url})` : id;
+  });
+}
+
+function plainMentions(text: string, titles: Map<string, { title: string }>): string {
+  return text.replace(/\b(demo-(?:rec|calc)-[a-z0-9-]*[a-z0-9])\b/g, (id) => (titles.has(id) ? `“${titles.get(id)!.title}”` : id));
+}
+
+export function seedRecords(tx: Tx, ids: SeedIds, dir: string, list: DemoRecord[], calcTitles: Map<string, string>): void {
+  const titles = new Map<string, { title: string; url: string }>();
+  for (const r of list) titles.set(r.id, { title: r.title, url: `/records/${r.id}` });
+  for (const [id, title] of calcTitles) titles.set(id, { title, url: `/calculations/${id}` });
+  const user = (email: string) => {
+    const id = ids.userIdByEmail.get(email);
+    if (!id) throw new Error(`demo record: unknown person ${email}`);
+    return id;
+  };
+  for (const r of list) {
+    const seasonId = ids.seasonIdByName.get(r.season);
+    if (!seasonId) throw new Error(`demo record ${r.id}: unknown season ${r.season}`);
+    const body = processBody(markdownToDoc(linkMentions(r.markdown, titles)));
+    const authorId = user(r.author);
+    const lastComment = r.comments.reduce((t, c) => Math.max(t, c.at.getTime()), r.createdAt.getTime());
+    tx.insert(records)
+      .values({
+        id: r.id, kind: r.kind, title: r.title, subsystemSlug: r.subsystem, seasonId, status: r.status as RecordStatus, source: r.source ?? null,
+        authorId, body: body.doc, bodyHtml: body.html, bodyText: body.text, version: 1, createdAt: r.createdAt, updatedAt: new Date(lastComment),
+        updatedById: authorId, reviewedById: r.reviewedBy ? user(r.reviewedBy) : null, reviewedAt: r.reviewedOn ?? null, reviewedVersion: r.reviewedBy ? 1 : null,
+      })
+      .run();
+    tx.insert(recordRevisions)
+      .values({ id: newId(), recordId: r.id, version: 1, title: r.title, status: r.status, body: body.doc, bodyText: body.text, editorId: authorId, note: 'Created', createdAt: r.createdAt })
+      .run();
+    for (const c of r.comments) {
+      tx.insert(comments).values({ id: newId(), recordId: r.id, authorId: user(c.author), body: plainMentions(c.body, titles), createdAt: c.at }).run();
+    }
+    for (const name of r.attachments) {
+      const bytes = new Uint8Array(readFileSync(resolve(dir, 'attachments', name)));
+      const type = sniffType(bytes, name);
+      if (!type) throw new Error(`demo attachment ${name}: type not allowed`);
+      const stored = storeBytes(bytes);
+      tx.insert(attachments).values({ id: newId(), recordId: r.id, fileName: name, contentType: type.contentType, size: stored.size, sha256: stored.sha256, uploadedById: authorId, createdAt: r.createdAt }).run();
+    }
+  }
+  for (const r of list) {
+    for (const c of r.calculations) tx.insert(recordCalculations).values({ recordId: r.id, calculationId: c }).run();
+    for (const rel of r.related) tx.insert(recordLinks).values({ fromRecordId: r.id, toRecordId: rel, kind: 'related', createdAt: r.createdAt }).onConflictDoNothing().run();
+    if (r.supersedes) tx.insert(recordLinks).values({ fromRecordId: r.id, toRecordId: r.supersedes, kind: 'supersedes', createdAt: r.createdAt }).run();
+  }
+}

@@ -1,0 +1,172 @@
+import { and, asc, count, desc, eq, inArray, isNull, or } from 'drizzle-orm';
+import { alias } from 'drizzle-orm/sqlite-core';
+import { db } from '../db/client';
+import { attachments, calculations, comments, recordCalculations, recordLinks, recordRevisions, records, seasons, subsystems, users } from '../db/schema';
+
+const author = alias(users, 'author');
+const editor = alias(users, 'editor');
+const reviewer = alias(users, 'reviewer');
+
+export interface RecordRef {
+  id: string;
+  title: string;
+  kind: string;
+  status: string;
+  season: string;
+  url: string;
+}
+
+export interface AttachmentView {
+  id: string;
+  fileName: string;
+  contentType: string;
+  size: number;
+  createdAt: string;
+  url: string;
+  isImage: boolean;
+  isCsv: boolean;
+}
+
+export interface RecordView {
+  id: string;
+  kind: 'decision' | 'lesson';
+  title: string;
+  status: string;
+  source: string | null;
+  subsystem: string;
+  subsystemName: string;
+  seasonId: string;
+  season: string;
+  seasonIsCurrent: boolean;
+  author: { id: string; name: string } | null;
+  updatedBy: { id: string; name: string } | null;
+  version: number;
+  body: unknown;
+  bodyHtml: string;
+  createdAt: string;
+  updatedAt: string;
+  reviewed: { by: string; at: string; version: number; note: string | null; current: boolean } | null;
+  calculations: { id: string; title: string; kind: string; url: string }[];
+  related: RecordRef[];
+  supersedes: RecordRef[];
+  supersededBy: RecordRef[];
+  attachments: AttachmentView[];
+  commentCount: number;
+  url: string;
+}
+
+export function attachmentView(a: typeof attachments.$inferSelect): AttachmentView {
+  return {
+    id: a.id,
+    fileName: a.fileName,
+    contentType: a.contentType,
+    size: a.size,
+    createdAt: a.createdAt.toISOString(),
+    url: `/api/attachments/${a.id}`,
+    isImage: a.contentType.startsWith('image/'),
+    isCsv: a.contentType === 'text/csv',
+  };
+}
+
+function refs(ids: string[]): Map<string, RecordRef> {
+  if (ids.length === 0) return new Map();
+  const rows = db()
+    .select({ id: records.id, title: records.title, kind: records.kind, status: records.status, season: seasons.name })
+    .from(records)
+    .innerJoin(seasons, eq(seasons.id, records.seasonId))
+    .where(and(inArray(records.id, ids), isNull(records.deletedAt)))
+    .all();
+  return new Map(rows.map((r) => [r.id, { ...r, url: `/records/${r.id}` }]));
+}
+
+export function getRecordView(id: string): RecordView | null {
+  const row = db()
+    .select({
+      r: records,
+      subsystemName: subsystems.name,
+      season: seasons.name,
+      seasonIsCurrent: seasons.isCurrent,
+      authorName: author.name,
+      editorName: editor.name,
+      reviewerName: reviewer.name,
+    })
+    .from(records)
+    .innerJoin(subsystems, eq(subsystems.slug, records.subsystemSlug))
+    .innerJoin(seasons, eq(seasons.id, records.seasonId))
+    .leftJoin(author, eq(author.id, records.authorId))
+    .leftJoin(editor, eq(editor.id, records.updatedById))
+    .leftJoin(reviewer, eq(reviewer.id, records.reviewedById))
+    .where(and(eq(records.id, id), isNull(records.deletedAt)))
+    .get();
+  if (!row) return null;
+  const r = row.r;
+  const links = db()
+    .select()
+    .from(recordLinks)
+    .where(or(eq(recordLinks.fromRecordId, id), eq(recordLinks.toRecordId, id)))
+    .all();
+  const linked = refs([...new Set(links.flatMap((l) => [l.fromRecordId, l.toRecordId]).filter((x) => x !== id))]);
+  const pick = (pred: (l: (typeof links)[number]) => boolean, other: (l: (typeof links)[number]) => string) =>
+    [...new Set(links.filter(pred).map(other))].map((x) => linked.get(x)).filter((x): x is RecordRef => !!x);
+  const calcs = db()
+    .select({ id: calculations.id, title: calculations.title, kind: calculations.kind })
+    .from(recordCalculations)
+    .innerJoin(calculations, eq(calculations.id, recordCalculations.calculationId))
+    .where(and(eq(recordCalculations.recordId, id), isNull(calculations.deletedAt)))
+    .orderBy(asc(calculations.title))
+    .all();
+  const files = db().select().from(attachments).where(eq(attachments.recordId, id)).orderBy(asc(attachments.createdAt)).all();
+  const commentCount = db().select({ n: count() }).from(comments).where(eq(comments.recordId, id)).get()?.n ?? 0;
+  return {
+    id: r.id,
+    kind: r.kind,
+    title: r.title,
+    status: r.status,
+    source: r.source,
+    subsystem: r.subsystemSlug,
+    subsystemName: row.subsystemName,
+    seasonId: r.seasonId,
+    season: row.season,
+    seasonIsCurrent: row.seasonIsCurrent,
+    author: r.authorId && row.authorName ? { id: r.authorId, name: row.authorName } : null,
+    updatedBy: r.updatedById && row.editorName ? { id: r.updatedById, name: row.editorName } : null,
+    version: r.version,
+    body: r.body,
+    bodyHtml: r.bodyHtml,
+    createdAt: r.createdAt.toISOString(),
+    updatedAt: r.updatedAt.toISOString(),
+    reviewed:
+      r.reviewedAt && row.reviewerName
+        ? { by: row.reviewerName, at: r.reviewedAt.toISOString(), version: r.reviewedVersion ?? 0, note: r.reviewNote, current: r.reviewedVersion === r.version }
+        : null,
+    calculations: calcs.map((c) => ({ ...c, url: `/calculations/${c.id}` })),
+    related: pick((l) => l.kind === 'related', (l) => (l.fromRecordId === id ? l.toRecordId : l.fromRecordId)),
+    supersedes: pick((l) => l.kind === 'supersedes' && l.fromRecordId === id, (l) => l.toRecordId),
+    supersededBy: pick((l) => l.kind === 'supersedes' && l.toRecordId === id, (l) => l.fromRecordId),
+    attachments: files.map(attachmentView),
+    commentCount,
+    url: `/records/${r.id}`,
+  };
+}
+
+export function listRevisions(recordId: string) {
+  return db()
+    .select({ id: recordRevisions.id, version: recordRevisions.version, title: recordRevisions.title, status: recordRevisions.status, note: recordRevisions.note, createdAt: recordRevisions.createdAt, editor: users.name, body: recordRevisions.body, bodyText: recordRevisions.bodyText })
+    .from(recordRevisions)
+    .leftJoin(users, eq(users.id, recordRevisions.editorId))
+    .where(eq(recordRevisions.recordId, recordId))
+    .orderBy(desc(recordRevisions.version))
+    .all()
+    .map((r) => ({ ...r, createdAt: r.createdAt.toISOString(), editor: r.editor ?? 'former member' }));
+}
+
+export function listComments(recordId: string) {
+  return db()
+    .select({ id: comments.id, body: comments.body, parentId: comments.parentId, createdAt: comments.createdAt, authorId: comments.authorId, author: users.name, authorRole: users.role })
+    .from(comments)
+    .leftJoin(users, eq(users.id, comments.authorId))
+    .where(eq(comments.recordId, recordId))
+    .orderBy(asc(comments.createdAt), asc(comments.id))
+    .all()
+    .map((c) => ({ ...c, createdAt: c.createdAt.toISOString(), author: c.author ?? 'former member' }));
+}

@@ -1,0 +1,30 @@
+import { createHash } from 'node:crypto';
+import { createReadStream, existsSync, mkdirSync, renameSync, statSync, writeFileSync } from 'node:fs';
+import { dirname, join, resolve } from 'node:path';
+import { Readable } from 'node:stream';
+import { settings } from './config';
+
+/** Files live under WAKEBOOK_UPLOADS by content hash (ab/abcdef…), so identical uploads share one copy. */
+export function pathForHash(sha256: string): string {
+  if (!/^[0-9a-f]{64}$/.test(sha256)) throw new Error('not a sha256');
+  return join(resolve(settings().WAKEBOOK_UPLOADS), sha256.slice(0, 2), sha256);
+}
+
+export function storeBytes(bytes: Uint8Array): { sha256: string; size: number } {
+  const sha256 = createHash('sha256').update(bytes).digest('hex');
+  const path = pathForHash(sha256);
+  if (!existsSync(path)) {
+    mkdirSync(dirname(path), { recursive: true });
+    // Write then rename, so a crash never leaves a half file under the final name.
+    const tmp = `${path}.${process.pid}.${Date.now()}.tmp`;
+    writeFileSync(tmp, bytes);
+    renameSync(tmp, path);
+  }
+  return { sha256, size: bytes.byteLength };
+}
+
+export function openStored(sha256: string): { stream: ReadableStream<Uint8Array>; size: number } | null {
+  const path = pathForHash(sha256);
+  if (!existsSync(path)) return null;
+  return { stream: Readable.toWeb(createReadStream(path)) as ReadableStream<Uint8Array>, size: statSync(path).size };
+}

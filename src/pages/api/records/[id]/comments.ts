@@ -1,0 +1,19 @@
+import type { APIRoute } from 'astro';
+import { handle, json, notFound, readJson, requirePermission } from '~/lib/server/http';
+import { commentInputSchema } from '~/lib/schemas/records';
+import { getRecordView, listComments } from '~/lib/server/records/view';
+import { addComment } from '~/lib/server/records/write';
+
+export const GET: APIRoute = handle(({ locals, params }) => {
+  requirePermission(locals, 'read');
+  const id = params.id ?? '';
+  if (!getRecordView(id)) throw notFound('That record');
+  return json({ comments: listComments(id) });
+});
+
+export const POST: APIRoute = handle(async ({ locals, params, request }) => {
+  const user = requirePermission(locals, 'record:comment');
+  const input = await readJson(request, commentInputSchema, 16 * 1024);
+  const id = addComment(params.id ?? '', input, user);
+  return json({ comment: listComments(params.id ?? '').find((c) => c.id === id) }, 201);
+});

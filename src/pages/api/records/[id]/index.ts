@@ -1,0 +1,19 @@
+import type { APIRoute } from 'astro';
+import { handle, json, notFound, readJson, requirePermission } from '~/lib/server/http';
+import { recordPatchSchema } from '~/lib/schemas/records';
+import { getRecordView } from '~/lib/server/records/view';
+import { updateRecord } from '~/lib/server/records/write';
+
+export const GET: APIRoute = handle(({ locals, params }) => {
+  requirePermission(locals, 'read');
+  const record = getRecordView(params.id ?? '');
+  if (!record) throw notFound('That record');
+  return json({ record });
+});
+
+/** Saves an edit of `version`; 409 with the current record when someone saved in between. */
+export const PATCH: APIRoute = handle(async ({ locals, params, request }) => {
+  const user = requirePermission(locals, 'record:create');
+  const patch = await readJson(request, recordPatchSchema, 512 * 1024);
+  return json({ record: updateRecord(params.id ?? '', patch, user) });
+});
