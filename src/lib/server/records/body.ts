@@ -26,6 +26,7 @@ export function processBody(input: unknown): ProcessedBody {
   if (JSON.stringify(input).length > MAX_BODY_CHARS) throw fail(`The text is too long (over ${MAX_BODY_CHARS / 1000}k characters of document).`);
   const cleaned = clean(input as JSONContent, 0);
   if (cleaned === 'too-deep') throw fail('The document is nested too deeply.');
+  if (cleaned === 'bad-attrs') throw fail('Headings may be level 2 or 3.');
   if (cleaned.type !== 'doc') throw fail('The body must be a document (type "doc").');
   let node;
   try {
@@ -39,10 +40,12 @@ export function processBody(input: unknown): ProcessedBody {
 }
 
 /** Copies only the known shape of a node, dropping link marks whose target is not http(s) or mailto. */
-function clean(n: JSONContent, depth: number): JSONContent | 'too-deep' {
+function clean(n: JSONContent, depth: number): JSONContent | 'too-deep' | 'bad-attrs' {
   if (depth > MAX_DEPTH) return 'too-deep';
   const out: JSONContent = { type: String(n.type ?? '') };
   if (n.attrs && typeof n.attrs === 'object' && !Array.isArray(n.attrs)) out.attrs = { ...n.attrs };
+  // The schema checks node types but not attribute values; the editor offers only these heading levels.
+  if (out.type === 'heading' && ![2, 3].includes(Number(out.attrs?.level))) return 'bad-attrs';
   if (typeof n.text === 'string') out.text = n.text;
   if (Array.isArray(n.marks)) {
     out.marks = n.marks
@@ -55,7 +58,7 @@ function clean(n: JSONContent, depth: number): JSONContent | 'too-deep' {
     for (const child of n.content) {
       if (!child || typeof child !== 'object') continue;
       const c = clean(child, depth + 1);
-      if (c === 'too-deep') return c;
+      if (c === 'too-deep' || c === 'bad-attrs') return c;
       kids.push(c);
     }
     out.content = kids;

@@ -1,0 +1,82 @@
+import { useRef, useState, type DragEvent } from 'react';
+
+interface Upload {
+  name: string;
+  progress: number;
+  state: 'uploading' | 'done' | 'error';
+  message?: string;
+}
+
+/** Drag-and-drop or pick files; each uploads with its own progress bar (XHR, since fetch reports no upload progress). */
+export default function AttachmentUploader({ recordId, maxMb }: { recordId: string; maxMb: number }) {
+  const [uploads, setUploads] = useState<Upload[]>([]);
+  const [over, setOver] = useState(false);
+  const input = useRef<HTMLInputElement>(null);
+
+  const update = (i: number, patch: Partial<Upload>) => setUploads((u) => u.map((x, j) => (j === i ? { ...x, ...patch } : x)));
+
+  function send(files: FileList | File[]) {
+    const list = Array.from(files);
+    setUploads((u) => {
+      const start = u.length;
+      list.forEach((file, k) => {
+        const i = start + k;
+        if (file.size > maxMb * 1024 * 1024) {
+          queueMicrotask(() => update(i, { state: 'error', message: `Over the ${maxMb} MB limit.` }));
+          return;
+        }
+        const xhr = new XMLHttpRequest();
+        xhr.open('POST', `/api/records/${recordId}/attachments`);
+        xhr.upload.onprogress = (e) => e.lengthComputable && update(i, { progress: e.loaded / e.total });
+        xhr.onload = () => {
+          if (xhr.status === 201) update(i, { state: 'done', progress: 1 });
+          else {
+            let message = `Upload failed (${xhr.status}).`;
+            try {
+              message = JSON.parse(xhr.responseText).error.message;
+            } catch {
+              // keep the generic message
+            }
+            update(i, { state: 'error', message });
+          }
+        };
+        xhr.onerror = () => update(i, { state: 'error', message: 'Could not reach the server.' });
+        const form = new FormData();
+        form.set('file', file);
+        xhr.send(form);
+      });
+      return [...u, ...list.map((f) => ({ name: f.name, progress: 0, state: 'uploading' as const }))];
+    });
+  }
+
+  const onDrop = (e: DragEvent) => {
+    e.preventDefault();
+    setOver(false);
+    if (e.dataTransfer.files.length) send(e.dataTransfer.files);
+  };
+  const anyDone = uploads.some((u) => u.state === 'done');
+  const busy = uploads.some((u) => u.state === 'uploading');
+
+  return (
+    <div className="flex flex-col gap-2">
+      <div onDragOver={(e) => { e.preventDefault(); setOver(true); }} onDragLeave={() => setOver(false)} onDrop={onDrop}
+        className={`rounded-lg border-2 border-dashed p-4 text-center text-sm ${over ? 'border-accent bg-accent-soft' : 'border-line'}`}>
+        <p>Drop photos, PDFs, CSV logs or text files here, or</p>
+        <button type="button" className="btn btn-quiet mt-2 text-sm" onClick={() => input.current?.click()}>Choose files…</button>
+        <input ref={input} type="file" multiple className="sr-only" aria-label="Attach files" tabIndex={-1}
+          accept="image/png,image/jpeg,image/gif,image/webp,application/pdf,text/csv,.csv,text/plain,.txt,.log" onChange={(e) => e.target.files && send(e.target.files)} />
+        <p className="mt-2 text-xs text-muted">Up to {maxMb} MB each. The type is checked from the file’s contents.</p>
+      </div>
+      <ul className="flex flex-col gap-2" aria-live="polite">
+        {uploads.map((u, i) => (
+          <li key={i} className="text-sm">
+            <div className="flex justify-between gap-2"><span className="truncate">{u.name}</span><span className="text-muted">{u.state === 'done' ? 'Uploaded' : u.state === 'error' ? 'Failed' : `${Math.round(u.progress * 100)} %`}</span></div>
+            <progress className="w-full" max={1} value={u.progress} aria-label={`Upload of ${u.name}`} />
+            {u.message && <p className="field-error">{u.message}</p>}
+          </li>
+        ))}
+      </ul>
+      {anyDone && !busy && <button type="button" className="btn btn-primary self-start text-sm" onClick={() => window.location.reload()}>Show the new attachments</button>}
+    </div>
+  );
+}
