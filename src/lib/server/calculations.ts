@@ -8,6 +8,7 @@ import { newId } from './ids';
 import { recordAudit } from './audit';
 import { currentSeason, findSeason, findSubsystem } from './seasons';
 import type { CalculationInput } from '../schemas/calculations';
+import { onCalculationChanged } from './records/hooks';
 
 type Actor = { id: string; email: string };
 type Outputs = Record<string, number | string | null>;
@@ -70,6 +71,7 @@ export function createCalculation(input: CalculationInput, actor: Actor): Calcul
     insertResult(tx, id, run, actor.id, now);
   });
   recordAudit({ actor, action: 'calculation.create', targetType: 'calculation', targetId: id, detail: { kind: input.kind, title: input.title } });
+  onCalculationChanged(id);
   return getCalculation(id)!;
 }
 
@@ -101,6 +103,7 @@ export function recomputeCalculation(id: string, actor: Actor) {
     tx.update(calculations).set({ updatedAt: now }).where(eq(calculations.id, id)).run();
   });
   recordAudit({ actor, action: 'calculation.recompute', targetType: 'calculation', targetId: id, detail: { from: before.engineVersion, to: run.engineVersion } });
+  onCalculationChanged(id);
   const after = getCalculation(id)!;
   return { calculation: after, previous: before.results[0], changes: diffOutputs(before.outputs, after.outputs) };
 }
