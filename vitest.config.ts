@@ -5,7 +5,7 @@ import { getViteConfig } from 'astro/config';
 export default getViteConfig({
   test: {
     include: ['tests/unit/**/*.test.ts', 'tests/api/**/*.test.ts', 'tests/reference/**/*.test.ts'],
-    setupFiles: ['tests/setup/env.ts'],
+    setupFiles: ['tests/setup/env.ts', 'tests/setup/content.ts'],
     pool: 'forks',
     testTimeout: 20_000,
     hookTimeout: 30_000,

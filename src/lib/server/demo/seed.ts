@@ -6,6 +6,7 @@ import { newId } from '../ids';
 import { loadDemoTeam, demoDir, DEMO_PASSWORD, type DemoTeam } from './team';
 import { loadDemoCalculations, seedCalculations } from './calculations';
 import { loadDemoRecords, seedRecords } from './records';
+import { loadDemoOnboarding, seedOnboarding } from './onboarding';
 import type { SeedIds, Tx } from './seed-types';
 import { recordAudit } from '../audit';
 
@@ -17,6 +18,7 @@ export async function seedDemoIfEmpty(): Promise<boolean> {
   const team = loadDemoTeam(dir);
   const calcs = loadDemoCalculations(dir);
   const recs = loadDemoRecords(dir);
+  const onboarding = loadDemoOnboarding(dir);
   const passwordHash = await hashPassword(DEMO_PASSWORD);
   db().transaction((tx) => {
     // A second process may have seeded between our count and this transaction.
@@ -25,6 +27,7 @@ export async function seedDemoIfEmpty(): Promise<boolean> {
     const ids = seedTeam(tx, team, passwordHash);
     seedCalculations(tx, ids, calcs);
     seedRecords(tx, ids, dir, recs, new Map(calcs.map((c) => [c.id, c.title])));
+    seedOnboarding(tx, ids, onboarding);
   });
   recordAudit({ actor: null, action: 'demo.seed', targetType: 'database' });
   return true;

@@ -1,0 +1,39 @@
+import { z } from 'zod';
+
+export const PHASES = ['design', 'build', 'test', 'race', 'handover'] as const;
+
+const date = z.iso.date('Use a date like 2026-10-01.');
+
+export const seasonCreateSchema = z
+  .object({
+    name: z.string().trim().min(2, 'Name the season, e.g. 2026–27.').max(40),
+    startsOn: date,
+    endsOn: date,
+    phase: z.enum(PHASES).default('design'),
+    boat: z.string().trim().max(60).optional(),
+  })
+  .refine((s) => s.endsOn > s.startsOn, { path: ['endsOn'], message: 'The season must end after it starts.' });
+
+export const seasonPatchSchema = z
+  .object({
+    name: z.string().trim().min(2).max(40).optional(),
+    startsOn: date.optional(),
+    endsOn: date.optional(),
+    phase: z.enum(PHASES).optional(),
+    boat: z.string().trim().max(60).nullable().optional(),
+    current: z.literal(true).optional(),
+  })
+  .strict();
+
+export const rolloverSchema = z.object({
+  continuing: z.array(z.string().min(1).max(64)).max(500).default([]),
+  confirm: z.boolean().default(false),
+});
+
+export const subsystemCreateSchema = z.object({
+  slug: z.string().trim().min(2).max(40).regex(/^[a-z0-9-]+$/, 'Lower-case letters, digits and dashes.'),
+  name: z.string().trim().min(2).max(80),
+  summary: z.string().trim().max(400).default(''),
+});
+
+export const subsystemPatchSchema = z.object({ name: z.string().trim().min(2).max(80).optional(), summary: z.string().trim().max(400).optional() }).strict();

@@ -1,0 +1,45 @@
+import { and, eq, inArray, isNull } from 'drizzle-orm';
+import { db } from './db/client';
+import { recordCalculations, records } from './db/schema';
+import { listSubsystems, findSeason, currentSeason } from './seasons';
+import { listGuides } from './guides';
+import { getRoute } from './onboarding';
+import { scoreReadiness, type Readiness } from '../readiness';
+import { notFound } from './http';
+
+const words = (t: string) => (t.trim() ? t.trim().split(/\s+/).length : 0);
+
+/** Gathers the handover facts of every subsystem for a season and scores them. */
+export async function readinessFor(seasonId?: string, now = new Date()) {
+  const season = seasonId ? findSeason(seasonId) : currentSeason();
+  if (!season) throw notFound('That season');
+  const guides = await listGuides();
+  const out: ({ slug: string; name: string } & Readiness)[] = [];
+  for (const s of listSubsystems()) {
+    const recs = db()
+      .select({ id: records.id, title: records.title, kind: records.kind, status: records.status, bodyText: records.bodyText })
+      .from(records)
+      .where(and(eq(records.subsystemSlug, s.slug), eq(records.seasonId, season.id), isNull(records.deletedAt)))
+      .all();
+    const accepted = recs.filter((r) => r.kind === 'decision' && r.status === 'accepted');
+    const calcCounts = new Map<string, number>();
+    if (accepted.length) {
+      for (const l of db().select().from(recordCalculations).where(inArray(recordCalculations.recordId, accepted.map((a) => a.id))).all()) {
+        calcCounts.set(l.recordId, (calcCounts.get(l.recordId) ?? 0) + 1);
+      }
+    }
+    const route = await getRoute(s.slug, null);
+    const onRoute = new Set(route.items.filter((i) => i.kind === 'record').map((i) => i.ref));
+    const result = scoreReadiness(
+      {
+        acceptedDecisions: accepted.map((d) => ({ id: d.id, title: d.title, reasoningWords: words(d.bodyText), calculations: calcCounts.get(d.id) ?? 0 })),
+        lessons: recs.filter((r) => r.kind === 'lesson').map((l) => ({ id: l.id, title: l.title, status: l.status, onRoute: onRoute.has(l.id) })),
+        route: { items: route.items.length, itemsFromSeason: route.items.filter((i) => i.seasonId === season.id).length, missingItems: route.items.filter((i) => !i.exists).length },
+        guides: guides.filter((g) => g.subsystem === s.slug).map((g) => ({ slug: g.slug, title: g.title, reviewedOn: g.reviewedOn })),
+      },
+      now,
+    );
+    out.push({ slug: s.slug, name: s.name, ...result });
+  }
+  return { season, subsystems: out };
+}
