@@ -30,7 +30,11 @@ try {
 `;
         // Imports stay first; the prelude runs before the adapter starts listening.
         const at = source.indexOf('\nconst ');
-        await writeFile(entry, source.slice(0, at + 1) + prelude + source.slice(at + 1));
+        // React and other libraries pick their development or production build from NODE_ENV when first
+        // imported; the built server is production unless told otherwise, so set it before any other import.
+        const envModule = fileURLToPath(new URL('wakebook-production-env.mjs', serverDir));
+        await writeFile(envModule, "process.env.NODE_ENV ??= 'production';\n");
+        await writeFile(entry, `import './wakebook-production-env.mjs';\n` + source.slice(0, at + 1) + prelude + source.slice(at + 1));
       },
     },
   };

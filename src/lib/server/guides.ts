@@ -40,14 +40,21 @@ export function toGuideSummary(entry: GuideEntry, now: Date = new Date()): Guide
   };
 }
 
+// Guides are compiled into the build and never change while the server runs: load the collection once.
+let all: Promise<GuideEntry[]> | undefined;
+function allGuides(): Promise<GuideEntry[]> {
+  if (!import.meta.env.PROD) return getCollection('guides'); // dev: pick up edits to the MDX files
+  all ??= getCollection('guides');
+  return all;
+}
+
 export async function listGuides(subsystem?: string): Promise<GuideSummary[]> {
-  const entries = await getCollection('guides', (e) => !subsystem || e.data.subsystem === subsystem);
+  const entries = (await allGuides()).filter((e) => !subsystem || e.data.subsystem === subsystem);
   return entries
     .map((e) => toGuideSummary(e))
     .sort((a, b) => a.subsystem.localeCompare(b.subsystem) || a.order - b.order || a.title.localeCompare(b.title));
 }
 
 export async function findGuide(slug: string): Promise<GuideEntry | undefined> {
-  const entries = await getCollection('guides', (e) => e.id === slug);
-  return entries[0];
+  return (await allGuides()).find((e) => e.id === slug);
 }

@@ -1,4 +1,4 @@
-import { and, eq, inArray, isNull } from 'drizzle-orm';
+import { and, eq, inArray, isNull, sql } from 'drizzle-orm';
 import { db } from './db/client';
 import { recordCalculations, records } from './db/schema';
 import { listSubsystems, findSeason, currentSeason } from './seasons';
@@ -6,8 +6,6 @@ import { listGuides } from './guides';
 import { getRoute } from './onboarding';
 import { scoreReadiness, type Readiness } from '../readiness';
 import { notFound } from './http';
-
-const words = (t: string) => (t.trim() ? t.trim().split(/\s+/).length : 0);
 
 /** Gathers the handover facts of every subsystem for a season and scores them. */
 export async function readinessFor(seasonId?: string, now = new Date()) {
@@ -17,7 +15,14 @@ export async function readinessFor(seasonId?: string, now = new Date()) {
   const out: ({ slug: string; name: string } & Readiness)[] = [];
   for (const s of listSubsystems()) {
     const recs = db()
-      .select({ id: records.id, title: records.title, kind: records.kind, status: records.status, bodyText: records.bodyText })
+      // Words counted in SQL (spaces and line breaks between non-empty text), so record bodies never leave the database here.
+      .select({
+        id: records.id,
+        title: records.title,
+        kind: records.kind,
+        status: records.status,
+        words: sql<number>`(length(trim(replace(${records.bodyText}, char(10), ' '))) - length(replace(trim(replace(${records.bodyText}, char(10), ' ')), ' ', '')) + (trim(${records.bodyText}) != ''))`,
+      })
       .from(records)
       .where(and(eq(records.subsystemSlug, s.slug), eq(records.seasonId, season.id), isNull(records.deletedAt)))
       .all();
@@ -32,7 +37,7 @@ export async function readinessFor(seasonId?: string, now = new Date()) {
     const onRoute = new Set(route.items.filter((i) => i.kind === 'record').map((i) => i.ref));
     const result = scoreReadiness(
       {
-        acceptedDecisions: accepted.map((d) => ({ id: d.id, title: d.title, reasoningWords: words(d.bodyText), calculations: calcCounts.get(d.id) ?? 0 })),
+        acceptedDecisions: accepted.map((d) => ({ id: d.id, title: d.title, reasoningWords: d.words, calculations: calcCounts.get(d.id) ?? 0 })),
         lessons: recs.filter((r) => r.kind === 'lesson').map((l) => ({ id: l.id, title: l.title, status: l.status, onRoute: onRoute.has(l.id) })),
         route: { items: route.items.length, itemsFromSeason: route.items.filter((i) => i.seasonId === season.id).length, missingItems: route.items.filter((i) => !i.exists).length },
         guides: guides.filter((g) => g.subsystem === s.slug).map((g) => ({ slug: g.slug, title: g.title, reviewedOn: g.reviewedOn })),

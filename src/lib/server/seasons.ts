@@ -1,5 +1,5 @@
-import { asc, desc, eq } from 'drizzle-orm';
-import { db } from './db/client';
+import { asc, desc, eq, sql } from 'drizzle-orm';
+import { db, prepared } from './db/client';
 import { seasons, subsystems } from './db/schema';
 
 export interface SeasonView {
@@ -22,12 +22,12 @@ export function listSeasons(): SeasonView[] {
 }
 
 export function currentSeason(): SeasonView | null {
-  const s = db().select().from(seasons).where(eq(seasons.isCurrent, true)).get();
+  const s = prepared('currentSeason', (d) => d.select().from(seasons).where(eq(seasons.isCurrent, true)).prepare()).get();
   return s ? toView(s) : null;
 }
 
 export function findSeason(id: string): SeasonView | null {
-  const s = db().select().from(seasons).where(eq(seasons.id, id)).get();
+  const s = prepared('findSeason', (d) => d.select().from(seasons).where(eq(seasons.id, sql.placeholder('id'))).prepare()).get({ id });
   return s ? toView(s) : null;
 }
 
@@ -46,11 +46,8 @@ export function listSubsystems(): SubsystemView[] {
 }
 
 export function findSubsystem(slug: string): SubsystemView | null {
-  return (
-    db()
-      .select({ slug: subsystems.slug, name: subsystems.name, summary: subsystems.summary })
-      .from(subsystems)
-      .where(eq(subsystems.slug, slug))
-      .get() ?? null
+  const q = prepared('findSubsystem', (d) =>
+    d.select({ slug: subsystems.slug, name: subsystems.name, summary: subsystems.summary }).from(subsystems).where(eq(subsystems.slug, sql.placeholder('slug'))).prepare(),
   );
+  return q.get({ slug }) ?? null;
 }

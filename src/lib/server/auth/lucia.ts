@@ -1,7 +1,7 @@
 // The only module that knows about Lucia. Lucia 3 is no longer developed upstream (see
 // docs/decisions/001-sessions-with-lucia-3.md); everything else asks these functions, so replacing it
 // touches one file.
-import { Lucia, TimeSpan, type Session, type User } from 'lucia';
+import { Lucia, TimeSpan, type DatabaseSession, type DatabaseUser, type Session, type User } from 'lucia';
 import { DrizzleSQLiteAdapter } from '@lucia-auth/adapter-drizzle';
 import { eq } from 'drizzle-orm';
 import type { AstroCookies } from 'astro';
@@ -13,8 +13,27 @@ export const SESSION_COOKIE = 'wakebook_session';
 /** Sessions last this long since the last use; Lucia extends them once half is spent (sliding expiry). */
 export const SESSION_LIFETIME_DAYS = 14;
 
+/**
+ * Lucia's Drizzle adapter, with the one query that runs on every request (session + user by session id) as a
+ * statement prepared once. Everything else stays with the adapter.
+ */
+class PreparedSessionAdapter extends DrizzleSQLiteAdapter {
+  private readonly lookup = db().$client.prepare(
+    'SELECT s.id AS sid, s.user_id AS uid, s.expires_at AS exp, u.email AS email, u.name AS name, u.role AS role FROM sessions s JOIN users u ON u.id = s.user_id WHERE s.id = ?',
+  );
+
+  override async getSessionAndUser(sessionId: string): Promise<[DatabaseSession | null, DatabaseUser | null]> {
+    const row = this.lookup.get(sessionId) as { sid: string; uid: string; exp: number; email: string; name: string; role: Role } | undefined;
+    if (!row) return [null, null];
+    return [
+      { id: row.sid, userId: row.uid, expiresAt: new Date(row.exp * 1000), attributes: {} },
+      { id: row.uid, attributes: { email: row.email, name: row.name, role: row.role } },
+    ];
+  }
+}
+
 function createLucia() {
-  const adapter = new DrizzleSQLiteAdapter(db(), sessions, users);
+  const adapter = new PreparedSessionAdapter(db(), sessions, users);
   const s = settings();
   const secure = s.WAKEBOOK_SECURE_COOKIES === 'auto' ? import.meta.env.PROD : s.WAKEBOOK_SECURE_COOKIES;
   return new Lucia(adapter, {

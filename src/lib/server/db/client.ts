@@ -39,3 +39,17 @@ export function closeDatabase(): void {
   instance?.$client.close();
   instance = undefined;
 }
+
+const preparedCache = new WeakMap<Db, Map<string, unknown>>();
+
+/**
+ * A query prepared once per database and reused: building and preparing SQL costs more than running a
+ * primary-key lookup, so hot paths (every page's header, record reads) use this.
+ */
+export function prepared<T>(key: string, build: (d: Db) => T): T {
+  const d = db();
+  let cache = preparedCache.get(d);
+  if (!cache) preparedCache.set(d, (cache = new Map()));
+  if (!cache.has(key)) cache.set(key, build(d));
+  return cache.get(key) as T;
+}

@@ -1,6 +1,6 @@
-import { and, asc, count, desc, eq, inArray, isNull, or } from 'drizzle-orm';
+import { and, asc, count, desc, eq, inArray, isNull, or, sql } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/sqlite-core';
-import { db } from '../db/client';
+import { db, prepared } from '../db/client';
 import { attachments, calculations, comments, recordCalculations, recordLinks, recordRevisions, records, seasons, subsystems, users } from '../db/schema';
 
 const author = alias(users, 'author');
@@ -79,44 +79,50 @@ function refs(ids: string[]): Map<string, RecordRef> {
   return new Map(rows.map((r) => [r.id, { ...r, url: `/records/${r.id}` }]));
 }
 
+const byId = sql.placeholder('id');
+
+function recordRowQuery() {
+  return prepared('record.row', (d) =>
+    d
+      .select({
+        r: records,
+        subsystemName: subsystems.name,
+        season: seasons.name,
+        seasonIsCurrent: seasons.isCurrent,
+        authorName: author.name,
+        editorName: editor.name,
+        reviewerName: reviewer.name,
+      })
+      .from(records)
+      .innerJoin(subsystems, eq(subsystems.slug, records.subsystemSlug))
+      .innerJoin(seasons, eq(seasons.id, records.seasonId))
+      .leftJoin(author, eq(author.id, records.authorId))
+      .leftJoin(editor, eq(editor.id, records.updatedById))
+      .leftJoin(reviewer, eq(reviewer.id, records.reviewedById))
+      .where(and(eq(records.id, byId), isNull(records.deletedAt)))
+      .prepare(),
+  );
+}
+
 export function getRecordView(id: string): RecordView | null {
-  const row = db()
-    .select({
-      r: records,
-      subsystemName: subsystems.name,
-      season: seasons.name,
-      seasonIsCurrent: seasons.isCurrent,
-      authorName: author.name,
-      editorName: editor.name,
-      reviewerName: reviewer.name,
-    })
-    .from(records)
-    .innerJoin(subsystems, eq(subsystems.slug, records.subsystemSlug))
-    .innerJoin(seasons, eq(seasons.id, records.seasonId))
-    .leftJoin(author, eq(author.id, records.authorId))
-    .leftJoin(editor, eq(editor.id, records.updatedById))
-    .leftJoin(reviewer, eq(reviewer.id, records.reviewedById))
-    .where(and(eq(records.id, id), isNull(records.deletedAt)))
-    .get();
+  const row = recordRowQuery().get({ id });
   if (!row) return null;
   const r = row.r;
-  const links = db()
-    .select()
-    .from(recordLinks)
-    .where(or(eq(recordLinks.fromRecordId, id), eq(recordLinks.toRecordId, id)))
-    .all();
+  const links = prepared('record.links', (d) => d.select().from(recordLinks).where(or(eq(recordLinks.fromRecordId, byId), eq(recordLinks.toRecordId, byId))).prepare()).all({ id });
   const linked = refs([...new Set(links.flatMap((l) => [l.fromRecordId, l.toRecordId]).filter((x) => x !== id))]);
   const pick = (pred: (l: (typeof links)[number]) => boolean, other: (l: (typeof links)[number]) => string) =>
     [...new Set(links.filter(pred).map(other))].map((x) => linked.get(x)).filter((x): x is RecordRef => !!x);
-  const calcs = db()
-    .select({ id: calculations.id, title: calculations.title, kind: calculations.kind })
-    .from(recordCalculations)
-    .innerJoin(calculations, eq(calculations.id, recordCalculations.calculationId))
-    .where(and(eq(recordCalculations.recordId, id), isNull(calculations.deletedAt)))
-    .orderBy(asc(calculations.title))
-    .all();
-  const files = db().select().from(attachments).where(eq(attachments.recordId, id)).orderBy(asc(attachments.createdAt)).all();
-  const commentCount = db().select({ n: count() }).from(comments).where(eq(comments.recordId, id)).get()?.n ?? 0;
+  const calcs = prepared('record.calcs', (d) =>
+    d
+      .select({ id: calculations.id, title: calculations.title, kind: calculations.kind })
+      .from(recordCalculations)
+      .innerJoin(calculations, eq(calculations.id, recordCalculations.calculationId))
+      .where(and(eq(recordCalculations.recordId, byId), isNull(calculations.deletedAt)))
+      .orderBy(asc(calculations.title))
+      .prepare(),
+  ).all({ id });
+  const files = prepared('record.files', (d) => d.select().from(attachments).where(eq(attachments.recordId, byId)).orderBy(asc(attachments.createdAt)).prepare()).all({ id });
+  const commentCount = prepared('record.commentCount', (d) => d.select({ n: count() }).from(comments).where(eq(comments.recordId, byId)).prepare()).get({ id })?.n ?? 0;
   return {
     id: r.id,
     kind: r.kind,
@@ -161,13 +167,16 @@ export function listRevisions(recordId: string) {
 }
 
 export function listComments(recordId: string) {
-  return db()
-    .select({ id: comments.id, body: comments.body, parentId: comments.parentId, createdAt: comments.createdAt, authorId: comments.authorId, author: users.name, authorRole: users.role })
-    .from(comments)
-    .leftJoin(users, eq(users.id, comments.authorId))
-    .where(eq(comments.recordId, recordId))
-    .orderBy(asc(comments.createdAt), asc(comments.id))
-    .all()
+  return prepared('record.comments', (d) =>
+    d
+      .select({ id: comments.id, body: comments.body, parentId: comments.parentId, createdAt: comments.createdAt, authorId: comments.authorId, author: users.name, authorRole: users.role })
+      .from(comments)
+      .leftJoin(users, eq(users.id, comments.authorId))
+      .where(eq(comments.recordId, byId))
+      .orderBy(asc(comments.createdAt), asc(comments.id))
+      .prepare(),
+  )
+    .all({ id: recordId })
     .map((c) => ({ ...c, createdAt: c.createdAt.toISOString(), author: c.author ?? 'former member' }));
 }
 
