@@ -14,12 +14,21 @@ describe('settings', () => {
     expect(s.PUBLIC_URL).toBe('https://wakebook.example.org');
   });
 
+  it('accepts a long cron token and a sender address, and leaves both unset by default', () => {
+    expect(parseSettings({}).WAKEBOOK_CRON_TOKEN).toBeUndefined();
+    const s = parseSettings({ WAKEBOOK_CRON_TOKEN: 'a'.repeat(32), MAIL_FROM: 'Northmere Wakebook <team@northmere.example>' });
+    expect(s.WAKEBOOK_CRON_TOKEN).toBe('a'.repeat(32));
+    expect(s.MAIL_FROM).toBe('Northmere Wakebook <team@northmere.example>');
+  });
+
   it.each([
     [{ PORT: 'eighty' }, 'PORT'],
     [{ PORT: '70000' }, 'PORT'],
     [{ WAKEBOOK_DEMO: 'maybe' }, 'WAKEBOOK_DEMO'],
     [{ SMTP_URL: 'mail.example.org' }, 'SMTP_URL'],
     [{ PUBLIC_URL: 'ftp://x' }, 'PUBLIC_URL'],
+    [{ WAKEBOOK_CRON_TOKEN: 'too-short' }, 'WAKEBOOK_CRON_TOKEN'],
+    [{ MAIL_FROM: 'no address here' }, 'MAIL_FROM'],
   ])('stops with a message naming the bad setting %o', (env, name) => {
     expect(() => parseSettings(env)).toThrow(SettingsError);
     expect(() => parseSettings(env)).toThrow(new RegExp(`cannot start[\\s\\S]*${name}`));

@@ -27,6 +27,18 @@ export const settingsSchema = z.object({
     .enum(['1', '0', 'auto', ''])
     .optional()
     .transform((v) => (v === '1' ? true : v === '0' ? false : 'auto' as const)),
+  /** The sender of Wakebook's e-mail; defaults to an address at PUBLIC_URL's host. */
+  MAIL_FROM: z
+    .string()
+    .optional()
+    .transform((v) => (v ? v.trim() : undefined))
+    .refine((v) => v === undefined || /^[^\r\n]{3,200}$/.test(v) && /@/.test(v), 'must be an address like "Wakebook <team@example.org>"'),
+  /** A shared secret that lets a scheduler call POST /api/digest/send over loopback (`npm run digest`). */
+  WAKEBOOK_CRON_TOKEN: z
+    .string()
+    .optional()
+    .transform((v) => (v ? v : undefined))
+    .refine((v) => v === undefined || v.length >= 32, 'must be at least 32 characters (e.g. `openssl rand -hex 32`)'),
   WAKEBOOK_MAX_UPLOAD_MB: z.coerce.number().positive().max(1024).default(20),
   NODE_ENV: z.string().optional(),
 });

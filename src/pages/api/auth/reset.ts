@@ -1,0 +1,11 @@
+import type { APIRoute } from 'astro';
+import { handle, readJson } from '~/lib/server/http';
+import { resetPasswordSchema } from '~/lib/schemas/auth';
+import { resetPassword } from '~/lib/server/auth/reset';
+import { clientIp } from '~/lib/server/request';
+
+export const POST: APIRoute = handle(async (context) => {
+  const input = await readJson(context.request, resetPasswordSchema, 16 * 1024);
+  await resetPassword(input.token, input.password, clientIp(context));
+  return new Response(null, { status: 204, headers: { 'cache-control': 'no-store' } });
+});
