@@ -63,7 +63,9 @@ describe('onboarding, seasons and handover', () => {
     await page.getByLabel('Boat (optional)').fill('Tern 6');
     await Promise.all([page.waitForLoadState('load'), page.getByRole('button', { name: 'Open season' }).click()]);
     await page.getByRole('heading', { name: '2026–27', level: 2 }).waitFor();
-    await page.locator('astro-island:not([ssr]) #roll-target').waitFor({ state: 'attached' });
+    await page.locator('astro-island:not([ssr]) #season-name').waitFor({ state: 'attached' });
+    await page.getByRole('button', { name: 'Start the rollover…' }).click();
+    await page.locator('#roll-target').waitFor();
     await page.getByLabel(/Jonas Lindqvist/).check();
     await page.getByRole('button', { name: 'Show exactly what will change' }).click();
     const preview = page.getByRole('region', { name: 'What will change' });
