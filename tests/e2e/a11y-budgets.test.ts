@@ -78,12 +78,19 @@ describe.each(PAGES)('$path as $as', ({ path, as, budgetKb }) => {
         // a script cancelled by navigation
       }
     };
+    const cspViolations: string[] = [];
+    const onConsole = (m: import('playwright-core').ConsoleMessage) => {
+      if (/Content Security Policy/i.test(m.text())) cspViolations.push(m.text());
+    };
+    page.on('console', onConsole);
     page.on('response', onResponse);
     await page.goto(`${baseUrl()}${path}`, { waitUntil: 'networkidle' });
     // Let visible islands hydrate, then scroll so client:visible ones load too.
     await page.evaluate(() => window.scrollTo(0, document.body.scrollHeight));
     await page.waitForLoadState('networkidle');
     page.off('response', onResponse);
+    page.off('console', onConsole);
+    expect(cspViolations, 'content security policy violations').toEqual([]);
 
     await page.addScriptTag({ content: AXE });
     const result = (await page.evaluate(async () => {
