@@ -12,9 +12,9 @@ export interface RunningServer {
   rssMb(): number;
 }
 
-export async function startBuiltServer(port: number, env: Record<string, string> = {}): Promise<RunningServer> {
+export async function startBuiltServer(port: number, env: Record<string, string> = {}, reuseDir?: string): Promise<RunningServer & { dir: string }> {
   if (!existsSync('dist/server/entry.mjs')) throw new Error('Build first: npm run build');
-  const dir = mkdtempSync(join(tmpdir(), 'wakebook-bench-'));
+  const dir = reuseDir ?? mkdtempSync(join(tmpdir(), 'wakebook-bench-'));
   const t0 = performance.now();
   const child = spawn(process.execPath, ['dist/server/entry.mjs'], {
     env: { ...process.env, HOST: '127.0.0.1', PORT: String(port), WAKEBOOK_DB: join(dir, 'bench.db'), WAKEBOOK_UPLOADS: join(dir, 'uploads'), WAKEBOOK_DEMO: '1', ...env },
@@ -32,6 +32,7 @@ export async function startBuiltServer(port: number, env: Record<string, string>
   }
   const startMs = performance.now() - t0;
   return {
+    dir,
     base,
     child,
     startMs,
