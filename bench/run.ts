@@ -12,6 +12,7 @@ const seconds = secondsArg >= 0 ? Number(args[secondsArg + 1]) : undefined;
 const suites: Record<string, () => Promise<object[]>> = {
   calc: async () => (await import('./calc')).default(),
   http: async () => (await import('./http')).default({ seconds }),
+  search: async () => (await import('./search')).default(),
 };
 
 for (const [name, run] of Object.entries(suites)) {

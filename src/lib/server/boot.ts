@@ -1,6 +1,7 @@
 import { settings } from './config';
 import { db } from './db/client';
 import { seedDemoIfEmpty } from './demo/seed';
+import { warmSearch } from './search';
 
 let booting: Promise<void> | undefined;
 
@@ -13,6 +14,8 @@ export function ensureBooted(): Promise<void> {
     const s = settings();
     db();
     if (s.WAKEBOOK_DEMO) await seedDemoIfEmpty();
+    // Not awaited: the server listens while guides are indexed and the vocabulary loads.
+    void warmSearch();
   })();
   return booting;
 }

@@ -1,0 +1,9 @@
+import type { APIRoute } from 'astro';
+import { handle, json, parseQuery, requirePermission } from '~/lib/server/http';
+import { searchQuerySchema } from '~/lib/schemas/search';
+import { searchEverything } from '~/lib/server/search';
+
+export const GET: APIRoute = handle(async ({ locals, url }) => {
+  requirePermission(locals, 'read');
+  return json(await searchEverything(parseQuery(url, searchQuerySchema)));
+});
