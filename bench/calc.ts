@@ -1,6 +1,8 @@
 // Calculator engine benchmarks: one propeller evaluation, one race solve, one ~200-propeller sweep.
 // Each goes through runCalculator (schema parse + compute), as the API does.
 import { runCalculator } from '../src/lib/calc/index';
+import { bSeries } from '../src/lib/calc/bseries';
+import { operatingPoint } from '../src/lib/calc/propeller';
 import { summarize, timeIt, type BenchSummary } from './stats';
 
 function mustRun(kind: string, inputs: object) {
@@ -18,6 +20,11 @@ export default async function benchCalc(): Promise<BenchSummary[]> {
     propRuns,
   );
   out.push(summarize('calc.propeller.evaluate', prop, { docs: 'B-series K_T/K_Q, thrust, torque, power and the 41-point open-water series' }));
+
+  // The evaluation alone: B-series K_T/K_Q polynomials collapsed for one geometry, and the operating point at one
+  // advance ratio (what a solver or sweep calls many times), without schema parsing or the chart series.
+  const point = timeIt((i) => operatingPoint(bSeries(3, 0.5, 0.9 + (i % 40) * 0.01), 0.2, 20 + (i % 10), 4, 998.2), propRuns);
+  out.push(summarize('calc.propeller.point', point, { docs: 'B-series polynomials for one geometry + thrust, torque, power, efficiency at one J' }));
 
   const raceRuns = 1000;
   const race = timeIt((i) => mustRun('race', { batteryEnergy_Wh: 1400 + (i % 600), pitchRatio: 1.0 + (i % 5) * 0.05 }), raceRuns);
