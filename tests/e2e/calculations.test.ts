@@ -34,10 +34,13 @@ describe('calculators as a member uses them', () => {
 
   it('shows the field message and a 422-style explanation outside the series range', async () => {
     await page.getByLabel('Pitch ratio P/D').fill('1.8');
-    await page.getByText(/outside|range/i).first().waitFor();
-    expect(await page.getByLabel('Pitch ratio P/D').getAttribute('aria-invalid')).toBe('true');
+    // Results follow typing through a deferred value: wait for the field to be marked, not for a fixed time.
+    await expect.poll(() => page.getByLabel('Pitch ratio P/D').getAttribute('aria-invalid')).toBe('true');
+    await page.getByRole('status').filter({ hasText: /P\/D|pitch/i }).first().waitFor();
     await page.getByLabel('Pitch ratio P/D').fill('1.1');
+    await expect.poll(() => page.getByLabel('Pitch ratio P/D').getAttribute('aria-invalid')).toBeNull();
     await output('thrust_N').waitFor();
+    await page.getByRole('button', { name: 'Save calculation' }).waitFor();
   });
 
   it('saves with a title, subsystem and notes, and reopens the saved calculation', async () => {
