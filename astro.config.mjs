@@ -15,7 +15,7 @@ const extraHosts = (process.env.ALLOWED_HOSTS ?? '')
 
 export default defineConfig({
   output: 'server',
-  adapter: node({ mode: 'standalone' }),
+  adapter: node({ mode: 'middleware' }),
   integrations: [react(), mdx(), bootAtStart()],
   security: {
     checkOrigin: true,

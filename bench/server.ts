@@ -45,6 +45,7 @@ export async function startBuiltServer(port: number, env: Record<string, string>
       }
     },
     async stop() {
+      if (child.exitCode !== null || child.signalCode !== null) return;
       child.kill('SIGTERM');
       await new Promise((r) => child.once('exit', r));
     },

@@ -1,11 +1,12 @@
-// Makes the built server validate its settings, apply migrations and seed the demo *before* it listens,
-// so a bad setting stops `node dist/server/entry.mjs` with a clear message instead of failing on the first
-// request. Astro 5 loads middleware lazily; this imports it up front and calls the boot function it registers
-// (src/middleware.ts sets globalThis.__wakebookBoot). See docs/decisions/003-migrations-at-start.md.
-import { readFile, writeFile } from 'node:fs/promises';
+// Gives the built server its own entry (integrations/server-entry.mjs): it validates settings, applies
+// migrations and seeds the demo *before* it listens, so a bad setting stops `node dist/server/entry.mjs` with a
+// clear message instead of failing on the first request, and it serves the built assets from memory.
+// Astro's own entry (the @astrojs/node handler in middleware mode) is kept beside it as app.mjs.
+// See docs/decisions/003-migrations-at-start.md and 008-reliability-security-speed.md.
+import { copyFile, readFile, rename, writeFile } from 'node:fs/promises';
 import { fileURLToPath } from 'node:url';
 
-const MARK = '/* wakebook:boot-at-start */';
+const MARK = '// The built server\'s entry';
 
 export default function bootAtStart() {
   let serverDir;
@@ -16,25 +17,14 @@ export default function bootAtStart() {
         serverDir = config.build.server;
       },
       'astro:build:done': async () => {
-        const entry = fileURLToPath(new URL('entry.mjs', serverDir));
-        const source = await readFile(entry, 'utf8');
-        if (source.includes(MARK)) return;
-        const prelude = `${MARK}
-try {
-  await import('./_astro-internal_middleware.mjs');
-  await globalThis.__wakebookBoot?.();
-} catch (error) {
-  console.error(error instanceof Error ? error.message : error);
-  process.exit(1);
-}
-`;
-        // Imports stay first; the prelude runs before the adapter starts listening.
-        const at = source.indexOf('\nconst ');
+        const at = (name) => fileURLToPath(new URL(name, serverDir));
+        if ((await readFile(at('entry.mjs'), 'utf8')).startsWith(MARK)) return;
+        await rename(at('entry.mjs'), at('app.mjs'));
         // React and other libraries pick their development or production build from NODE_ENV when first
         // imported; the built server is production unless told otherwise, so set it before any other import.
-        const envModule = fileURLToPath(new URL('wakebook-production-env.mjs', serverDir));
-        await writeFile(envModule, "process.env.NODE_ENV ??= 'production';\n");
-        await writeFile(entry, `import './wakebook-production-env.mjs';\n` + source.slice(0, at + 1) + prelude + source.slice(at + 1));
+        await writeFile(at('wakebook-production-env.mjs'), "process.env.NODE_ENV ??= 'production';\n");
+        await copyFile(new URL('./static-assets.mjs', import.meta.url), at('wakebook-static-assets.mjs'));
+        await copyFile(new URL('./server-entry.mjs', import.meta.url), at('entry.mjs'));
       },
     },
   };

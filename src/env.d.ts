@@ -4,5 +4,9 @@ declare namespace App {
   interface Locals {
     user: import('lucia').User | null;
     session: import('lucia').Session | null;
+    /** Set by markCacheable(): the answer depends only on the person, the URL and the stored data. */
+    cacheable?: boolean;
+    /** The session the server's front door already validated for this request, if it did. */
+    sessionCheck?: import('./lib/server/auth/lucia').SessionCheck;
   }
 }

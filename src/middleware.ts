@@ -1,20 +1,29 @@
-import { defineMiddleware, sequence } from 'astro:middleware';
+import { defineMiddleware } from 'astro:middleware';
 import { readSession } from './lib/server/auth/lucia';
 import { ensureBooted } from './lib/server/boot';
+import { dataVersion } from './lib/server/db/client';
+import { frontDoor } from './lib/server/front-door';
+import { cacheKey, cached, store } from './lib/server/response-cache';
 import { withSecurityHeaders } from './lib/server/security-headers';
 
-/** Fills locals from the session cookie. Authorisation is decided in each page and route. */
-const session = defineMiddleware(async (context, next) => {
+/**
+ * Fills locals from the session cookie, answers a repeated signed-in read from the response cache, and adds
+ * the security headers. Authorisation is decided in each page and route.
+ */
+export const onRequest = defineMiddleware(async (context, next) => {
   await ensureBooted();
-  const { user, session } = await readSession(context.cookies);
+  const { user, session } = await readSession(context.cookies, context.locals.sessionCheck);
   context.locals.user = user;
   context.locals.session = session;
-  return next();
+  const key = cacheKey(context.request.method, context.url, user?.id);
+  if (key) {
+    const hit = cached(key);
+    if (hit) return hit;
+  }
+  const version = key ? dataVersion() : '';
+  const response = await withSecurityHeaders(await next());
+  return key && context.locals.cacheable ? store(key, version, response) : response;
 });
 
-const headers = defineMiddleware(async (_context, next) => withSecurityHeaders(await next()));
-
-export const onRequest = sequence(headers, session);
-
-// The built entry calls this before listening (integrations/boot-at-start.mjs).
-(globalThis as { __wakebookBoot?: () => Promise<void> }).__wakebookBoot = ensureBooted;
+// The built entry (integrations/server-entry.mjs) boots before listening and sends requests through the front door.
+Object.assign(globalThis, { __wakebookBoot: ensureBooted, __wakebookFrontDoor: frontDoor });

@@ -72,7 +72,9 @@ describe('signing in and out', () => {
   it('signs in with the keyboard alone', async () => {
     const page = await browser.newPage();
     await page.goto(`${baseUrl()}/sign-in`);
-    // The e-mail field has focus on arrival; Tab moves to the password; Enter submits.
+    // The e-mail field has focus on arrival (the browser applies autofocus at its next rendering step, which
+    // can come just after the load event); Tab moves to the password; Enter submits.
+    await page.waitForFunction(() => document.activeElement?.id === 'email', undefined, { timeout: 5000 });
     await page.keyboard.type('advisor@wakebook.test');
     await page.keyboard.press('Tab');
     await page.keyboard.type('wakebook-demo');

@@ -20,7 +20,10 @@ describe('onboarding, seasons and handover', () => {
     const before = await route.getByText(/of 5 done/).textContent();
     await page.locator('astro-island:not([ssr]) input[type="checkbox"]').first().waitFor({ state: 'attached' });
     const box = route.getByRole('checkbox', { name: /Done: / }).nth(1);
+    // The tick shows at once and is saved in the background: wait for the save before reloading.
+    const saved = page.waitForResponse((r) => r.url().endsWith('/api/onboarding/cooling/progress') && r.request().method() === 'POST');
     await box.check();
+    expect((await saved).status()).toBe(200);
     await expect.poll(() => route.getByText(/of 5 done/).textContent()).not.toBe(before);
     await page.reload();
     expect(await route.getByRole('checkbox', { name: /Done: / }).nth(1).isChecked()).toBe(true);

@@ -221,7 +221,7 @@ describe('accessibility of the people, mail and admin pages', () => {
     it(`${path} as ${as ?? 'nobody'} has no serious or critical axe violations`, async () => {
       const page = await pageFor(as);
       await page.goto(`${baseUrl()}${path}`, { waitUntil: 'networkidle' });
-      await page.addScriptTag({ content: AXE });
+      await page.evaluate(AXE);
       const violations = (await page.evaluate(async () => {
         // @ts-expect-error injected above
         const r = await window.axe.run(document, { resultTypes: ['violations'] });

@@ -30,10 +30,20 @@ export interface CallResult {
 
 type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
 
+const routeIds = new WeakMap<object, number>();
+let routeCount = 0;
+
+function defaultPath(route: object, params: Record<string, string> = {}): string {
+  if (!routeIds.has(route)) routeIds.set(route, ++routeCount);
+  const parts = Object.entries(params).map(([k, v]) => `${k}=${encodeURIComponent(v)}`);
+  return `/api/test/route-${routeIds.get(route)}/${parts.join('/')}`;
+}
+
 export async function call(route: Partial<Record<Method, APIRoute>>, method: Method, options: CallOptions = {}): Promise<CallResult> {
   const handler = route[method];
   if (!handler) throw new Error(`route has no ${method} handler`);
-  const url = new URL(options.path ?? '/api/test', 'http://localhost:4321');
+  // Like the server, where the URL names the route and its parameters (the response cache keys on it).
+  const url = new URL(options.path ?? defaultPath(route, options.params), 'http://localhost:4321');
   for (const [k, v] of Object.entries(options.query ?? {})) url.searchParams.set(k, v);
   const headers = new Headers(options.headers);
   let body: BodyInit | undefined = options.rawBody;

@@ -1,5 +1,6 @@
-import { and, asc, eq, inArray, isNull } from 'drizzle-orm';
-import { db } from './db/client';
+import { and, asc, eq, inArray, isNull, sql } from 'drizzle-orm';
+import { db, prepared } from './db/client';
+import { memoUntilWrite } from './memo';
 import { calculations, onboardingItems, onboardingProgress, records, seasonMemberships, seasons, users } from './db/schema';
 import { invalidInput, notFound } from './http';
 import { newId } from './ids';
@@ -68,34 +69,42 @@ async function resolve(refs: { kind: ItemKind; ref: string }[]): Promise<Map<str
   return out;
 }
 
+/** A subsystem's route with each item resolved, shared by everyone until the next write. */
+function routeItems(slug: string): Promise<Omit<RouteItem, 'done'>[]> {
+  return memoUntilWrite(`onboarding.route:${slug}`, async () => {
+    const rows = db().select().from(onboardingItems).where(eq(onboardingItems.subsystemSlug, slug)).orderBy(asc(onboardingItems.position)).all();
+    const resolved = await resolve(rows.map((r) => ({ kind: r.kind, ref: r.ref })));
+    return rows.map((r) => {
+      const x = resolved.get(`${r.kind}:${r.ref}`);
+      return {
+        id: r.id,
+        kind: r.kind,
+        ref: r.ref,
+        title: x?.title ?? 'No longer exists',
+        detail: x?.detail ?? `${r.kind} ${r.ref}`,
+        url: x?.url ?? null,
+        exists: !!x,
+        seasonId: x?.seasonId ?? null,
+      };
+    });
+  });
+}
+
+/** The ids of every onboarding item a person has ticked. */
+function ticked(userId: string): Set<string> {
+  return memoUntilWrite(`onboarding.ticked:${userId}`, () =>
+    new Set(
+      prepared('onboarding.ticked', (d) => d.select({ itemId: onboardingProgress.itemId }).from(onboardingProgress).where(eq(onboardingProgress.userId, sql.placeholder('user'))).prepare())
+        .all({ user: userId })
+        .map((p) => p.itemId),
+    ),
+  );
+}
+
 export async function getRoute(slug: string, userId: string | null): Promise<RouteView> {
   if (!findSubsystem(slug)) throw notFound('That subsystem');
-  const rows = db().select().from(onboardingItems).where(eq(onboardingItems.subsystemSlug, slug)).orderBy(asc(onboardingItems.position)).all();
-  const resolved = await resolve(rows.map((r) => ({ kind: r.kind, ref: r.ref })));
-  const done = userId
-    ? new Set(
-        db()
-          .select({ itemId: onboardingProgress.itemId })
-          .from(onboardingProgress)
-          .where(and(eq(onboardingProgress.userId, userId), inArray(onboardingProgress.itemId, rows.map((r) => r.id).concat(['']))))
-          .all()
-          .map((p) => p.itemId),
-      )
-    : new Set<string>();
-  const items: RouteItem[] = rows.map((r) => {
-    const x = resolved.get(`${r.kind}:${r.ref}`);
-    return {
-      id: r.id,
-      kind: r.kind,
-      ref: r.ref,
-      title: x?.title ?? 'No longer exists',
-      detail: x?.detail ?? `${r.kind} ${r.ref}`,
-      url: x?.url ?? null,
-      exists: !!x,
-      seasonId: x?.seasonId ?? null,
-      done: done.has(r.id),
-    };
-  });
+  const done = userId ? ticked(userId) : new Set<string>();
+  const items: RouteItem[] = (await routeItems(slug)).map((i) => ({ ...i, done: done.has(i.id) }));
   const live = items.filter((i) => i.exists);
   return { subsystem: slug, items, progress: { done: live.filter((i) => i.done).length, total: live.length } };
 }

@@ -6,11 +6,17 @@ import { listGuides } from './guides';
 import { getRoute } from './onboarding';
 import { scoreReadiness, type Readiness } from '../readiness';
 import { notFound } from './http';
+import { memoUntilWrite } from './memo';
 
 /** Gathers the handover facts of every subsystem for a season and scores them. */
 export async function readinessFor(seasonId?: string, now = new Date()) {
   const season = seasonId ? findSeason(seasonId) : currentSeason();
   if (!season) throw notFound('That season');
+  // Scores change with the data and, through guide review dates, with the day.
+  return memoUntilWrite(`readiness:${season.id}:${now.toISOString().slice(0, 10)}`, () => score(season, now));
+}
+
+async function score(season: NonNullable<ReturnType<typeof findSeason>>, now: Date) {
   const guides = await listGuides();
   const out: ({ slug: string; name: string } & Readiness)[] = [];
   for (const s of listSubsystems()) {

@@ -1,5 +1,5 @@
 import { asc, desc, eq, sql } from 'drizzle-orm';
-import { db, prepared } from './db/client';
+import { prepared } from './db/client';
 import { seasons, subsystems } from './db/schema';
 
 export interface SeasonView {
@@ -18,7 +18,7 @@ function toView(s: typeof seasons.$inferSelect): SeasonView {
 
 /** Newest season first. */
 export function listSeasons(): SeasonView[] {
-  return db().select().from(seasons).orderBy(desc(seasons.startsOn)).all().map(toView);
+  return prepared('listSeasons', (d) => d.select().from(seasons).orderBy(desc(seasons.startsOn)).prepare()).all().map(toView);
 }
 
 export function currentSeason(): SeasonView | null {
@@ -38,11 +38,9 @@ export interface SubsystemView {
 }
 
 export function listSubsystems(): SubsystemView[] {
-  return db()
-    .select({ slug: subsystems.slug, name: subsystems.name, summary: subsystems.summary })
-    .from(subsystems)
-    .orderBy(asc(subsystems.position), asc(subsystems.name))
-    .all();
+  return prepared('listSubsystems', (d) =>
+    d.select({ slug: subsystems.slug, name: subsystems.name, summary: subsystems.summary }).from(subsystems).orderBy(asc(subsystems.position), asc(subsystems.name)).prepare(),
+  ).all();
 }
 
 export function findSubsystem(slug: string): SubsystemView | null {

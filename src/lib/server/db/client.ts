@@ -9,6 +9,8 @@ import { settings } from '../config';
 export type Db = BetterSQLite3Database<typeof schema> & { $client: Database.Database };
 
 let instance: Db | undefined;
+/** Counts databases opened by this process, so a version read from one is never mistaken for another's. */
+let epoch = 0;
 
 /** Where the committed migrations live: the app is run from the project (or release) folder. */
 export function migrationsFolder(): string {
@@ -31,7 +33,10 @@ export function openDatabase(file: string): Db {
 
 /** The one database of this process, opened on first use from WAKEBOOK_DB. */
 export function db(): Db {
-  instance ??= openDatabase(settings().WAKEBOOK_DB);
+  if (!instance) {
+    instance = openDatabase(settings().WAKEBOOK_DB);
+    epoch++;
+  }
   return instance;
 }
 
@@ -52,4 +57,16 @@ export function prepared<T>(key: string, build: (d: Db) => T): T {
   if (!cache) preparedCache.set(d, (cache = new Map()));
   if (!cache.has(key)) cache.set(key, build(d));
   return cache.get(key) as T;
+}
+
+/**
+ * Changes whenever anything is written to the database: by this connection (`total_changes()`, which counts
+ * rows changed by triggers too) or by another process (`PRAGMA data_version`). Costs two tiny statements.
+ */
+export function dataVersion(): string {
+  const stmts = prepared('db.version', (d) => ({
+    changes: d.$client.prepare('select total_changes()').pluck(),
+    other: d.$client.prepare('pragma data_version').pluck(),
+  }));
+  return `${epoch}.${stmts.other.get()}.${stmts.changes.get()}`;
 }

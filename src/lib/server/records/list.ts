@@ -1,5 +1,5 @@
-import { and, desc, eq, lt, or, isNull, type SQL } from 'drizzle-orm';
-import { db } from '../db/client';
+import { and, desc, eq, lt, or, isNull, sql, type SQL } from 'drizzle-orm';
+import { prepared } from '../db/client';
 import { records, seasons, subsystems, users } from '../db/schema';
 
 export interface RecordListQuery {
@@ -35,36 +35,59 @@ function decodeCursor(cursor: string): { at: number; id: string } | null {
   return m ? { at: Number(m[1]), id: m[2] } : null;
 }
 
+const p = (name: string) => sql.placeholder(name);
+
+/**
+ * One prepared statement per combination of filters (at most 32), with the values as parameters: building and
+ * preparing the SQL costs more than running it.
+ */
+function listQuery(shape: { kind: boolean; subsystem: boolean; season: boolean; status: boolean; cursor: boolean }) {
+  const key = `records.list:${Object.values(shape).map(Number).join('')}`;
+  return prepared(key, (d) => {
+    const where: (SQL | undefined)[] = [isNull(records.deletedAt)];
+    if (shape.kind) where.push(eq(records.kind, p('kind')));
+    if (shape.subsystem) where.push(eq(records.subsystemSlug, p('subsystem')));
+    if (shape.season) where.push(eq(records.seasonId, p('season')));
+    if (shape.status) where.push(eq(records.status, p('status')));
+    if (shape.cursor) where.push(or(lt(records.updatedAt, p('at')), and(eq(records.updatedAt, p('at')), lt(records.id, p('id')))));
+    return d
+      .select({
+        id: records.id,
+        kind: records.kind,
+        title: records.title,
+        status: records.status,
+        subsystem: records.subsystemSlug,
+        subsystemName: subsystems.name,
+        seasonId: records.seasonId,
+        season: seasons.name,
+        author: users.name,
+        updatedAt: records.updatedAt,
+        version: records.version,
+      })
+      .from(records)
+      .innerJoin(subsystems, eq(subsystems.slug, records.subsystemSlug))
+      .innerJoin(seasons, eq(seasons.id, records.seasonId))
+      .leftJoin(users, eq(users.id, records.authorId))
+      .where(and(...where))
+      .orderBy(desc(records.updatedAt), desc(records.id))
+      .limit(p('limit'))
+      .prepare();
+  });
+}
+
 export function listRecords(q: RecordListQuery): { records: RecordListItem[]; nextCursor: string | null } {
-  const where: (SQL | undefined)[] = [isNull(records.deletedAt)];
-  if (q.kind) where.push(eq(records.kind, q.kind));
-  if (q.subsystem) where.push(eq(records.subsystemSlug, q.subsystem));
-  if (q.season) where.push(eq(records.seasonId, q.season));
-  if (q.status) where.push(eq(records.status, q.status as never));
   const c = q.cursor ? decodeCursor(q.cursor) : null;
-  if (c) where.push(or(lt(records.updatedAt, new Date(c.at)), and(eq(records.updatedAt, new Date(c.at)), lt(records.id, c.id))));
-  const rows = db()
-    .select({
-      id: records.id,
-      kind: records.kind,
-      title: records.title,
-      status: records.status,
-      subsystem: records.subsystemSlug,
-      subsystemName: subsystems.name,
-      seasonId: records.seasonId,
-      season: seasons.name,
-      author: users.name,
-      updatedAt: records.updatedAt,
-      version: records.version,
-    })
-    .from(records)
-    .innerJoin(subsystems, eq(subsystems.slug, records.subsystemSlug))
-    .innerJoin(seasons, eq(seasons.id, records.seasonId))
-    .leftJoin(users, eq(users.id, records.authorId))
-    .where(and(...where))
-    .orderBy(desc(records.updatedAt), desc(records.id))
-    .limit(q.limit + 1)
-    .all();
+  const shape = { kind: !!q.kind, subsystem: !!q.subsystem, season: !!q.season, status: !!q.status, cursor: !!c };
+  // Placeholders reach SQLite as given: timestamps are stored as milliseconds, like the cursor carries them.
+  const rows = listQuery(shape).all({
+    kind: q.kind,
+    subsystem: q.subsystem,
+    season: q.season,
+    status: q.status,
+    at: c?.at,
+    id: c?.id,
+    limit: q.limit + 1,
+  });
   const page = rows.slice(0, q.limit).map((r) => ({ ...r, updatedAt: r.updatedAt.toISOString() }));
   return { records: page, nextCursor: rows.length > q.limit ? encodeCursor(page[page.length - 1]) : null };
 }

@@ -182,14 +182,17 @@ export function listComments(recordId: string) {
 
 /** The newest questions and answers across all records, for the home page. */
 export function recentComments(limit: number) {
-  return db()
-    .select({ id: comments.id, body: comments.body, createdAt: comments.createdAt, author: users.name, recordId: records.id, recordTitle: records.title })
-    .from(comments)
-    .innerJoin(records, eq(records.id, comments.recordId))
-    .leftJoin(users, eq(users.id, comments.authorId))
-    .where(isNull(records.deletedAt))
-    .orderBy(desc(comments.createdAt))
-    .limit(limit)
-    .all()
+  return prepared('record.recentComments', (d) =>
+    d
+      .select({ id: comments.id, body: comments.body, createdAt: comments.createdAt, author: users.name, recordId: records.id, recordTitle: records.title })
+      .from(comments)
+      .innerJoin(records, eq(records.id, comments.recordId))
+      .leftJoin(users, eq(users.id, comments.authorId))
+      .where(isNull(records.deletedAt))
+      .orderBy(desc(comments.createdAt))
+      .limit(sql.placeholder('limit'))
+      .prepare(),
+  )
+    .all({ limit })
     .map((c) => ({ ...c, createdAt: c.createdAt.toISOString(), author: c.author ?? 'former member' }));
 }

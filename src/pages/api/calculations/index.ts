@@ -2,8 +2,10 @@ import type { APIRoute } from 'astro';
 import { handle, json, parseQuery, readJson, requirePermission } from '~/lib/server/http';
 import { calculationInputSchema, calculationListQuerySchema } from '~/lib/schemas/calculations';
 import { createCalculation, listCalculations } from '~/lib/server/calculations';
+import { markCacheable } from '~/lib/server/response-cache';
 
 export const GET: APIRoute = handle(({ locals, url }) => {
+  markCacheable(locals);
   requirePermission(locals, 'read');
   const q = parseQuery(url, calculationListQuerySchema);
   return json(listCalculations({ subsystem: q.subsystem || undefined, season: q.season || undefined, kind: q.kind || undefined, limit: q.limit, cursor: q.cursor }));

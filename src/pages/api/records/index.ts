@@ -3,8 +3,10 @@ import { handle, json, parseQuery, readJson, requirePermission } from '~/lib/ser
 import { recordCreateSchema, recordListQuerySchema } from '~/lib/schemas/records';
 import { listRecords } from '~/lib/server/records/list';
 import { createRecord } from '~/lib/server/records/write';
+import { markCacheable } from '~/lib/server/response-cache';
 
 export const GET: APIRoute = handle(({ locals, url }) => {
+  markCacheable(locals);
   requirePermission(locals, 'read');
   const q = parseQuery(url, recordListQuerySchema);
   return json(

@@ -3,8 +3,10 @@ import { handle, json, readJson, requirePermission } from '~/lib/server/http';
 import { listSeasons } from '~/lib/server/seasons';
 import { createSeason } from '~/lib/server/season-admin';
 import { seasonCreateSchema } from '~/lib/schemas/seasons';
+import { markCacheable } from '~/lib/server/response-cache';
 
 export const GET: APIRoute = handle(({ locals }) => {
+  markCacheable(locals);
   requirePermission(locals, 'read');
   return json({ seasons: listSeasons() });
 });

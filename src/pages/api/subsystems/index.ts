@@ -5,8 +5,10 @@ import { subsystemCreateSchema } from '~/lib/schemas/seasons';
 import { db } from '~/lib/server/db/client';
 import { subsystems } from '~/lib/server/db/schema';
 import { recordAudit } from '~/lib/server/audit';
+import { markCacheable } from '~/lib/server/response-cache';
 
 export const GET: APIRoute = handle(({ locals }) => {
+  markCacheable(locals);
   requirePermission(locals, 'read');
   return json({ subsystems: listSubsystems() });
 });

@@ -3,8 +3,10 @@ import { handle, json, notFound, readJson, requirePermission } from '~/lib/serve
 import { commentInputSchema } from '~/lib/schemas/records';
 import { getRecordView, listComments } from '~/lib/server/records/view';
 import { addComment } from '~/lib/server/records/write';
+import { markCacheable } from '~/lib/server/response-cache';
 
 export const GET: APIRoute = handle(({ locals, params }) => {
+  markCacheable(locals);
   requirePermission(locals, 'read');
   const id = params.id ?? '';
   if (!getRecordView(id)) throw notFound('That record');

@@ -3,8 +3,10 @@ import { handle, json, notFound, readJson, requirePermission } from '~/lib/serve
 import { recordPatchSchema } from '~/lib/schemas/records';
 import { getRecordView } from '~/lib/server/records/view';
 import { updateRecord } from '~/lib/server/records/write';
+import { markCacheable } from '~/lib/server/response-cache';
 
 export const GET: APIRoute = handle(({ locals, params }) => {
+  markCacheable(locals);
   requirePermission(locals, 'read');
   const record = getRecordView(params.id ?? '');
   if (!record) throw notFound('That record');
