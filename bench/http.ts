@@ -27,6 +27,14 @@ export default async function benchHttp(opts: { seconds?: number } = {}): Promis
     try {
       const ceiling = await runLoad({ name: 'http.ceiling.plain-node', url: 'http://127.0.0.1:4621/', seconds });
       out.push(report(ceiling, ceiling, { bytes: body.length }));
+      // Calibration: the same plain server spending 2 ms of CPU per answer (about a page render here).
+      const busy = fork(new URL('./plain-server.mjs', import.meta.url).pathname, ['4622', bodyFile, '2'], { stdio: ['ignore', 'ignore', 'inherit', 'ipc'] });
+      await new Promise<void>((r) => busy.once('message', () => r()));
+      try {
+        out.push(report(await runLoad({ name: 'http.calibration.plain-node-2ms-work', url: 'http://127.0.0.1:4622/', seconds }), ceiling));
+      } finally {
+        busy.kill();
+      }
       // With the response cache (the default): repeated reads are answered before Astro renders anything.
       out.push(...(await readsAndMixed(server.base, cookie, ceiling, seconds, '')));
       out.push({ name: 'server.cold-start', n: 1, p50_ms: round(server.startMs), p99_ms: round(server.startMs) });
