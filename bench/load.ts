@@ -23,6 +23,8 @@ export interface LoadOptions {
   seconds?: number;
   /** A wrk Lua script for mixed or non-GET loads. */
   wrkScript?: string;
+  /** Seconds of the same load, not measured, first: loads modules and warms the JIT (cold start is measured apart). */
+  warmup?: number;
 }
 
 const WRK = ['/usr/bin/wrk', '/usr/local/bin/wrk'].find((p) => existsSync(p));
@@ -39,12 +41,17 @@ function toMs(value: string, unit: string): number {
 export async function runLoad(o: LoadOptions): Promise<LoadResult> {
   const connections = o.connections ?? 50;
   const seconds = o.seconds ?? 8;
+  const warmup = o.warmup ?? 2;
   if (WRK) {
-    const args = ['-t2', `-c${connections}`, `-d${seconds}s`, '--latency', '--timeout', '5s'];
-    for (const [k, v] of Object.entries(o.headers ?? {})) args.push('-H', `${k}: ${v}`);
-    if (o.wrkScript) args.push('-s', o.wrkScript);
-    args.push(o.url);
-    const out = spawnSync(WRK, args, { encoding: 'utf8', timeout: (seconds + 30) * 1000 });
+    const args = (d: number) => {
+      const a = ['-t2', `-c${connections}`, `-d${d}s`, '--latency', '--timeout', '5s'];
+      for (const [k, v] of Object.entries(o.headers ?? {})) a.push('-H', `${k}: ${v}`);
+      if (o.wrkScript) a.push('-s', o.wrkScript);
+      a.push(o.url);
+      return a;
+    };
+    if (warmup > 0) spawnSync(WRK, args(warmup), { encoding: 'utf8', timeout: (warmup + 30) * 1000 });
+    const out = spawnSync(WRK, args(seconds), { encoding: 'utf8', timeout: (seconds + 30) * 1000 });
     const text = out.stdout ?? '';
     const pct = (p: string) => {
       const m = new RegExp(`^\\s*${p}%\\s+([\\d.]+)(us|ms|s|m)\\s*$`, 'm').exec(text);
@@ -58,6 +65,7 @@ export async function runLoad(o: LoadOptions): Promise<LoadResult> {
     return { name: o.name, n, p50_ms: pct('50'), p99_ms: pct('99'), ops_per_s: rps, errors, tool: 'wrk', connections, seconds };
   }
   const { default: autocannon } = await import('autocannon');
+  if (warmup > 0) await autocannon({ url: o.url, connections, duration: warmup, headers: o.headers, workers: 2 } as never);
   const r = await autocannon({ url: o.url, connections, duration: seconds, headers: o.headers, workers: 2 } as never);
   return {
     name: o.name,

@@ -1,3 +1,12 @@
+// toLocaleString() with options builds a new Intl.NumberFormat on every call; a chart's data table formats
+// hundreds of numbers per page, so keep one formatter per number of decimals.
+const formatters = new Map<number, Intl.NumberFormat>();
+function formatter(digits: number): Intl.NumberFormat {
+  let f = formatters.get(digits);
+  if (!f) formatters.set(digits, (f = new Intl.NumberFormat('en-GB', { minimumFractionDigits: digits, maximumFractionDigits: digits })));
+  return f;
+}
+
 /** Numbers for people: fixed decimals, thin grouping, and very large or small values in exponent form. */
 export function formatNumber(value: unknown, digits = 3): string {
   if (value === null || value === undefined || value === '') return '–';
@@ -5,7 +14,7 @@ export function formatNumber(value: unknown, digits = 3): string {
   if (!Number.isFinite(value)) return value > 0 ? '∞' : value < 0 ? '−∞' : '–';
   const abs = Math.abs(value);
   if (abs !== 0 && (abs >= 1e7 || abs < 10 ** -Math.max(digits, 1))) return value.toExponential(Math.max(2, Math.min(digits, 6))).replace('-', '−');
-  return value.toLocaleString('en-GB', { minimumFractionDigits: digits, maximumFractionDigits: digits }).replace('-', '−');
+  return formatter(digits).format(value).replace('-', '−');
 }
 
 export function formatWithUnit(value: unknown, digits: number, unit: string): string {

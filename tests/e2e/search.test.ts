@@ -101,7 +101,8 @@ describe('the results page without JavaScript', () => {
   it('searches with the header form, shows marked snippets, filters by chip and opens a result', async () => {
     const page = await memberPage(false);
     await page.goto(`${baseUrl()}/`);
-    const box = page.getByRole('combobox', { name: 'Search everything' });
+    // Without JavaScript the header holds a plain search field (no list of suggestions, so no combobox).
+    const box = page.getByRole('searchbox', { name: 'Search everything' });
     await box.fill('ventilation');
     await Promise.all([page.waitForURL(/\/search\?q=ventilation/), box.press('Enter')]);
     await page.getByRole('heading', { level: 1, name: 'Search' }).waitFor();

@@ -5,8 +5,13 @@
 const TOKEN = /[\p{L}\p{N}\p{Co}]+/gu;
 const MARKS = /\p{M}+/gu;
 
+// eslint-disable-next-line no-control-regex
+const ASCII = /^[\u0000-\u007f]*$/;
+
 /** Lower-cased, diacritics removed ("Naïve Café" → "naive cafe"). */
 export function foldCase(text: string): string {
+  // Plain ASCII has no marks and nothing to compose: lower-casing is all (snippets fold every word they show).
+  if (ASCII.test(text)) return text.toLowerCase();
   return text.normalize('NFD').replace(MARKS, '').toLowerCase().normalize('NFC');
 }
 
