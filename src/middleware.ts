@@ -1,7 +1,7 @@
 import { defineMiddleware } from 'astro:middleware';
 import { readSession } from './lib/server/auth/lucia';
 import { ensureBooted } from './lib/server/boot';
-import { dataVersion } from './lib/server/db/client';
+import { currentVersions, dependencies, readingInto } from './lib/server/db/changes';
 import { frontDoor } from './lib/server/front-door';
 import { cacheKey, cached, store } from './lib/server/response-cache';
 import { withSecurityHeaders } from './lib/server/security-headers';
@@ -20,9 +20,14 @@ export const onRequest = defineMiddleware(async (context, next) => {
     const hit = cached(key);
     if (hit) return hit;
   }
-  const version = key ? dataVersion() : '';
-  const response = await withSecurityHeaders(await next());
-  return key && context.locals.cacheable ? store(key, version, response) : response;
+  if (!key) return withSecurityHeaders(await next());
+  // Astro renders a page while its body is read, so the body is read inside the scope that records the tables.
+  const start = currentVersions();
+  const read = new Set<string>();
+  const response = await readingInto(read, async () => withSecurityHeaders(await next()));
+  // Every page shows the signed-in person (name, role): a change to people is a change to the page.
+  read.add('users');
+  return context.locals.cacheable ? store(key, dependencies(start, read), response) : response;
 });
 
 // The built entry (integrations/server-entry.mjs) boots before listening and sends requests through the front door.

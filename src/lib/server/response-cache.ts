@@ -1,12 +1,14 @@
-// Keeps the rendered answer to a signed-in read (a page or a JSON read) until anything is written to the
-// database, so a second view of the same page by the same person costs a lookup instead of a render.
+// Keeps the rendered answer to a signed-in read (a page or a JSON read) until a table it read is written
+// (src/lib/server/db/changes.ts), so a second view of the same page by the same person costs a lookup instead of
+// a render.
 // Pages and routes opt in with markCacheable(); the key is the person and the URL, so nobody ever sees a
 // page rendered for someone else. See docs/decisions/008-reliability-security-speed.md.
-import { dataVersion } from './db/client';
+import { stillValid, type Dependencies } from './db/changes';
 import { settings } from './config';
 
 interface Entry {
-  version: string;
+  /** The tables the render read, with their versions when it started. */
+  deps: Dependencies;
   expires: number;
   status: number;
   headers: [string, string][];
@@ -40,7 +42,7 @@ export function cacheKey(method: string, url: URL, userId: string | undefined): 
 /** The stored answer for key when nothing has been written since it was rendered. */
 export function cachedEntry(key: string, now = Date.now()): Readonly<Entry> | null {
   const entry = entries.get(key);
-  if (entry && entry.version === dataVersion() && entry.expires > now) {
+  if (entry && entry.expires > now && stillValid(entry.deps)) {
     // Most recently used last, so eviction drops the oldest first.
     entries.delete(key);
     entries.set(key, entry);
@@ -59,10 +61,10 @@ export function cached(key: string, now = Date.now()): Response | null {
 }
 
 /**
- * Stores a 200 answer rendered while the database was at `version` and returns a response with the same
- * body. `version` is read before rendering: if a write lands during the render the entry is stale at once.
+ * Stores a 200 answer with what it depended on and returns a response with the same body. The versions in
+ * `deps` are those from before the render: if a write lands during the render the entry is stale at once.
  */
-export async function store(key: string, version: string, response: Response, now = Date.now()): Promise<Response> {
+export async function store(key: string, deps: Dependencies, response: Response, now = Date.now()): Promise<Response> {
   const body = new Uint8Array(await response.arrayBuffer());
   // Cookies belong to the request that set them; Astro's own markers are removed from every answer anyway.
   const headers = [...response.headers].filter(([name]) => name !== 'set-cookie' && !name.startsWith('x-astro-'));
@@ -70,7 +72,7 @@ export async function store(key: string, version: string, response: Response, no
   if (response.status !== 200 || body.byteLength > capacity() / 8) return out;
   drop(key);
   const raw = [...headers.flat(), 'content-length', String(body.byteLength)];
-  entries.set(key, { version, expires: now + MAX_AGE_MS, status: response.status, headers, raw, body });
+  entries.set(key, { deps, expires: now + MAX_AGE_MS, status: response.status, headers, raw, body });
   bytes += body.byteLength;
   stats.stores++;
   for (const [oldest] of entries) {

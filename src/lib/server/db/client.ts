@@ -5,12 +5,11 @@ import { mkdirSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import * as schema from './schema';
 import { settings } from '../config';
+import { instrumentConnection } from './changes';
 
 export type Db = BetterSQLite3Database<typeof schema> & { $client: Database.Database };
 
 let instance: Db | undefined;
-/** Counts databases opened by this process, so a version read from one is never mistaken for another's. */
-let epoch = 0;
 
 /** Where the committed migrations live: the app is run from the project (or release) folder. */
 export function migrationsFolder(): string {
@@ -35,7 +34,8 @@ export function openDatabase(file: string): Db {
 export function db(): Db {
   if (!instance) {
     instance = openDatabase(settings().WAKEBOOK_DB);
-    epoch++;
+    // After the migrations, so every table is known: the response cache learns what each write touches.
+    instrumentConnection(instance.$client);
   }
   return instance;
 }
@@ -57,16 +57,4 @@ export function prepared<T>(key: string, build: (d: Db) => T): T {
   if (!cache) preparedCache.set(d, (cache = new Map()));
   if (!cache.has(key)) cache.set(key, build(d));
   return cache.get(key) as T;
-}
-
-/**
- * Changes whenever anything is written to the database: by this connection (`total_changes()`, which counts
- * rows changed by triggers too) or by another process (`PRAGMA data_version`). Costs two tiny statements.
- */
-export function dataVersion(): string {
-  const stmts = prepared('db.version', (d) => ({
-    changes: d.$client.prepare('select total_changes()').pluck(),
-    other: d.$client.prepare('pragma data_version').pluck(),
-  }));
-  return `${epoch}.${stmts.other.get()}.${stmts.changes.get()}`;
 }
