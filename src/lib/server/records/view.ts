@@ -166,6 +166,26 @@ export function listRevisions(recordId: string) {
     .map((r) => ({ ...r, createdAt: r.createdAt.toISOString(), editor: r.editor ?? 'former member' }));
 }
 
+/** Whether a record exists (and is not deleted), without loading it. */
+export function recordExists(id: string): boolean {
+  return !!prepared('record.exists', (d) =>
+    d.select({ id: records.id }).from(records).where(and(eq(records.id, byId), isNull(records.deletedAt))).prepare(),
+  ).get({ id });
+}
+
+/** One comment as listComments() shows it. */
+export function getComment(commentId: string) {
+  const c = prepared('record.comment', (d) =>
+    d
+      .select({ id: comments.id, body: comments.body, parentId: comments.parentId, createdAt: comments.createdAt, authorId: comments.authorId, author: users.name, authorRole: users.role })
+      .from(comments)
+      .leftJoin(users, eq(users.id, comments.authorId))
+      .where(eq(comments.id, byId))
+      .prepare(),
+  ).get({ id: commentId });
+  return c && { ...c, createdAt: c.createdAt.toISOString(), author: c.author ?? 'former member' };
+}
+
 export function listComments(recordId: string) {
   return prepared('record.comments', (d) =>
     d

@@ -8,7 +8,7 @@ import { recordAudit } from '../audit';
 import { currentSeason, findSeason, findSubsystem } from '../seasons';
 import { existingCalculationIds } from '../calculations';
 import { processBody } from './body';
-import { getRecordView, type RecordView } from './view';
+import { getRecordView, recordExists, type RecordView } from './view';
 import { canMove, INITIAL_STATUS, isValidStatus, needsReplacement } from '../../record-rules';
 import { can, type Role } from '../../policy';
 import type { RecordCreateInput, RecordPatchInput } from '../../schemas/records';
@@ -187,7 +187,7 @@ export function reviewRecord(id: string, note: string | undefined, actor: Actor)
 }
 
 export function addComment(recordId: string, input: { body: string; parentId?: string }, actor: Actor) {
-  if (!getRecordView(recordId)) throw notFound('That record');
+  if (!recordExists(recordId)) throw notFound('That record');
   if (input.parentId) {
     const parent = db().select({ id: comments.id }).from(comments).where(and(eq(comments.id, input.parentId), eq(comments.recordId, recordId))).get();
     if (!parent) throw invalidInput([{ path: 'parentId', message: 'That comment is not on this record.' }]);

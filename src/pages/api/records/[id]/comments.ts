@@ -1,7 +1,7 @@
 import type { APIRoute } from 'astro';
 import { handle, json, notFound, readJson, requirePermission } from '~/lib/server/http';
 import { commentInputSchema } from '~/lib/schemas/records';
-import { getRecordView, listComments } from '~/lib/server/records/view';
+import { getComment, listComments, recordExists } from '~/lib/server/records/view';
 import { addComment } from '~/lib/server/records/write';
 import { markCacheable } from '~/lib/server/response-cache';
 
@@ -9,7 +9,7 @@ export const GET: APIRoute = handle(({ locals, params }) => {
   markCacheable(locals);
   requirePermission(locals, 'read');
   const id = params.id ?? '';
-  if (!getRecordView(id)) throw notFound('That record');
+  if (!recordExists(id)) throw notFound('That record');
   return json({ comments: listComments(id) });
 });
 
@@ -17,5 +17,5 @@ export const POST: APIRoute = handle(async ({ locals, params, request }) => {
   const user = requirePermission(locals, 'record:comment');
   const input = await readJson(request, commentInputSchema, 16 * 1024);
   const id = addComment(params.id ?? '', input, user);
-  return json({ comment: listComments(params.id ?? '').find((c) => c.id === id) }, 201);
+  return json({ comment: getComment(id) }, 201);
 });
