@@ -24,6 +24,7 @@ export default function bootAtStart() {
         // imported; the built server is production unless told otherwise, so set it before any other import.
         await writeFile(at('wakebook-production-env.mjs'), "process.env.NODE_ENV ??= 'production';\n");
         await copyFile(new URL('./static-assets.mjs', import.meta.url), at('wakebook-static-assets.mjs'));
+        await copyFile(new URL('./request-queue.mjs', import.meta.url), at('wakebook-request-queue.mjs'));
         await copyFile(new URL('./server-entry.mjs', import.meta.url), at('entry.mjs'));
       },
     },

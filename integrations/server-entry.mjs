@@ -12,6 +12,7 @@ import http from 'node:http';
 import https from 'node:https';
 import { fileURLToPath } from 'node:url';
 import { loadAssets, serveAsset } from './wakebook-static-assets.mjs';
+import { createRequestQueue } from './wakebook-request-queue.mjs';
 
 async function main() {
   const { handler } = await import('./app.mjs');
@@ -34,48 +35,8 @@ async function main() {
       });
     else handler(req, res);
   };
-  // Requests start in the order they arrived, at most IN_FLIGHT at a time, from a queue emptied between turns of
-  // the event loop. Started as soon as they are parsed, a render-heavy load let some requests wait many rounds
-  // behind newer ones (p99 twenty times the median at 50 connections, even for a plain Node server doing 2 ms of
-  // work per answer; see bench/http.ts), and a render that yields (React's server renderer does) went to the back of
-  // the line each time. A request holds its place until its answer is sent, or for SLOW_MS at most, so a slow upload
-  // or download never holds the others up for long.
-  const IN_FLIGHT = 8;
-  const SLOW_MS = 500;
-  const waiting = [];
-  /** Requests started and not yet answered, oldest first, with the time they started. */
-  const running = new Map();
-  let scheduled = false;
-  const pump = () => {
-    if (!scheduled && waiting.length > 0 && running.size < IN_FLIGHT) {
-      scheduled = true;
-      setImmediate(startWaiting);
-    }
-  };
-  const release = (res) => {
-    if (running.delete(res)) pump();
-  };
-  const startWaiting = () => {
-    scheduled = false;
-    while (waiting.length > 0 && running.size < IN_FLIGHT) {
-      const req = waiting.shift();
-      const res = waiting.shift();
-      if (req.destroyed) continue;
-      running.set(res, performance.now());
-      res.once('finish', () => release(res));
-      res.once('close', () => release(res));
-      answer(req, res);
-    }
-    pump();
-  };
-  // Slow answers give up their place (checked a few times a second rather than with a timer per request).
-  setInterval(() => {
-    const old = performance.now() - SLOW_MS;
-    for (const [res, at] of running) {
-      if (at > old) break;
-      release(res);
-    }
-  }, 100).unref();
+  // Requests start in arrival order, a few at a time (integrations/request-queue.mjs explains why).
+  const enqueue = createRequestQueue(answer);
   const listener = (req, res) => {
     try {
       decodeURI(req.url);
@@ -85,8 +46,7 @@ async function main() {
       return;
     }
     if (serveAsset(assets, req, res)) return;
-    waiting.push(req, res);
-    pump();
+    enqueue(req, res);
   };
   const tls = process.env.SERVER_CERT_PATH && process.env.SERVER_KEY_PATH;
   const server = tls
