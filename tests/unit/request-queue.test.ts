@@ -10,7 +10,10 @@ class FakeRes extends EventEmitter {
     this.emit('finish');
   }
 }
-const turn = () => new Promise((r) => setImmediate(r));
+// A few turns of the event loop: the queue starts one request per turn.
+const turn = async () => {
+  for (let i = 0; i < 5; i++) await new Promise((r) => setImmediate(r));
+};
 const recordInto = (started: number[]) => ((_req: unknown, res: unknown) => void started.push((res as FakeRes).id)) as never;
 
 describe('request queue', () => {
