@@ -1,8 +1,9 @@
 // Starts requests in the order they arrived, one per turn of the event loop and at most `inFlight` at a time.
-// Started as soon as they are parsed, a render-heavy load let some requests wait many rounds behind newer ones (p99 twenty times the median at 50 connections, even for a plain Node server doing 2 ms of work per
-// answer; see bench/http.ts), and a render that yields (React's server renderer does) went to the back of the line
-// each time. A request holds its place until its answer is sent, or for `slowMs` at most, so a slow upload or
-// download never holds the others up for long. Used by integrations/server-entry.mjs.
+// Started as soon as they are parsed, a render-heavy load let some requests wait many rounds behind newer ones
+// (p99 twenty times the median at 50 connections, even for a plain Node server doing 2 ms of work per answer; see
+// bench/http.ts), and a render that yields (React's server renderer does) went to the back of the line each time.
+// A request holds its place until its answer is sent, or for `slowMs` at most, so a slow upload or download never
+// holds the others up for long. Used by integrations/server-entry.mjs.
 
 /**
  * @param {(req: import('node:http').IncomingMessage, res: import('node:http').ServerResponse) => void} answer
