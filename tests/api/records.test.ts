@@ -43,7 +43,13 @@ describe('listing', () => {
     const page = await call(recordsRoute, 'GET', { session: s.alumni, query: { limit: '10' } });
     const next = await call(recordsRoute, 'GET', { session: s.alumni, query: { limit: '10', cursor: page.body.nextCursor } });
     expect(next.body.records[0].id).not.toBe(page.body.records[0].id);
+    // Pages follow on without overlap.
+    const ids = new Set(page.body.records.map((r: { id: string }) => r.id));
+    expect(next.body.records.some((r: { id: string }) => ids.has(r.id))).toBe(false);
     expect((await call(recordsRoute, 'GET', { session: s.alumni, query: { kind: 'memo' } })).status).toBe(400);
+    const bad = await call(recordsRoute, 'GET', { session: s.alumni, query: { cursor: 'not-a-cursor' } });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.issues[0].path).toBe('cursor');
   });
 });
 

@@ -9,6 +9,7 @@ import { recordAudit } from './audit';
 import { currentSeason, findSeason, findSubsystem } from './seasons';
 import type { CalculationInput } from '../schemas/calculations';
 import { onCalculationChanged } from './records/hooks';
+import { decodeCursor, encodeCursor } from './cursor';
 
 type Actor = { id: string; email: string };
 type Outputs = Record<string, number | string | null>;
@@ -190,11 +191,10 @@ export function listCalculations(q: { subsystem?: string; season?: string; kind?
   if (q.subsystem) where.push(eq(calculations.subsystemSlug, q.subsystem));
   if (q.season) where.push(eq(calculations.seasonId, q.season));
   if (q.kind) where.push(eq(calculations.kind, q.kind));
-  const m = q.cursor ? /^(\d{1,15})\.([A-Za-z0-9_-]{1,64})$/.exec(q.cursor) : null;
-  if (q.cursor && !m) throw invalidInput([{ path: 'cursor', message: 'Not a valid cursor.' }]);
-  if (m) {
-    const at = new Date(Number(m[1]));
-    where.push(or(lt(calculations.createdAt, at), and(eq(calculations.createdAt, at), lt(calculations.id, m[2]))));
+  const c = decodeCursor(q.cursor);
+  if (c) {
+    const at = new Date(c.at);
+    where.push(or(lt(calculations.createdAt, at), and(eq(calculations.createdAt, at), lt(calculations.id, c.id))));
   }
   const rows = db()
     .select({
@@ -218,7 +218,7 @@ export function listCalculations(q: { subsystem?: string; season?: string; kind?
     .all();
   const page: CalculationListItem[] = rows.slice(0, q.limit).map((r) => ({ ...r, createdAt: r.createdAt.toISOString(), url: `/calculations/${r.id}` }));
   const last = page[page.length - 1];
-  return { calculations: page, nextCursor: rows.length > q.limit && last ? `${Date.parse(last.createdAt)}.${last.id}` : null };
+  return { calculations: page, nextCursor: rows.length > q.limit && last ? encodeCursor(last.createdAt, last.id) : null };
 }
 
 /** Two saved calculations side by side: every input and output with both values and whether they differ. */

@@ -1,5 +1,6 @@
 import { and, desc, eq, lt, or, isNull, sql, type SQL } from 'drizzle-orm';
 import { prepared } from '../db/client';
+import { decodeCursor, encodeCursor } from '../cursor';
 import { records, seasons, subsystems, users } from '../db/schema';
 
 export interface RecordListQuery {
@@ -23,16 +24,6 @@ export interface RecordListItem {
   author: string | null;
   updatedAt: string;
   version: number;
-}
-
-/** Cursor = "<updatedAt ms>.<id>" of the last row of the previous page (stable under inserts). */
-export function encodeCursor(item: { updatedAt: string; id: string }): string {
-  return `${Date.parse(item.updatedAt)}.${item.id}`;
-}
-
-function decodeCursor(cursor: string): { at: number; id: string } | null {
-  const m = /^(\d{1,15})\.([a-z0-9-]{1,64})$/.exec(cursor);
-  return m ? { at: Number(m[1]), id: m[2] } : null;
 }
 
 const p = (name: string) => sql.placeholder(name);
@@ -76,7 +67,7 @@ function listQuery(shape: { kind: boolean; subsystem: boolean; season: boolean; 
 }
 
 export function listRecords(q: RecordListQuery): { records: RecordListItem[]; nextCursor: string | null } {
-  const c = q.cursor ? decodeCursor(q.cursor) : null;
+  const c = decodeCursor(q.cursor);
   const shape = { kind: !!q.kind, subsystem: !!q.subsystem, season: !!q.season, status: !!q.status, cursor: !!c };
   // Placeholders reach SQLite as given: timestamps are stored as milliseconds, like the cursor carries them.
   const rows = listQuery(shape).all({
@@ -89,5 +80,5 @@ export function listRecords(q: RecordListQuery): { records: RecordListItem[]; ne
     limit: q.limit + 1,
   });
   const page = rows.slice(0, q.limit).map((r) => ({ ...r, updatedAt: r.updatedAt.toISOString() }));
-  return { records: page, nextCursor: rows.length > q.limit ? encodeCursor(page[page.length - 1]) : null };
+  return { records: page, nextCursor: rows.length > q.limit ? encodeCursor(page[page.length - 1].updatedAt, page[page.length - 1].id) : null };
 }
