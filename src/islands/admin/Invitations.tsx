@@ -2,6 +2,7 @@ import { useState, type FormEvent } from 'react';
 import useSWR from 'swr';
 import { apiFetch, ApiError, fetcher } from '~/lib/client/api';
 import { ROLE_LABELS, type Role } from '~/lib/policy';
+import { RoleOptions, SubsystemChecks } from './pickers';
 
 interface Invitation {
   id: string;
@@ -146,7 +147,7 @@ function InviteForm({ subsystems, season, onInvited }: { subsystems: Props['subs
         <div className="field">
           <label htmlFor="inv-role">Role</label>
           <select id="inv-role" className="input" value={role} onChange={(e) => setRole(e.target.value as Role)} {...field('role')}>
-            {(Object.keys(ROLE_LABELS) as Role[]).map((r) => <option key={r} value={r}>{ROLE_LABELS[r]}</option>)}
+            <RoleOptions />
           </select>
           {errors.role && <p id="inv-role-error" className="field-error">{errors.role}</p>}
         </div>
@@ -154,14 +155,7 @@ function InviteForm({ subsystems, season, onInvited }: { subsystems: Props['subs
       {season && (
         <fieldset>
           <legend className="mb-1 text-sm font-semibold">Subsystems they will own in {season} <span className="font-normal text-muted">(optional)</span></legend>
-          <div className="grid grid-cols-2 gap-x-4 gap-y-1 text-sm sm:grid-cols-4">
-            {subsystems.map((s) => (
-              <label key={s.slug} className="flex items-center gap-1.5">
-                <input type="checkbox" checked={owned.includes(s.slug)} onChange={(e) => setOwned(e.target.checked ? [...owned, s.slug] : owned.filter((x) => x !== s.slug))} />
-                {s.name}
-              </label>
-            ))}
-          </div>
+          <SubsystemChecks subsystems={subsystems} owned={owned} onChange={setOwned} className="grid grid-cols-2 gap-x-4 gap-y-1 text-sm sm:grid-cols-4" />
           {errors.subsystems && <p className="field-error">{errors.subsystems}</p>}
         </fieldset>
       )}

@@ -1,6 +1,7 @@
 import { useState, type FormEvent } from 'react';
 import { apiFetch, ApiError } from '~/lib/client/api';
-import { ROLE_LABELS, type Role } from '~/lib/policy';
+import type { Role } from '~/lib/policy';
+import { RoleOptions, SubsystemChecks } from './pickers';
 
 interface Props {
   id: string;
@@ -57,22 +58,13 @@ export default function PersonEditor({ id, name, role: initialRole, owned: initi
       <div className="field">
         <label htmlFor={`${base}-role`}>Role</label>
         <select id={`${base}-role`} className="input py-1 text-sm" value={role} onChange={(e) => setRole(e.target.value as Role)}>
-          {(Object.keys(ROLE_LABELS) as Role[]).map((r) => (
-            <option key={r} value={r}>{ROLE_LABELS[r]}</option>
-          ))}
+          <RoleOptions />
         </select>
       </div>
       {season ? (
         <fieldset>
           <legend className="mb-1 font-semibold">Owns in {season}</legend>
-          <div className="grid grid-cols-2 gap-x-3 gap-y-1">
-            {subsystems.map((s) => (
-              <label key={s.slug} className="flex items-center gap-1.5">
-                <input type="checkbox" checked={owned.includes(s.slug)} onChange={(e) => setOwned(e.target.checked ? [...owned, s.slug] : owned.filter((x) => x !== s.slug))} />
-                {s.name}
-              </label>
-            ))}
-          </div>
+          <SubsystemChecks subsystems={subsystems} owned={owned} onChange={setOwned} className="grid grid-cols-2 gap-x-3 gap-y-1" />
         </fieldset>
       ) : (
         <p className="text-muted">No season is current, so there is nothing to assign.</p>
