@@ -26,6 +26,8 @@ function share(memo: Memo): void {
 
 /** The value for key computed since the last write to what it read, or compute() now. A rejection is not kept. */
 export function memoUntilWrite<T>(key: string, compute: () => T): T {
+  // Under `astro dev` guides change on disk, which no table version can see.
+  if (import.meta.env.MODE === 'development') return compute();
   const hit = values.get(key);
   if (hit && (hit.deps === null || stillValid(hit.deps))) {
     share(hit);

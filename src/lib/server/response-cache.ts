@@ -30,6 +30,8 @@ export function markCacheable(locals: App.Locals): void {
 }
 
 function capacity(): number {
+  // Off under `astro dev`: guides and components change on disk there, which no table version can see.
+  if (import.meta.env.MODE === 'development') return 0;
   return settings().WAKEBOOK_RESPONSE_CACHE_MB * 1024 * 1024;
 }
 
