@@ -40,6 +40,8 @@ describe('onboarding, seasons and handover', () => {
     await page.getByText('Arrange this route').click();
     const list = page.getByRole('list', { name: 'Route items in order' });
     await list.getByRole('listitem').first().waitFor();
+    // The buttons answer once the island has hydrated (Astro drops the island's `ssr` attribute then).
+    await page.locator('astro-island:not([ssr])').getByRole('list', { name: 'Route items in order' }).waitFor();
     const title = (i: number) => list.getByRole('listitem').nth(i).locator('span.font-medium').textContent();
     const firstBefore = (await title(0))!;
     await list.getByRole('button', { name: /Move .* down/ }).first().click();
