@@ -1,6 +1,6 @@
 // Foundation benchmark: the plain Node http ceiling for a page of the same size, GET /api/me signed in and the
 // signed-in home page, all in one run on loopback.
-import { fork } from 'node:child_process';
+import { fork, type ChildProcess } from 'node:child_process';
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -21,15 +21,12 @@ export default async function benchHttp(opts: { seconds?: number } = {}): Promis
     const body = Buffer.from(home);
     const bodyFile = join(mkdtempSync(join(tmpdir(), 'wakebook-ceiling-')), 'page.html');
     writeFileSync(bodyFile, body);
-    // Its own process: wrk runs synchronously here and would starve a server in this one.
-    const plain = fork(new URL('./plain-server.mjs', import.meta.url).pathname, ['4621', bodyFile], { stdio: ['ignore', 'ignore', 'inherit', 'ipc'] });
-    await new Promise<void>((r) => plain.once('message', () => r()));
+    const plain = await startPlainServer(4621, bodyFile);
     try {
       const ceiling = await runLoad({ name: 'http.ceiling.plain-node', url: 'http://127.0.0.1:4621/', seconds });
       out.push(report(ceiling, ceiling, { bytes: body.length }));
       // Calibration: the same plain server spending 2 ms of CPU per answer (about a page render here).
-      const busy = fork(new URL('./plain-server.mjs', import.meta.url).pathname, ['4622', bodyFile, '2'], { stdio: ['ignore', 'ignore', 'inherit', 'ipc'] });
-      await new Promise<void>((r) => busy.once('message', () => r()));
+      const busy = await startPlainServer(4622, bodyFile, 2);
       try {
         out.push(report(await runLoad({ name: 'http.calibration.plain-node-2ms-work', url: 'http://127.0.0.1:4622/', seconds }), ceiling));
       } finally {
@@ -70,6 +67,14 @@ async function readsAndMixed(base: string, cookie: string, ceiling: LoadResult, 
     out.push(await run('http.mixed', '/', new URL('./mixed.lua', import.meta.url).pathname));
   }
   return out;
+}
+
+/** plain-server.mjs in its own process (wrk runs synchronously here and would starve a server in this one). */
+async function startPlainServer(port: number, bodyFile: string, workMs?: number): Promise<ChildProcess> {
+  const args = [String(port), bodyFile, ...(workMs ? [String(workMs)] : [])];
+  const child = fork(new URL('./plain-server.mjs', import.meta.url).pathname, args, { stdio: ['ignore', 'ignore', 'inherit', 'ipc'] });
+  await new Promise<void>((r) => child.once('message', () => r()));
+  return child;
 }
 
 function round(x: number): number {

@@ -16,11 +16,9 @@ export const onRequest = defineMiddleware(async (context, next) => {
   context.locals.user = user;
   context.locals.session = session;
   const key = cacheKey(context.request.method, context.url, user?.id);
-  if (key) {
-    const hit = cached(key);
-    if (hit) return hit;
-  }
   if (!key) return withSecurityHeaders(await next());
+  const hit = cached(key);
+  if (hit) return hit;
   // Astro renders a page while its body is read, so the body is read inside the scope that records the tables.
   const start = currentVersions();
   const read = new Set<string>();
