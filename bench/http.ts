@@ -28,7 +28,12 @@ export default async function benchHttp(opts: { seconds?: number } = {}): Promis
       // Calibration: the same plain server spending 2 ms of CPU per answer (about a page render here).
       const busy = await startPlainServer(4622, bodyFile, 2);
       try {
-        out.push(report(await runLoad({ name: 'http.calibration.plain-node-2ms-work', url: 'http://127.0.0.1:4622/', seconds }), ceiling));
+        out.push(
+          report(
+            await runLoad({ name: 'http.calibration.plain-node-2ms-work', url: 'http://127.0.0.1:4622/', seconds }),
+            ceiling,
+          ),
+        );
       } finally {
         busy.kill();
       }
@@ -55,9 +60,19 @@ export default async function benchHttp(opts: { seconds?: number } = {}): Promis
   return out;
 }
 
-async function readsAndMixed(base: string, cookie: string, ceiling: LoadResult, seconds: number, suffix: string): Promise<object[]> {
+async function readsAndMixed(
+  base: string,
+  cookie: string,
+  ceiling: LoadResult,
+  seconds: number,
+  suffix: string,
+): Promise<object[]> {
   const out: object[] = [];
-  const run = async (name: string, path: string, wrkScript?: string) => report(await runLoad({ name: name + suffix, url: `${base}${path}`, headers: { cookie }, seconds, wrkScript }), ceiling);
+  const run = async (name: string, path: string, wrkScript?: string) =>
+    report(
+      await runLoad({ name: name + suffix, url: `${base}${path}`, headers: { cookie }, seconds, wrkScript }),
+      ceiling,
+    );
   out.push(await run('http.api.me', '/api/me'));
   out.push(await run('http.page.home', '/'));
   out.push(await run('http.page.record', '/records/demo-rec-2526-two-propellers'));
@@ -72,7 +87,9 @@ async function readsAndMixed(base: string, cookie: string, ceiling: LoadResult, 
 /** plain-server.mjs in its own process (wrk runs synchronously here and would starve a server in this one). */
 async function startPlainServer(port: number, bodyFile: string, workMs?: number): Promise<ChildProcess> {
   const args = [String(port), bodyFile, ...(workMs ? [String(workMs)] : [])];
-  const child = fork(new URL('./plain-server.mjs', import.meta.url).pathname, args, { stdio: ['ignore', 'ignore', 'inherit', 'ipc'] });
+  const child = fork(new URL('./plain-server.mjs', import.meta.url).pathname, args, {
+    stdio: ['ignore', 'ignore', 'inherit', 'ipc'],
+  });
   await new Promise<void>((r) => child.once('message', () => r()));
   return child;
 }
@@ -96,4 +113,3 @@ function report(r: LoadResult, ceiling: LoadResult, extra: object = {}) {
     ...extra,
   };
 }
-

@@ -62,10 +62,21 @@ export async function runLoad(o: LoadOptions): Promise<LoadResult> {
     const non2xx = Number(/Non-2xx or 3xx responses:\s+(\d+)/.exec(text)?.[1] ?? 0);
     const sock = /Socket errors: connect (\d+), read (\d+), write (\d+), timeout (\d+)/.exec(text);
     const errors = non2xx + (sock ? sock.slice(1).reduce((a, b) => a + Number(b), 0) : 0);
-    return { name: o.name, n, p50_ms: pct('50'), p99_ms: pct('99'), ops_per_s: rps, errors, tool: 'wrk', connections, seconds };
+    return {
+      name: o.name,
+      n,
+      p50_ms: pct('50'),
+      p99_ms: pct('99'),
+      ops_per_s: rps,
+      errors,
+      tool: 'wrk',
+      connections,
+      seconds,
+    };
   }
   const { default: autocannon } = await import('autocannon');
-  if (warmup > 0) await autocannon({ url: o.url, connections, duration: warmup, headers: o.headers, workers: 2 } as never);
+  if (warmup > 0)
+    await autocannon({ url: o.url, connections, duration: warmup, headers: o.headers, workers: 2 } as never);
   const r = await autocannon({ url: o.url, connections, duration: seconds, headers: o.headers, workers: 2 } as never);
   return {
     name: o.name,

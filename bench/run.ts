@@ -5,7 +5,9 @@ import { existsSync } from 'node:fs';
 const args = process.argv.slice(2);
 const asJson = args.includes('--json');
 const onlyArg = args.find((a) => a.startsWith('--only'));
-const only = onlyArg ? (onlyArg.includes('=') ? onlyArg.split('=')[1] : args[args.indexOf(onlyArg) + 1]).split(',') : null;
+const only = onlyArg
+  ? (onlyArg.includes('=') ? onlyArg.split('=')[1] : args[args.indexOf(onlyArg) + 1]).split(',')
+  : null;
 const secondsArg = args.indexOf('--seconds');
 const seconds = secondsArg >= 0 ? Number(args[secondsArg + 1]) : undefined;
 

@@ -101,7 +101,12 @@ export function* generateCorpus(count: number, seed = 6): Generator<BenchDoc> {
         sentence = 0;
       }
     }
-    yield { type: TYPES[i % TYPES.length], title: title.join(' '), body: body.join(' '), subsystem: SUBSYSTEMS[i % SUBSYSTEMS.length] };
+    yield {
+      type: TYPES[i % TYPES.length],
+      title: title.join(' '),
+      body: body.join(' '),
+      subsystem: SUBSYSTEMS[i % SUBSYSTEMS.length],
+    };
   }
 }
 

@@ -61,7 +61,11 @@ function fileMb(path: string): number {
 export function openOurs(file: string): Database.Database {
   const sqlite = openDatabase(file).$client;
   const now = Date.now();
-  sqlite.prepare("INSERT INTO seasons (id, name, starts_on, ends_on, phase, is_current, created_at) VALUES ('s1', '2025–26', '2025-09-01', '2026-08-31', 'build', 1, ?)").run(now);
+  sqlite
+    .prepare(
+      "INSERT INTO seasons (id, name, starts_on, ends_on, phase, is_current, created_at) VALUES ('s1', '2025–26', '2025-09-01', '2026-08-31', 'build', 1, ?)",
+    )
+    .run(now);
   for (const slug of ['hull', 'propulsion', 'cooling', 'battery', 'solar', 'steering', 'telemetry', 'general']) {
     sqlite.prepare('INSERT INTO subsystems (slug, name, created_at) VALUES (?, ?, ?)').run(slug, slug, now);
   }
@@ -73,7 +77,9 @@ export function openBaseline(file: string): Database.Database {
   sqlite.pragma('journal_mode = WAL');
   sqlite.pragma('synchronous = NORMAL');
   // Same tokenizer and prefix indexes as ours, so the comparison is of the query work, not of the table setup.
-  sqlite.exec("CREATE VIRTUAL TABLE docs USING fts5(title, body, tokenize = 'unicode61 remove_diacritics 2', prefix = '2 3 4')");
+  sqlite.exec(
+    "CREATE VIRTUAL TABLE docs USING fts5(title, body, tokenize = 'unicode61 remove_diacritics 2', prefix = '2 3 4')",
+  );
   return sqlite;
 }
 
@@ -86,13 +92,25 @@ export function build(ours: Database.Database, base: Database.Database, from: nu
   const rec = ours.prepare(
     "INSERT INTO records (id, kind, title, subsystem_slug, season_id, status, body, body_text, created_at, updated_at) VALUES (?, ?, ?, ?, 's1', ?, '{}', ?, ?, ?)",
   );
-  const calc = ours.prepare("INSERT INTO calculations (id, kind, title, subsystem_slug, season_id, notes, inputs, created_at, updated_at) VALUES (?, 'propeller', ?, ?, 's1', ?, ?, ?, ?)");
+  const calc = ours.prepare(
+    "INSERT INTO calculations (id, kind, title, subsystem_slug, season_id, notes, inputs, created_at, updated_at) VALUES (?, 'propeller', ?, ?, 's1', ?, ?, ?, ?)",
+  );
   const plain = base.prepare('INSERT INTO docs (title, body) VALUES (?, ?)');
   const oursBatch = ours.transaction((docs: BenchDoc[], first: number) => {
     docs.forEach((d, k) => {
       const id = `b${first + k}`;
       if (d.type === 'calculation') calc.run(id, d.title, d.subsystem, d.body, '{"blades":3,"water":"sea"}', now, now);
-      else rec.run(id, d.type === 'guide' ? 'lesson' : d.type, d.title, d.subsystem, d.type === 'decision' ? 'accepted' : 'open', d.body, now, now);
+      else
+        rec.run(
+          id,
+          d.type === 'guide' ? 'lesson' : d.type,
+          d.title,
+          d.subsystem,
+          d.type === 'decision' ? 'accepted' : 'open',
+          d.body,
+          now,
+          now,
+        );
     });
   });
   const baseBatch = base.transaction((docs: BenchDoc[]) => {
@@ -154,8 +172,26 @@ export default async function benchSearch(): Promise<object[]> {
       const docsAdded = n - indexed;
       indexed = n;
       const terms = ours.prepare('SELECT count(*) FROM search_vocab').pluck().get() as number;
-      out.push({ name: 'search.build.ours', n: docsAdded, docs: n, p50_ms: round(built.oursMs / docsAdded, 3), p99_ms: null, total_ms: round(built.oursMs), db_mb: fileMb(oursFile), distinct_terms: terms, note: 'per document, through the record/calculation triggers' });
-      out.push({ name: 'search.build.fts5-baseline', n: docsAdded, docs: n, p50_ms: round(built.baseMs / docsAdded, 3), p99_ms: null, total_ms: round(built.baseMs), db_mb: fileMb(baseFile) });
+      out.push({
+        name: 'search.build.ours',
+        n: docsAdded,
+        docs: n,
+        p50_ms: round(built.oursMs / docsAdded, 3),
+        p99_ms: null,
+        total_ms: round(built.oursMs),
+        db_mb: fileMb(oursFile),
+        distinct_terms: terms,
+        note: 'per document, through the record/calculation triggers',
+      });
+      out.push({
+        name: 'search.build.fts5-baseline',
+        n: docsAdded,
+        docs: n,
+        p50_ms: round(built.baseMs / docsAdded, 3),
+        p99_ms: null,
+        total_ms: round(built.baseMs),
+        db_mb: fileMb(baseFile),
+      });
 
       if (n === SIZES[SIZES.length - 1]) {
         // A restart with no saved vocabulary (read from FTS5), then one with the copy that run saved.
@@ -164,7 +200,15 @@ export default async function benchSearch(): Promise<object[]> {
         ours.pragma('wal_checkpoint(TRUNCATE)');
         for (const from of ['FTS5', 'saved copy']) {
           const r = await restart(oursFile, 'propellr ventilation');
-          out.push({ name: 'search.restart.first-search', n: 1, docs: n, p50_ms: r.firstSearchMs, p99_ms: r.firstSearchMs, vocabulary_from: from, ...r });
+          out.push({
+            name: 'search.restart.first-search',
+            n: 1,
+            docs: n,
+            p50_ms: r.firstSearchMs,
+            p99_ms: r.firstSearchMs,
+            vocabulary_from: from,
+            ...r,
+          });
         }
       }
 
@@ -172,10 +216,21 @@ export default async function benchSearch(): Promise<object[]> {
       const engine = new SearchEngine(ours);
       const heap0 = process.memoryUsage().heapUsed;
       const loaded = await measure(() => engine.settled());
-      out.push({ name: 'search.vocabulary.load', n: 1, docs: n, p50_ms: round(loaded.wall), p99_ms: round(loaded.wall), cpu_ms: round(loaded.cpu), terms: engine.vocabularySize, heap_mb_delta: mb(process.memoryUsage().heapUsed - heap0) });
+      out.push({
+        name: 'search.vocabulary.load',
+        n: 1,
+        docs: n,
+        p50_ms: round(loaded.wall),
+        p99_ms: round(loaded.wall),
+        cpu_ms: round(loaded.cpu),
+        terms: engine.vocabularySize,
+        heap_mb_delta: mb(process.memoryUsage().heapUsed - heap0),
+      });
 
       const queries = generateQueries(QUERIES, 66 + n);
-      const baseStmt = base.prepare('SELECT rowid, title, bm25(docs) AS score FROM docs WHERE docs MATCH ? ORDER BY rank LIMIT ?');
+      const baseStmt = base.prepare(
+        'SELECT rowid, title, bm25(docs) AS score FROM docs WHERE docs MATCH ? ORDER BY rank LIMIT ?',
+      );
       const runBase = (q: string) => {
         const m = baselineExpression(q);
         return m ? baseStmt.all(m, LIMIT) : [];
@@ -225,8 +280,17 @@ export default async function benchSearch(): Promise<object[]> {
         typo_corrected_pct: round((100 * typoFixed) / Math.max(1, typoTotal), 1),
         ...agreement,
       });
-      for (const shape of ['exact', 'prefix', 'typo'] as const) out.push({ name: `search.query.ours.${shape}`, docs: n, ...timings(ourTimes[shape]) });
-      out.push({ name: 'search.query.fts5-baseline', docs: n, ...base50, limit: LIMIT, note: 'top 10 by rank with titles: no snippet, no total', load_avg_before: loadBefore, load_avg_after: load() });
+      for (const shape of ['exact', 'prefix', 'typo'] as const)
+        out.push({ name: `search.query.ours.${shape}`, docs: n, ...timings(ourTimes[shape]) });
+      out.push({
+        name: 'search.query.fts5-baseline',
+        docs: n,
+        ...base50,
+        limit: LIMIT,
+        note: 'top 10 by rank with titles: no snippet, no total',
+        load_avg_before: loadBefore,
+        load_avg_after: load(),
+      });
     }
   } finally {
     ours.close();
@@ -241,7 +305,9 @@ export default async function benchSearch(): Promise<object[]> {
  * our top 10 also holds, for the same resolved words.
  */
 async function quality(engine: SearchEngine, sqlite: Database.Database, queries: BenchQuery[]) {
-  const exact = sqlite.prepare('SELECT rowid FROM search_fts WHERE search_fts MATCH ? ORDER BY bm25(search_fts, 8.0, 1.0) LIMIT ?').pluck();
+  const exact = sqlite
+    .prepare('SELECT rowid FROM search_fts WHERE search_fts MATCH ? ORDER BY bm25(search_fts, 8.0, 1.0) LIMIT ?')
+    .pluck();
   const docId = sqlite.prepare('SELECT id FROM search_docs WHERE ref_id = ? AND type = ?').pluck();
   let shared = 0;
   let possible = 0;
@@ -256,5 +322,9 @@ async function quality(engine: SearchEngine, sqlite: Database.Database, queries:
     shared += r.hits.filter((h) => reference.has(docId.get(h.id, h.type) as number)).length;
     possible += reference.size;
   }
-  return { top10_shared_with_plain_bm25_pct: round((100 * shared) / Math.max(1, possible), 1), quality_queries: queries.length, quality_broad_queries: broad };
+  return {
+    top10_shared_with_plain_bm25_pct: round((100 * shared) / Math.max(1, possible), 1),
+    quality_queries: queries.length,
+    quality_broad_queries: broad,
+  };
 }

@@ -12,12 +12,24 @@ export interface RunningServer {
   rssMb(): number;
 }
 
-export async function startBuiltServer(port: number, env: Record<string, string> = {}, reuseDir?: string): Promise<RunningServer & { dir: string }> {
+export async function startBuiltServer(
+  port: number,
+  env: Record<string, string> = {},
+  reuseDir?: string,
+): Promise<RunningServer & { dir: string }> {
   if (!existsSync('dist/server/entry.mjs')) throw new Error('Build first: npm run build');
   const dir = reuseDir ?? mkdtempSync(join(tmpdir(), 'wakebook-bench-'));
   const t0 = performance.now();
   const child = spawn(process.execPath, ['dist/server/entry.mjs'], {
-    env: { ...process.env, HOST: '127.0.0.1', PORT: String(port), WAKEBOOK_DB: join(dir, 'bench.db'), WAKEBOOK_UPLOADS: join(dir, 'uploads'), WAKEBOOK_DEMO: '1', ...env },
+    env: {
+      ...process.env,
+      HOST: '127.0.0.1',
+      PORT: String(port),
+      WAKEBOOK_DB: join(dir, 'bench.db'),
+      WAKEBOOK_UPLOADS: join(dir, 'uploads'),
+      WAKEBOOK_DEMO: '1',
+      ...env,
+    },
     stdio: ['ignore', 'ignore', 'inherit'],
   });
   const base = `http://127.0.0.1:${port}`;
@@ -53,7 +65,11 @@ export async function startBuiltServer(port: number, env: Record<string, string>
 }
 
 export async function signInCookie(base: string, email: string, password = 'wakebook-demo'): Promise<string> {
-  const res = await fetch(`${base}/api/auth/sign-in`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email, password }) });
+  const res = await fetch(`${base}/api/auth/sign-in`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json' },
+    body: JSON.stringify({ email, password }),
+  });
   if (!res.ok) throw new Error(`sign-in failed: ${res.status}`);
   const cookie = res.headers.getSetCookie().find((c) => c.startsWith('wakebook_session='));
   if (!cookie) throw new Error('no session cookie');

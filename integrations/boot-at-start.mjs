@@ -6,7 +6,7 @@
 import { copyFile, readFile, rename, writeFile } from 'node:fs/promises';
 import { fileURLToPath } from 'node:url';
 
-const MARK = '// The built server\'s entry';
+const MARK = "// The built server's entry";
 
 export default function bootAtStart() {
   let serverDir;

@@ -50,7 +50,10 @@ async function main() {
   };
   const tls = process.env.SERVER_CERT_PATH && process.env.SERVER_KEY_PATH;
   const server = tls
-    ? https.createServer({ cert: readFileSync(process.env.SERVER_CERT_PATH), key: readFileSync(process.env.SERVER_KEY_PATH) }, listener)
+    ? https.createServer(
+        { cert: readFileSync(process.env.SERVER_CERT_PATH), key: readFileSync(process.env.SERVER_KEY_PATH) },
+        listener,
+      )
     : http.createServer(listener);
   const host = process.env.HOST || '127.0.0.1';
   const port = Number(process.env.PORT || 4321);

@@ -48,7 +48,9 @@ export function loadAssets(dir) {
             etag,
             'last-modified': statSync(full).mtime.toUTCString(),
             // Files under /_astro/ carry a content hash in their names; the rest may change between releases.
-            'cache-control': path.startsWith('/_astro/') ? 'public, max-age=31536000, immutable' : 'public, max-age=0, must-revalidate',
+            'cache-control': path.startsWith('/_astro/')
+              ? 'public, max-age=31536000, immutable'
+              : 'public, max-age=0, must-revalidate',
           },
         });
       }

@@ -11,7 +11,8 @@ if (!token) {
   console.error('digest: set WAKEBOOK_CRON_TOKEN (the same value the server was started with).');
   process.exit(2);
 }
-const host = !process.env.HOST || process.env.HOST === '0.0.0.0' || process.env.HOST === '::' ? '127.0.0.1' : process.env.HOST;
+const host =
+  !process.env.HOST || process.env.HOST === '0.0.0.0' || process.env.HOST === '::' ? '127.0.0.1' : process.env.HOST;
 const base = (process.env.WAKEBOOK_URL || `http://${host}:${process.env.PORT || 4321}`).replace(/\/+$/, '');
 const i = process.argv.indexOf('--days');
 const days = i > 0 ? Number(process.argv[i + 1]) : 7;
@@ -36,7 +37,9 @@ try {
     console.error(`digest: the server answered ${res.status}: ${body?.error?.message ?? 'no details'}`);
     process.exit(1);
   }
-  console.log(`digest: since ${body.since}: ${body.sent} sent, ${body.skipped} with nothing new, ${body.failed} failed (of ${body.recipients} opted in).`);
+  console.log(
+    `digest: since ${body.since}: ${body.sent} sent, ${body.skipped} with nothing new, ${body.failed} failed (of ${body.recipients} opted in).`,
+  );
   process.exit(body.failed > 0 ? 1 : 0);
 } catch (e) {
   console.error(`digest: could not reach ${base} (${e instanceof Error ? e.message : e}). Is the server running?`);

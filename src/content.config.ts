@@ -3,7 +3,11 @@ import { glob } from 'astro/loaders';
 import { guideSchema, guideIdFromPath } from './lib/guide-schema';
 
 const guides = defineCollection({
-  loader: glob({ pattern: '**/*.mdx', base: './src/content/guides', generateId: ({ entry }) => guideIdFromPath(entry) }),
+  loader: glob({
+    pattern: '**/*.mdx',
+    base: './src/content/guides',
+    generateId: ({ entry }) => guideIdFromPath(entry),
+  }),
   schema: guideSchema,
 });
 

@@ -6,7 +6,10 @@ export interface CsvTable {
 }
 
 export function parseCsv(text: string, maxRows = Infinity): CsvTable {
-  const lines = text.replace(/^\uFEFF/, '').split(/\r?\n/).filter((l) => l.trim() !== '' && !l.startsWith('#'));
+  const lines = text
+    .replace(/^\uFEFF/, '')
+    .split(/\r?\n/)
+    .filter((l) => l.trim() !== '' && !l.startsWith('#'));
   const split = (line: string): string[] => {
     const out: string[] = [];
     let cur = '';
@@ -37,5 +40,8 @@ export function parseCsv(text: string, maxRows = Infinity): CsvTable {
 export function numericColumns(t: CsvTable): number[] {
   return t.header
     .map((_, i) => i)
-    .filter((i) => t.rows.length > 0 && t.rows.every((r) => r[i] === undefined || r[i] === '' || Number.isFinite(Number(r[i]))));
+    .filter(
+      (i) =>
+        t.rows.length > 0 && t.rows.every((r) => r[i] === undefined || r[i] === '' || Number.isFinite(Number(r[i]))),
+    );
 }

@@ -3,7 +3,11 @@
 const formatters = new Map<number, Intl.NumberFormat>();
 function formatter(digits: number): Intl.NumberFormat {
   let f = formatters.get(digits);
-  if (!f) formatters.set(digits, (f = new Intl.NumberFormat('en-GB', { minimumFractionDigits: digits, maximumFractionDigits: digits })));
+  if (!f)
+    formatters.set(
+      digits,
+      (f = new Intl.NumberFormat('en-GB', { minimumFractionDigits: digits, maximumFractionDigits: digits })),
+    );
   return f;
 }
 
@@ -13,7 +17,8 @@ export function formatNumber(value: unknown, digits = 3): string {
   if (typeof value !== 'number') return String(value);
   if (!Number.isFinite(value)) return value > 0 ? '∞' : value < 0 ? '−∞' : '–';
   const abs = Math.abs(value);
-  if (abs !== 0 && (abs >= 1e7 || abs < 10 ** -Math.max(digits, 1))) return value.toExponential(Math.max(2, Math.min(digits, 6))).replace('-', '−');
+  if (abs !== 0 && (abs >= 1e7 || abs < 10 ** -Math.max(digits, 1)))
+    return value.toExponential(Math.max(2, Math.min(digits, 6))).replace('-', '−');
   return formatter(digits).format(value).replace('-', '−');
 }
 

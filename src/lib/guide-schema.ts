@@ -3,7 +3,16 @@
 // file and field named.
 import { z } from 'astro/zod';
 
-export const GUIDE_SUBSYSTEMS = ['hull', 'propulsion', 'cooling', 'battery', 'solar', 'steering', 'telemetry', 'general'] as const;
+export const GUIDE_SUBSYSTEMS = [
+  'hull',
+  'propulsion',
+  'cooling',
+  'battery',
+  'solar',
+  'steering',
+  'telemetry',
+  'general',
+] as const;
 
 export const guideSchema = z
   .object({
@@ -22,5 +31,8 @@ export const guideSchema = z
 
 /** A guide's slug is its file name, so links survive moving a guide to another subsystem folder. */
 export function guideIdFromPath(entry: string): string {
-  return entry.split('/').pop()!.replace(/\.mdx$/, '');
+  return entry
+    .split('/')
+    .pop()!
+    .replace(/\.mdx$/, '');
 }

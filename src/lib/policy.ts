@@ -2,7 +2,12 @@
 // Pure: no server imports, so islands can hide controls the server would refuse anyway.
 
 export type Role = 'lead' | 'advisor' | 'member' | 'alumni';
-export const ROLE_LABELS: Record<Role, string> = { lead: 'Lead', advisor: 'Advisor', member: 'Member', alumni: 'Alumni' };
+export const ROLE_LABELS: Record<Role, string> = {
+  lead: 'Lead',
+  advisor: 'Advisor',
+  member: 'Member',
+  alumni: 'Alumni',
+};
 
 export type Action =
   | 'read' // everything that is not admin: guides, records, calculations, people directory
@@ -75,8 +80,24 @@ export function can(user: Actor | null | undefined, action: Action, subject: Sub
 }
 
 export const ALL_ACTIONS: Action[] = [
-  'read', 'season:manage', 'subsystem:manage', 'people:manage', 'invitation:manage', 'audit:read', 'export:run',
-  'outbox:read', 'digest:send', 'record:create', 'record:edit', 'record:status', 'record:review', 'record:comment',
-  'attachment:upload', 'calculation:create', 'calculation:recompute', 'onboarding:curate', 'onboarding:follow',
+  'read',
+  'season:manage',
+  'subsystem:manage',
+  'people:manage',
+  'invitation:manage',
+  'audit:read',
+  'export:run',
+  'outbox:read',
+  'digest:send',
+  'record:create',
+  'record:edit',
+  'record:status',
+  'record:review',
+  'record:comment',
+  'attachment:upload',
+  'calculation:create',
+  'calculation:recompute',
+  'onboarding:curate',
+  'onboarding:follow',
   'onboarding:see-all',
 ];

@@ -21,7 +21,15 @@ export interface Readiness {
   score: number;
   checks: ReadinessCheck[];
   missing: string[];
-  has: { acceptedDecisions: number; decisionsComplete: number; lessons: number; lessonsHandled: number; routeItems: number; guides: number; guidesReviewed: number };
+  has: {
+    acceptedDecisions: number;
+    decisionsComplete: number;
+    lessons: number;
+    lessonsHandled: number;
+    routeItems: number;
+    guides: number;
+    guidesReviewed: number;
+  };
 }
 
 /** A decision "has its reasoning" when its text says enough to be understood without its author (common practice). */
@@ -38,7 +46,10 @@ export function scoreReadiness(f: ReadinessFacts, now: Date): Readiness {
   const decisionMissing: string[] = [];
   if (f.acceptedDecisions.length === 0) decisionMissing.push('No accepted decision recorded this season.');
   for (const d of f.acceptedDecisions) {
-    const gaps = [d.reasoningWords < MIN_REASONING_WORDS ? `its reasoning (${d.reasoningWords} words)` : '', d.calculations === 0 ? 'a linked calculation' : ''].filter(Boolean);
+    const gaps = [
+      d.reasoningWords < MIN_REASONING_WORDS ? `its reasoning (${d.reasoningWords} words)` : '',
+      d.calculations === 0 ? 'a linked calculation' : '',
+    ].filter(Boolean);
     if (gaps.length) decisionMissing.push(`Decision “${d.title}” needs ${gaps.join(' and ')}.`);
   }
   checks.push({
@@ -56,19 +67,43 @@ export function scoreReadiness(f: ReadinessFacts, now: Date): Readiness {
     label: 'Open lessons are addressed or handed on (on the onboarding route)',
     weight: WEIGHTS.lessons,
     fraction: f.lessons.length ? handled.length / f.lessons.length : 1,
-    missing: open.filter((l) => !l.onRoute).map((l) => `Lesson “${l.title}” is open: address it or put it on the onboarding route.`),
+    missing: open
+      .filter((l) => !l.onRoute)
+      .map((l) => `Lesson “${l.title}” is open: address it or put it on the onboarding route.`),
   });
 
   const routeMissing: string[] = [];
-  if (f.route.items < ROUTE_MIN_ITEMS) routeMissing.push(`The onboarding route has ${f.route.items} item${f.route.items === 1 ? '' : 's'}; give it at least ${ROUTE_MIN_ITEMS}.`);
-  if (f.route.items > 0 && f.route.itemsFromSeason === 0) routeMissing.push('The onboarding route has nothing from this season yet.');
-  if (f.route.missingItems > 0) routeMissing.push(`${f.route.missingItems} onboarding item(s) point at something that no longer exists.`);
+  if (f.route.items < ROUTE_MIN_ITEMS)
+    routeMissing.push(
+      `The onboarding route has ${f.route.items} item${f.route.items === 1 ? '' : 's'}; give it at least ${ROUTE_MIN_ITEMS}.`,
+    );
+  if (f.route.items > 0 && f.route.itemsFromSeason === 0)
+    routeMissing.push('The onboarding route has nothing from this season yet.');
+  if (f.route.missingItems > 0)
+    routeMissing.push(`${f.route.missingItems} onboarding item(s) point at something that no longer exists.`);
   const routeParts = [f.route.items >= ROUTE_MIN_ITEMS, f.route.itemsFromSeason > 0, f.route.missingItems === 0];
-  checks.push({ key: 'route', label: 'The onboarding route is current', weight: WEIGHTS.route, fraction: f.route.items === 0 ? 0 : routeParts.filter(Boolean).length / routeParts.length, missing: routeMissing });
+  checks.push({
+    key: 'route',
+    label: 'The onboarding route is current',
+    weight: WEIGHTS.route,
+    fraction: f.route.items === 0 ? 0 : routeParts.filter(Boolean).length / routeParts.length,
+    missing: routeMissing,
+  });
 
   const fresh = f.guides.filter((g) => now.getTime() - Date.parse(g.reviewedOn) <= YEAR_MS);
-  const guideMissing = f.guides.length === 0 ? ['No guide covers this subsystem.'] : f.guides.filter((g) => !fresh.includes(g)).map((g) => `Guide “${g.title}” was last reviewed on ${g.reviewedOn}, over a year ago.`);
-  checks.push({ key: 'guides', label: 'Its guides were reviewed within the year', weight: WEIGHTS.guides, fraction: f.guides.length ? fresh.length / f.guides.length : 0, missing: guideMissing });
+  const guideMissing =
+    f.guides.length === 0
+      ? ['No guide covers this subsystem.']
+      : f.guides
+          .filter((g) => !fresh.includes(g))
+          .map((g) => `Guide “${g.title}” was last reviewed on ${g.reviewedOn}, over a year ago.`);
+  checks.push({
+    key: 'guides',
+    label: 'Its guides were reviewed within the year',
+    weight: WEIGHTS.guides,
+    fraction: f.guides.length ? fresh.length / f.guides.length : 0,
+    missing: guideMissing,
+  });
 
   const score = Math.round(checks.reduce((s, c) => s + c.weight * c.fraction, 0));
   return {

@@ -39,14 +39,20 @@ describe('POST /api/auth/sign-in', () => {
   });
 
   it('refuses a wrong password with 401 invalid_credentials', async () => {
-    const res = await call(signIn, 'POST', { body: { email: demoAccounts.lead, password: 'not-the-password' }, ip: '127.0.2.1' });
+    const res = await call(signIn, 'POST', {
+      body: { email: demoAccounts.lead, password: 'not-the-password' },
+      ip: '127.0.2.1',
+    });
     expect(res.status).toBe(401);
     expectErrorShape(res.body, 'invalid_credentials');
     expect(res.cookies.get(SESSION_COOKIE)).toBeUndefined();
   });
 
   it('answers an unknown account exactly like a wrong password', async () => {
-    const res = await call(signIn, 'POST', { body: { email: 'nobody@wakebook.test', password: 'whatever-it-is' }, ip: '127.0.2.2' });
+    const res = await call(signIn, 'POST', {
+      body: { email: 'nobody@wakebook.test', password: 'whatever-it-is' },
+      ip: '127.0.2.2',
+    });
     expect(res.status).toBe(401);
     expectErrorShape(res.body, 'invalid_credentials');
   });
@@ -105,7 +111,9 @@ describe('GET /api/me and sign-out', () => {
     const session = await sessionFor('advisor');
     const res = await call(me, 'GET', { session });
     expect(res.status).toBe(200);
-    expect(res.body).toEqual({ user: { id: expect.any(String), email: demoAccounts.advisor, name: 'Dr. Felix Arnaud', role: 'advisor' } });
+    expect(res.body).toEqual({
+      user: { id: expect.any(String), email: demoAccounts.advisor, name: 'Dr. Felix Arnaud', role: 'advisor' },
+    });
   });
 
   it('sign-out answers 204, clears the cookie and deletes the session on the server', async () => {

@@ -79,8 +79,13 @@ const MATRIX: Record<string, Row> = {
 };
 
 const routes = Object.entries(modules).flatMap(([file, mod]) => {
-  const path = file.replace('../../src/pages', '').replace(/\.ts$/, '').replace(/\/index$/, '');
-  return (['GET', 'POST', 'PUT', 'PATCH', 'DELETE'] as Method[]).filter((m) => typeof mod[m] === 'function').map((m) => ({ key: `${m} ${path}`, method: m, mod }));
+  const path = file
+    .replace('../../src/pages', '')
+    .replace(/\.ts$/, '')
+    .replace(/\/index$/, '');
+  return (['GET', 'POST', 'PUT', 'PATCH', 'DELETE'] as Method[])
+    .filter((m) => typeof mod[m] === 'function')
+    .map((m) => ({ key: `${m} ${path}`, method: m, mod }));
 });
 
 let s: Record<DemoRole, string>;
@@ -100,8 +105,16 @@ describe('authorization matrix', () => {
     const row = MATRIX[r.key];
     if (!row) continue;
     it(`${r.key}: signed out ${row.allow === 'public' ? 'allowed' : '401'}, ${row.allow === 'public' ? 'everyone allowed' : `allowed: ${row.allow.join(', ')}`}`, async () => {
-      const params = Object.fromEntries(Object.entries(row.params ?? {}).map(([k, v]) => [k, v === 'SEASON' ? seasonId : v]));
-      const send = (session?: string) => call(r.mod, r.method, { params, session, body: r.method === 'GET' ? undefined : {}, path: r.key.split(' ')[1] });
+      const params = Object.fromEntries(
+        Object.entries(row.params ?? {}).map(([k, v]) => [k, v === 'SEASON' ? seasonId : v]),
+      );
+      const send = (session?: string) =>
+        call(r.mod, r.method, {
+          params,
+          session,
+          body: r.method === 'GET' ? undefined : {},
+          path: r.key.split(' ')[1],
+        });
       const out = await send();
       if (row.allow === 'public') expect(out.status, 'signed out').not.toBe(401);
       else expect(out.status, 'signed out').toBe(401);
@@ -109,7 +122,10 @@ describe('authorization matrix', () => {
         const session = row.fresh ? await sessionFor(role) : s[role];
         const res = await send(session);
         const allowed = row.allow === 'public' || row.allow.includes(role);
-        if (allowed) expect([401, 403], `${role} should be allowed, got ${res.status} ${res.text.slice(0, 120)}`).not.toContain(res.status);
+        if (allowed)
+          expect([401, 403], `${role} should be allowed, got ${res.status} ${res.text.slice(0, 120)}`).not.toContain(
+            res.status,
+          );
         else expect(res.status, `${role} should be refused`).toBe(403);
         expect(res.status, `${role}: ${res.text.slice(0, 200)}`).toBeLessThan(500);
       }

@@ -16,7 +16,17 @@ beforeAll(async () => {
   s = await sessionsForAllRoles();
 });
 
-const propeller = { blades: 4, bladeAreaRatio: 0.7, pitchRatio: 1.0, diameter_m: 0.2, rpm: 1200, speed_mps: 2.0, wakeFraction: 0, temperature_C: 20, water: 'fresh' };
+const propeller = {
+  blades: 4,
+  bladeAreaRatio: 0.7,
+  pitchRatio: 1.0,
+  diameter_m: 0.2,
+  rpm: 1200,
+  speed_mps: 2.0,
+  wakeFraction: 0,
+  temperature_C: 20,
+  water: 'fresh',
+};
 
 describe('GET /api/calculators', () => {
   it('401 signed out; lists every kind with inputs, outputs and sources', async () => {
@@ -31,15 +41,32 @@ describe('GET /api/calculators', () => {
       for (const i of c.inputs) expect(i).toHaveProperty('help');
     }
     const prop = res.body.calculators.find((c: { kind: string }) => c.kind === 'propeller');
-    expect(prop.inputs.map((i: { name: string }) => i.name)).toEqual(expect.arrayContaining(['blades', 'bladeAreaRatio', 'pitchRatio', 'diameter_m', 'rpm', 'speed_mps', 'wakeFraction', 'temperature_C', 'water']));
+    expect(prop.inputs.map((i: { name: string }) => i.name)).toEqual(
+      expect.arrayContaining([
+        'blades',
+        'bladeAreaRatio',
+        'pitchRatio',
+        'diameter_m',
+        'rpm',
+        'speed_mps',
+        'wakeFraction',
+        'temperature_C',
+        'water',
+      ]),
+    );
   });
 });
 
 describe('POST /api/calculators/{kind}/run', () => {
   it('computes without saving: the dimensional check of REFERENCES.md §1 (derived, Oosterveld & van Oossanen 1975 polynomial)', async () => {
-    const count = async () => (await call(calculationsRoute, 'GET', { session: s.advisor, query: { limit: '100' } })).body.calculations.length;
+    const count = async () =>
+      (await call(calculationsRoute, 'GET', { session: s.advisor, query: { limit: '100' } })).body.calculations.length;
     const before = await count();
-    const res = await call(run, 'POST', { session: s.advisor, params: { kind: 'propeller' }, body: { inputs: propeller } });
+    const res = await call(run, 'POST', {
+      session: s.advisor,
+      params: { kind: 'propeller' },
+      body: { inputs: propeller },
+    });
     expect(res.status).toBe(200);
     expect(res.body.outputs.advanceRatio).toBeCloseTo(0.5, 9);
     expect(res.body.outputs.thrust_N).toBeCloseTo(173.1499, 2);
@@ -56,14 +83,22 @@ describe('POST /api/calculators/{kind}/run', () => {
   });
 
   it('400 names the bad input', async () => {
-    const res = await call(run, 'POST', { session: s.member, params: { kind: 'propeller' }, body: { inputs: { ...propeller, rpm: 'fast' } } });
+    const res = await call(run, 'POST', {
+      session: s.member,
+      params: { kind: 'propeller' },
+      body: { inputs: { ...propeller, rpm: 'fast' } },
+    });
     expect(res.status).toBe(400);
     expect(res.body.error.code).toBe('invalid_input');
     expect(res.body.error.issues.map((i: { path: string }) => i.path)).toContain('inputs.rpm');
   });
 
   it('422 out_of_range names the input outside the B-series polynomial (P/D above 1.4)', async () => {
-    const res = await call(run, 'POST', { session: s.member, params: { kind: 'propeller' }, body: { inputs: { ...propeller, pitchRatio: 1.8 } } });
+    const res = await call(run, 'POST', {
+      session: s.member,
+      params: { kind: 'propeller' },
+      body: { inputs: { ...propeller, pitchRatio: 1.8 } },
+    });
     expect(res.status).toBe(422);
     expect(res.body.error.code).toBe('out_of_range');
     expect(res.body.error.input).toBe('pitchRatio');
@@ -77,7 +112,14 @@ describe('saved calculations', () => {
   it('a member saves one; outputs are computed on the server and any sent outputs are ignored', async () => {
     const res = await call(calculationsRoute, 'POST', {
       session: s.member,
-      body: { kind: 'propeller', title: 'B4-70 check point', subsystem: 'propulsion', notes: 'From the reference table.', inputs: propeller, outputs: { thrust_N: 1 } },
+      body: {
+        kind: 'propeller',
+        title: 'B4-70 check point',
+        subsystem: 'propulsion',
+        notes: 'From the reference table.',
+        inputs: propeller,
+        outputs: { thrust_N: 1 },
+      },
     });
     expect(res.status).toBe(201);
     const c = res.body.calculation;
@@ -90,20 +132,40 @@ describe('saved calculations', () => {
   });
 
   it.each(['alumni', 'advisor'] as const)('%s may not save (403)', async (role) => {
-    const res = await call(calculationsRoute, 'POST', { session: s[role], body: { kind: 'cable', title: 'Not allowed', subsystem: 'battery', inputs: {} } });
+    const res = await call(calculationsRoute, 'POST', {
+      session: s[role],
+      body: { kind: 'cable', title: 'Not allowed', subsystem: 'battery', inputs: {} },
+    });
     expect(res.status).toBe(403);
   });
 
   it('400 for a missing title or an unknown subsystem, 404 for an unknown kind, 422 out of range', async () => {
-    const missing = await call(calculationsRoute, 'POST', { session: s.member, body: { kind: 'cable', subsystem: 'battery', inputs: {} } });
+    const missing = await call(calculationsRoute, 'POST', {
+      session: s.member,
+      body: { kind: 'cable', subsystem: 'battery', inputs: {} },
+    });
     expect(missing.status).toBe(400);
     expect(missing.body.error.issues.map((i: { path: string }) => i.path)).toContain('title');
-    const badSub = await call(calculationsRoute, 'POST', { session: s.member, body: { kind: 'cable', title: 'Cable', subsystem: 'rigging', inputs: {} } });
+    const badSub = await call(calculationsRoute, 'POST', {
+      session: s.member,
+      body: { kind: 'cable', title: 'Cable', subsystem: 'rigging', inputs: {} },
+    });
     expect(badSub.status).toBe(400);
     expect(badSub.body.error.issues[0].path).toBe('subsystem');
-    const badKind = await call(calculationsRoute, 'POST', { session: s.member, body: { kind: 'teleporter', title: 'Nope', subsystem: 'battery', inputs: {} } });
+    const badKind = await call(calculationsRoute, 'POST', {
+      session: s.member,
+      body: { kind: 'teleporter', title: 'Nope', subsystem: 'battery', inputs: {} },
+    });
     expect(badKind.status).toBe(404);
-    const range = await call(calculationsRoute, 'POST', { session: s.member, body: { kind: 'propeller', title: 'Seven-plus blades', subsystem: 'propulsion', inputs: { ...propeller, blades: 9 } } });
+    const range = await call(calculationsRoute, 'POST', {
+      session: s.member,
+      body: {
+        kind: 'propeller',
+        title: 'Seven-plus blades',
+        subsystem: 'propulsion',
+        inputs: { ...propeller, blades: 9 },
+      },
+    });
     expect(range.status).toBe(422);
     expect(range.body.error.input).toBe('blades');
   });
@@ -132,22 +194,35 @@ describe('saved calculations', () => {
     expect(props.body.calculations.every((c: { kind: string }) => c.kind === 'propeller')).toBe(true);
     const page1 = await call(calculationsRoute, 'GET', { session: s.member, query: { limit: '5' } });
     expect(page1.body.calculations).toHaveLength(5);
-    const page2 = await call(calculationsRoute, 'GET', { session: s.member, query: { limit: '5', cursor: page1.body.nextCursor } });
+    const page2 = await call(calculationsRoute, 'GET', {
+      session: s.member,
+      query: { limit: '5', cursor: page1.body.nextCursor },
+    });
     const ids1 = page1.body.calculations.map((c: { id: string }) => c.id);
     expect(page2.body.calculations.some((c: { id: string }) => ids1.includes(c.id))).toBe(false);
     expect((await call(calculationsRoute, 'GET', { session: s.member, query: { limit: '0' } })).status).toBe(400);
-    expect((await call(calculationsRoute, 'GET', { session: s.member, query: { cursor: 'garbage' } })).status).toBe(400);
+    expect((await call(calculationsRoute, 'GET', { session: s.member, query: { cursor: 'garbage' } })).status).toBe(
+      400,
+    );
   });
 
   it('compares the sprint and endurance propellers side by side', async () => {
-    const res = await call(compare, 'GET', { session: s.alumni, query: { a: 'demo-calc-prop-endurance-2526', b: 'demo-calc-prop-sprint-2526' } });
+    const res = await call(compare, 'GET', {
+      session: s.alumni,
+      query: { a: 'demo-calc-prop-endurance-2526', b: 'demo-calc-prop-sprint-2526' },
+    });
     expect(res.status).toBe(200);
     expect(res.body.sameKind).toBe(true);
     const pd = res.body.inputs.find((r: { name: string }) => r.name === 'pitchRatio');
     expect(pd.differs).toBe(true);
     expect(pd.a).toBeGreaterThan(pd.b);
-    expect((await call(compare, 'GET', { session: s.alumni, query: { a: 'demo-calc-prop-endurance-2526' } })).status).toBe(400);
-    expect((await call(compare, 'GET', { session: s.alumni, query: { a: 'demo-calc-prop-endurance-2526', b: 'nope' } })).status).toBe(404);
+    expect(
+      (await call(compare, 'GET', { session: s.alumni, query: { a: 'demo-calc-prop-endurance-2526' } })).status,
+    ).toBe(400);
+    expect(
+      (await call(compare, 'GET', { session: s.alumni, query: { a: 'demo-calc-prop-endurance-2526', b: 'nope' } }))
+        .status,
+    ).toBe(404);
     expect((await call(compare, 'GET', { query: { a: 'x', b: 'y' } })).status).toBe(401);
   });
 });

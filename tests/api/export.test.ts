@@ -59,7 +59,9 @@ describe('GET /api/export', () => {
     const res = await call(exportRoute, 'GET', { session: s.lead });
     expect(res.status).toBe(200);
     expect(res.headers.get('content-type')).toBe('application/zip');
-    expect(res.headers.get('content-disposition')).toMatch(/attachment; filename="wakebook-handover-\d{4}-\d{2}-\d{2}\.zip"/);
+    expect(res.headers.get('content-disposition')).toMatch(
+      /attachment; filename="wakebook-handover-\d{4}-\d{2}-\d{2}\.zip"/,
+    );
     expect(res.headers.get('content-length')).toBeNull(); // streamed: the size is not known up front
     files = await unzip(res.bytes);
     root = [...files.keys()][0].split('/')[0];
@@ -92,7 +94,17 @@ describe('GET /api/export', () => {
       const row = dbRecords.find((r) => r.id === fm.id)!;
       expect(row).toBeDefined();
       expect(fm).toMatchObject({ kind: row.kind, status: row.status, subsystem: row.subsystemSlug });
-      for (const key of ['season', 'author', 'created', 'updated', 'calculations', 'related', 'supersedes', 'supersededBy']) expect(fm).toHaveProperty(key);
+      for (const key of [
+        'season',
+        'author',
+        'created',
+        'updated',
+        'calculations',
+        'related',
+        'supersedes',
+        'supersededBy',
+      ])
+        expect(fm).toHaveProperty(key);
       expect(md).toContain(`# ${row.title}`);
       // The first words of the stored plain text appear in the Markdown body, in order.
       const norm = (x: string) => x.replace(/[\\*_~`[\]]/g, ''); // Markdown markers and escapes, not words
@@ -108,13 +120,17 @@ describe('GET /api/export', () => {
     const all = recordFiles.map((f) => files.get(f)!.toString('utf8')).join('\n');
     expect(all).not.toMatch(/\]\(\/records\//);
     expect(all).toMatch(/\]\(\.\.\/records\/[a-z0-9-]+\.md\)/);
-    const linked = recordFiles.map((f) => frontMatter(files.get(f)!.toString('utf8'))).find((fm) => (fm.supersedes as string[]).length > 0);
+    const linked = recordFiles
+      .map((f) => frontMatter(files.get(f)!.toString('utf8')))
+      .find((fm) => (fm.supersedes as string[]).length > 0);
     expect(linked).toBeDefined();
   });
 
   it('has every guide as its MDX source', () => {
     const dir = 'src/content/guides';
-    const sources = readdirSync(dir, { recursive: true }).map(String).filter((f) => f.endsWith('.mdx'));
+    const sources = readdirSync(dir, { recursive: true })
+      .map(String)
+      .filter((f) => f.endsWith('.mdx'));
     const guides = [...files.keys()].filter((k) => k.startsWith(`${root}/guides/`));
     expect(guides).toHaveLength(sources.length);
     for (const src of sources) {
@@ -142,7 +158,9 @@ describe('GET /api/export', () => {
     const stored = db().select().from(attachments).all();
     expect(stored.length).toBeGreaterThan(0);
     for (const a of stored) {
-      const entry = [...files.keys()].find((k) => k.includes(`/attachments/`) && k.includes(a.recordId) && k.endsWith(a.fileName))!;
+      const entry = [...files.keys()].find(
+        (k) => k.includes(`/attachments/`) && k.includes(a.recordId) && k.endsWith(a.fileName),
+      )!;
       expect(entry).toBeDefined();
       const original = Buffer.from(await new Response(openStored(a.sha256)!.stream).arrayBuffer());
       expect(files.get(entry)!.equals(original)).toBe(true);

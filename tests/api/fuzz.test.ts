@@ -12,7 +12,11 @@ import { listPeople } from '../../src/lib/server/people';
 type Method = 'POST' | 'PUT' | 'PATCH' | 'DELETE';
 type FieldType = 'string' | 'number' | 'boolean' | 'array' | 'object';
 const modules = import.meta.glob<Partial<Record<Method, APIRoute>>>('../../src/pages/api/**/*.ts', { eager: true });
-const sources = import.meta.glob<string>('../../src/pages/api/**/*.ts', { eager: true, query: '?raw', import: 'default' });
+const sources = import.meta.glob<string>('../../src/pages/api/**/*.ts', {
+  eager: true,
+  query: '?raw',
+  import: 'default',
+});
 
 /** Each body-reading route's own fields, so that every object body gives at least one of them a wrong type. */
 const FIELDS: Record<string, Record<string, FieldType>> = {
@@ -29,7 +33,13 @@ const FIELDS: Record<string, Record<string, FieldType>> = {
   'PATCH /api/people/[id]': { role: 'string', subsystems: 'array' },
   'POST /api/invitations': { email: 'string', name: 'string', role: 'string', subsystems: 'array' },
   'POST /api/digest/send': { days: 'number' },
-  'POST /api/records': { kind: 'string', title: 'string', subsystem: 'string', body: 'object', calculationIds: 'array' },
+  'POST /api/records': {
+    kind: 'string',
+    title: 'string',
+    subsystem: 'string',
+    body: 'object',
+    calculationIds: 'array',
+  },
   'PATCH /api/records/[id]': { version: 'number', title: 'string', body: 'object', relatedRecordIds: 'array' },
   'POST /api/records/[id]/status': { status: 'string', supersededBy: 'string', version: 'number' },
   'POST /api/records/[id]/review': { note: 'string' },
@@ -52,22 +62,46 @@ function rng(seed: number) {
   };
 }
 
-const ODD = ['\u202e', '\u200b', '\u0000', '\ud800', '🚤⚡', 'Ω≈ç√', '<script>alert(1)</script>', "'; DROP TABLE records; --", '${7*7}', '%00', '../../etc/passwd', '\r\n\r\n', 'ǅ', 'ﷺ'];
+const ODD = [
+  '\u202e',
+  '\u200b',
+  '\u0000',
+  '\ud800',
+  '🚤⚡',
+  'Ω≈ç√',
+  '<script>alert(1)</script>',
+  "'; DROP TABLE records; --",
+  '${7*7}',
+  '%00',
+  '../../etc/passwd',
+  '\r\n\r\n',
+  'ǅ',
+  'ﷺ',
+];
 const PROTO = ['__proto__', 'constructor', 'prototype'];
 
 function makeValue(r: () => number, depth = 0): unknown {
   const k = Math.floor(r() * 9);
   if (depth > 3) return r() < 0.5 ? null : Math.floor(r() * 1e9);
   switch (k) {
-    case 0: return null;
-    case 1: return r() < 0.5 ? -1e308 * 10 : Math.floor(r() * 2 ** 53) * (r() < 0.5 ? -1 : 1);
-    case 2: return ODD[Math.floor(r() * ODD.length)].repeat(1 + Math.floor(r() * 20));
-    case 3: return 'x'.repeat(Math.floor(r() * 70_000));
-    case 4: return [makeValue(r, depth + 1), makeValue(r, depth + 1)];
-    case 5: return { [PROTO[Math.floor(r() * 3)]]: { polluted: true, isAdmin: true }, nested: makeValue(r, depth + 1) };
-    case 6: return r() < 0.5;
-    case 7: return { a: makeValue(r, depth + 1) };
-    default: return '';
+    case 0:
+      return null;
+    case 1:
+      return r() < 0.5 ? -1e308 * 10 : Math.floor(r() * 2 ** 53) * (r() < 0.5 ? -1 : 1);
+    case 2:
+      return ODD[Math.floor(r() * ODD.length)].repeat(1 + Math.floor(r() * 20));
+    case 3:
+      return 'x'.repeat(Math.floor(r() * 70_000));
+    case 4:
+      return [makeValue(r, depth + 1), makeValue(r, depth + 1)];
+    case 5:
+      return { [PROTO[Math.floor(r() * 3)]]: { polluted: true, isAdmin: true }, nested: makeValue(r, depth + 1) };
+    case 6:
+      return r() < 0.5;
+    case 7:
+      return { a: makeValue(r, depth + 1) };
+    default:
+      return '';
   }
 }
 
@@ -94,10 +128,14 @@ function makeBody(fields: Record<string, FieldType>, r: () => number): string {
   const names = Object.keys(fields);
   const kind = Math.floor(r() * 8);
   switch (kind) {
-    case 0: return ['{', '[', 'nul', '{"a":}', '\u0000\u0001', '"unterminated', '{"__proto__":', ')]}\''][Math.floor(r() * 8)];
-    case 1: return JSON.stringify([1, 'two', { three: 3 }].slice(0, 1 + Math.floor(r() * 3)));
-    case 2: return JSON.stringify([null, 0, -1, 'text', true][Math.floor(r() * 5)]);
-    case 3: return JSON.stringify({ ...{ [names[0]]: wrongFor(fields[names[0]], r) }, ...deep(2000) as object });
+    case 0:
+      return ['{', '[', 'nul', '{"a":}', '\u0000\u0001', '"unterminated', '{"__proto__":', ")]}'"][Math.floor(r() * 8)];
+    case 1:
+      return JSON.stringify([1, 'two', { three: 3 }].slice(0, 1 + Math.floor(r() * 3)));
+    case 2:
+      return JSON.stringify([null, 0, -1, 'text', true][Math.floor(r() * 5)]);
+    case 3:
+      return JSON.stringify({ ...{ [names[0]]: wrongFor(fields[names[0]], r) }, ...(deep(2000) as object) });
     case 4: {
       // Prototype-pollution keys spelled into the JSON text itself.
       const name = names[Math.floor(r() * names.length)];
@@ -114,13 +152,37 @@ function makeBody(fields: Record<string, FieldType>, r: () => number): string {
   }
 }
 
-const TABLES = ['users', 'sessions', 'seasons', 'subsystems', 'season_memberships', 'membership_subsystems', 'invitations', 'password_resets', 'records', 'record_revisions', 'record_links', 'record_calculations', 'attachments', 'comments', 'calculations', 'calculation_results', 'onboarding_items', 'onboarding_progress', 'mail_messages'];
+const TABLES = [
+  'users',
+  'sessions',
+  'seasons',
+  'subsystems',
+  'season_memberships',
+  'membership_subsystems',
+  'invitations',
+  'password_resets',
+  'records',
+  'record_revisions',
+  'record_links',
+  'record_calculations',
+  'attachments',
+  'comments',
+  'calculations',
+  'calculation_results',
+  'onboarding_items',
+  'onboarding_progress',
+  'mail_messages',
+];
 
 /** Everything stored except the audit log (which rightly records refused sign-ins). */
 function fingerprint(): string {
   const c = db().$client;
   const parts = TABLES.map((t) => `${t}:${(c.prepare(`SELECT count(*) AS n FROM ${t}`).get() as { n: number }).n}`);
-  const r = c.prepare('SELECT total(version) AS v, max(updated_at) AS u, max(reviewed_at) AS rv, group_concat(status) AS s FROM records').get();
+  const r = c
+    .prepare(
+      'SELECT total(version) AS v, max(updated_at) AS u, max(reviewed_at) AS rv, group_concat(status) AS s FROM records',
+    )
+    .get();
   const s = c.prepare('SELECT group_concat(name || phase || is_current) AS s FROM seasons').get();
   const u = c.prepare('SELECT group_concat(role || digest_opt_in) AS s FROM users').get();
   const sub = c.prepare('SELECT group_concat(name || summary) AS s FROM subsystems').get();
@@ -131,8 +193,13 @@ function fingerprint(): string {
 const routes = Object.entries(modules).flatMap(([file, mod]) => {
   const source = sources[file];
   if (!/readJson\(|formData\(|uploadAttachment\(/.test(source)) return []; // routes that read no body have nothing to fuzz
-  const path = file.replace('../../src/pages', '').replace(/\.ts$/, '').replace(/\/index$/, '');
-  return (['POST', 'PUT', 'PATCH', 'DELETE'] as Method[]).filter((m) => typeof mod[m] === 'function').map((m) => ({ key: `${m} ${path}`, method: m, mod }));
+  const path = file
+    .replace('../../src/pages', '')
+    .replace(/\.ts$/, '')
+    .replace(/\/index$/, '');
+  return (['POST', 'PUT', 'PATCH', 'DELETE'] as Method[])
+    .filter((m) => typeof mod[m] === 'function')
+    .map((m) => ({ key: `${m} ${path}`, method: m, mod }));
 });
 
 let s: Record<DemoRole, string>;
@@ -162,7 +229,11 @@ describe('fuzzing every write route that reads a body', () => {
     it(`${route.key}: ${BODIES} random bodies → only 4xx, no internals, nothing stored changes`, async () => {
       const r = rng([...route.key].reduce((a, ch) => a * 31 + ch.charCodeAt(0), 7) >>> 0);
       const fields = FIELDS[route.key];
-      const id = route.key.includes('/records/') ? 'demo-rec-2526-two-propellers' : route.key.includes('/seasons/') ? params.season : params.person;
+      const id = route.key.includes('/records/')
+        ? 'demo-rec-2526-two-propellers'
+        : route.key.includes('/seasons/')
+          ? params.season
+          : params.person;
       const p = { id, slug: 'hull', subsystem: 'hull', kind: 'propeller' };
       const statuses = new Map<number, number>();
       for (let i = 0; i < BODIES; i++) {
@@ -186,4 +257,3 @@ describe('fuzzing every write route that reads a body', () => {
     }, 120_000);
   }
 });
-

@@ -25,14 +25,23 @@ beforeAll(async () => {
 const GOOD_PASSWORD = 'lake-tern-ballast-42';
 
 async function invite(email: string, extra: Record<string, unknown> = {}) {
-  return call(invitationsRoute, 'POST', { body: { email, name: 'Ada Newcomer', role: 'member', ...extra }, session: s.lead });
+  return call(invitationsRoute, 'POST', {
+    body: { email, name: 'Ada Newcomer', role: 'member', ...extra },
+    session: s.lead,
+  });
 }
 
 describe('POST /api/invitations', () => {
   it('lets a lead invite: 201, the row stores only a hash, and the e-mail carries a single-use link', async () => {
     const res = await invite('Ada.Newcomer@Northmere.example', { subsystems: ['propulsion', 'battery'] });
     expect(res.status).toBe(201);
-    expect(res.body.invitation).toMatchObject({ email: 'ada.newcomer@northmere.example', name: 'Ada Newcomer', role: 'member', status: 'pending', subsystems: ['propulsion', 'battery'] });
+    expect(res.body.invitation).toMatchObject({
+      email: 'ada.newcomer@northmere.example',
+      name: 'Ada Newcomer',
+      role: 'member',
+      status: 'pending',
+      subsystems: ['propulsion', 'battery'],
+    });
     expect(res.body.mail.status).toBe('captured');
     expect(res.text).not.toMatch(/tokenHash|token_hash/);
     const expires = Date.parse(res.body.invitation.expiresAt) - Date.parse(res.body.invitation.createdAt);
@@ -62,7 +71,10 @@ describe('POST /api/invitations', () => {
   });
 
   it('names each bad field (400) and refuses unknown subsystems', async () => {
-    const res = await call(invitationsRoute, 'POST', { body: { email: 'nope', name: '', role: 'captain' }, session: s.lead });
+    const res = await call(invitationsRoute, 'POST', {
+      body: { email: 'nope', name: '', role: 'captain' },
+      session: s.lead,
+    });
     expect(res.status).toBe(400);
     expect(res.body.error.issues.map((i: { path: string }) => i.path).sort()).toEqual(['email', 'name', 'role']);
     const sub = await invite('someone.else@northmere.example', { subsystems: ['warp-drive'] });
@@ -71,13 +83,19 @@ describe('POST /api/invitations', () => {
   });
 
   it.each(['advisor', 'member', 'alumni'] as const)('refuses %s with 403', async (role) => {
-    const res = await call(invitationsRoute, 'POST', { body: { email: 'x@northmere.example', name: 'X Person', role: 'member' }, session: s[role] });
+    const res = await call(invitationsRoute, 'POST', {
+      body: { email: 'x@northmere.example', name: 'X Person', role: 'member' },
+      session: s[role],
+    });
     expect(res.status).toBe(403);
     expect((await call(invitationsRoute, 'GET', { session: s[role] })).status).toBe(403);
   });
 
   it('refuses a signed-out caller with 401', async () => {
-    expect((await call(invitationsRoute, 'POST', { body: { email: 'x@northmere.example', name: 'X', role: 'member' } })).status).toBe(401);
+    expect(
+      (await call(invitationsRoute, 'POST', { body: { email: 'x@northmere.example', name: 'X', role: 'member' } }))
+        .status,
+    ).toBe(401);
     expect((await call(invitationsRoute, 'GET')).status).toBe(401);
   });
 });
@@ -98,7 +116,9 @@ describe('POST /api/auth/accept-invitation', () => {
     const token = tokenIn(latestMailTo('bo.short@northmere.example').text);
     const short = await call(acceptRoute, 'POST', { body: { token, password: 'short-pw' } });
     expect(short.status).toBe(400);
-    expect(short.body.error.issues).toEqual([expect.objectContaining({ path: 'password', message: expect.stringContaining('12 characters') })]);
+    expect(short.body.error.issues).toEqual([
+      expect.objectContaining({ path: 'password', message: expect.stringContaining('12 characters') }),
+    ]);
     const common = await call(acceptRoute, 'POST', { body: { token, password: 'qwerty123456' } });
     expect(common.status).toBe(400);
     expect(common.body.error.issues[0].message).toContain('common passwords');
@@ -123,9 +143,19 @@ describe('POST /api/auth/accept-invitation', () => {
     const m = db().select().from(seasonMemberships).where(eq(seasonMemberships.userId, user.id)).all();
     expect(m).toHaveLength(1);
     expect(m[0]).toMatchObject({ seasonId: current.id, role: 'member' });
-    expect(db().select().from(membershipSubsystems).where(eq(membershipSubsystems.membershipId, m[0].id)).all().map((x) => x.subsystemSlug)).toEqual(['solar']);
+    expect(
+      db()
+        .select()
+        .from(membershipSubsystems)
+        .where(eq(membershipSubsystems.membershipId, m[0].id))
+        .all()
+        .map((x) => x.subsystemSlug),
+    ).toEqual(['solar']);
 
-    const signInAgain = await call(signIn, 'POST', { body: { email: 'cy.owner@northmere.example', password: GOOD_PASSWORD }, ip: '127.0.9.1' });
+    const signInAgain = await call(signIn, 'POST', {
+      body: { email: 'cy.owner@northmere.example', password: GOOD_PASSWORD },
+      ip: '127.0.9.1',
+    });
     expect(signInAgain.status).toBe(200);
 
     const log = await call(audit, 'GET', { session: s.lead, query: { action: 'invitation.' } });
@@ -153,7 +183,11 @@ describe('POST /api/auth/accept-invitation', () => {
   it('refuses an expired token (400 expired)', async () => {
     const created = await invite('ed.late@northmere.example');
     const token = tokenIn(latestMailTo('ed.late@northmere.example').text);
-    db().update(invitations).set({ expiresAt: new Date(Date.now() - 1000) }).where(eq(invitations.id, created.body.invitation.id)).run();
+    db()
+      .update(invitations)
+      .set({ expiresAt: new Date(Date.now() - 1000) })
+      .where(eq(invitations.id, created.body.invitation.id))
+      .run();
     const res = await call(acceptRoute, 'POST', { body: { token, password: GOOD_PASSWORD } });
     expect(res.status).toBe(400);
     expect(res.body.error.reason).toBe('expired');
@@ -166,7 +200,11 @@ describe('resend and revoke', () => {
     const created = await invite('fay.resend@northmere.example');
     const id = created.body.invitation.id;
     const oldToken = tokenIn(latestMailTo('fay.resend@northmere.example').text);
-    db().update(invitations).set({ expiresAt: new Date(Date.now() - 1000) }).where(eq(invitations.id, id)).run();
+    db()
+      .update(invitations)
+      .set({ expiresAt: new Date(Date.now() - 1000) })
+      .where(eq(invitations.id, id))
+      .run();
     const res = await call(resendRoute, 'POST', { params: { id }, session: s.lead });
     expect(res.status).toBe(200);
     expect(res.body.invitation.status).toBe('pending');

@@ -43,7 +43,9 @@ function startServer(): Promise<number> {
       });
     },
   });
-  return new Promise((resolve) => server.listen(0, '127.0.0.1', () => resolve((server.server.address() as AddressInfo).port)));
+  return new Promise((resolve) =>
+    server.listen(0, '127.0.0.1', () => resolve((server.server.address() as AddressInfo).port)),
+  );
 }
 
 function useSmtp(url: string) {
@@ -83,7 +85,10 @@ afterAll(async () => {
 
 describe('mail over SMTP', () => {
   it('delivers the invitation with a text and an HTML part, and records it as sent', async () => {
-    const res = await call(invitations, 'POST', { body: { email: 'smtp.person@northmere.example', name: 'Smtp Person', role: 'member' }, session: lead });
+    const res = await call(invitations, 'POST', {
+      body: { email: 'smtp.person@northmere.example', name: 'Smtp Person', role: 'member' },
+      session: lead,
+    });
     expect(res.status).toBe(201);
     expect(res.body.mail.status).toBe('sent');
     const msg = received.find((m) => m.to.includes('smtp.person@northmere.example'))!;
@@ -110,12 +115,17 @@ describe('mail over SMTP', () => {
     const closed = await startClosedPort();
     useSmtp(`smtp://127.0.0.1:${closed}`);
     const errors = vi.spyOn(console, 'error').mockImplementation(() => {});
-    const res = await call(invitations, 'POST', { body: { email: 'down.time@northmere.example', name: 'Down Time', role: 'advisor' }, session: lead });
+    const res = await call(invitations, 'POST', {
+      body: { email: 'down.time@northmere.example', name: 'Down Time', role: 'advisor' },
+      session: lead,
+    });
     expect(res.status).toBe(201);
     expect(res.body.mail.status).toBe('failed');
     expect(res.body.invitation.status).toBe('pending');
     expect(errors).toHaveBeenCalledTimes(1);
-    expect(String(errors.mock.calls[0][0])).toMatch(/mail .* to down\.time@northmere\.example was not sent over SMTP: .*kept in mail_messages as failed/i);
+    expect(String(errors.mock.calls[0][0])).toMatch(
+      /mail .* to down\.time@northmere\.example was not sent over SMTP: .*kept in mail_messages as failed/i,
+    );
     errors.mockRestore();
     const failed = db().select().from(mailMessages).where(eq(mailMessages.to, 'down.time@northmere.example')).get()!;
     expect(failed).toMatchObject({ transport: 'smtp', status: 'failed' });

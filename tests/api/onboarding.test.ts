@@ -19,7 +19,14 @@ describe('GET /api/guides', () => {
     expect(all.status).toBe(200);
     expect(all.body.guides.length).toBeGreaterThanOrEqual(10);
     expect(new Set(all.body.guides.map((g: { subsystem: string }) => g.subsystem)).size).toBeGreaterThanOrEqual(6);
-    for (const g of all.body.guides) expect(g).toMatchObject({ slug: expect.any(String), title: expect.any(String), url: `/guides/${g.slug}`, reviewedBy: expect.any(String), reviewedOn: expect.stringMatching(/^\d{4}-\d{2}-\d{2}$/) });
+    for (const g of all.body.guides)
+      expect(g).toMatchObject({
+        slug: expect.any(String),
+        title: expect.any(String),
+        url: `/guides/${g.slug}`,
+        reviewedBy: expect.any(String),
+        reviewedOn: expect.stringMatching(/^\d{4}-\d{2}-\d{2}$/),
+      });
     const prop = await call(guides, 'GET', { session: s.alumni, query: { subsystem: 'propulsion' } });
     expect(prop.body.guides.every((g: { subsystem: string }) => g.subsystem === 'propulsion')).toBe(true);
     expect((await call(guides, 'GET', { session: s.alumni, query: { subsystem: '../etc' } })).status).toBe(400);
@@ -40,21 +47,51 @@ describe('onboarding routes', () => {
     const r = await call(route, 'GET', { session: s.member, params: { subsystem: 'propulsion' } });
     expect(r.body.progress).toEqual({ done: 3, total: 8 });
     const next = r.body.items.find((i: { done: boolean }) => !i.done);
-    const tick = await call(progress, 'POST', { session: s.member, params: { subsystem: 'propulsion' }, body: { itemId: next.id, done: true } });
+    const tick = await call(progress, 'POST', {
+      session: s.member,
+      params: { subsystem: 'propulsion' },
+      body: { itemId: next.id, done: true },
+    });
     expect(tick.status).toBe(200);
     expect(tick.body).toEqual({ done: 4, total: 8 });
-    const untick = await call(progress, 'POST', { session: s.member, params: { subsystem: 'propulsion' }, body: { itemId: next.id, done: false } });
+    const untick = await call(progress, 'POST', {
+      session: s.member,
+      params: { subsystem: 'propulsion' },
+      body: { itemId: next.id, done: false },
+    });
     expect(untick.body).toEqual({ done: 3, total: 8 });
     const other = await call(route, 'GET', { session: s.alumni, params: { subsystem: 'propulsion' } });
     expect(other.body.progress.done).toBe(0);
-    expect((await call(progress, 'POST', { session: s.member, params: { subsystem: 'propulsion' }, body: { itemId: 'nope', done: true } })).status).toBe(404);
-    expect((await call(progress, 'POST', { session: s.member, params: { subsystem: 'cooling' }, body: { itemId: next.id, done: true } })).status).toBe(404);
+    expect(
+      (
+        await call(progress, 'POST', {
+          session: s.member,
+          params: { subsystem: 'propulsion' },
+          body: { itemId: 'nope', done: true },
+        })
+      ).status,
+    ).toBe(404);
+    expect(
+      (
+        await call(progress, 'POST', {
+          session: s.member,
+          params: { subsystem: 'cooling' },
+          body: { itemId: next.id, done: true },
+        })
+      ).status,
+    ).toBe(404);
   });
 
   it('advisors reorder a route; ticks survive the reorder', async () => {
     const before = (await call(route, 'GET', { session: s.member, params: { subsystem: 'propulsion' } })).body;
-    const reversed = [...before.items].reverse().map((i: { kind: string; ref: string }) => ({ kind: i.kind, ref: i.ref }));
-    const put = await call(route, 'PUT', { session: s.advisor, params: { subsystem: 'propulsion' }, body: { items: reversed } });
+    const reversed = [...before.items]
+      .reverse()
+      .map((i: { kind: string; ref: string }) => ({ kind: i.kind, ref: i.ref }));
+    const put = await call(route, 'PUT', {
+      session: s.advisor,
+      params: { subsystem: 'propulsion' },
+      body: { items: reversed },
+    });
     expect(put.status).toBe(200);
     const after = (await call(route, 'GET', { session: s.member, params: { subsystem: 'propulsion' } })).body;
     expect(after.items.map((i: { ref: string }) => i.ref)).toEqual(reversed.map((i) => i.ref));
@@ -65,12 +102,20 @@ describe('onboarding routes', () => {
     const bad = await call(route, 'PUT', {
       session: s.lead,
       params: { subsystem: 'hull' },
-      body: { items: [{ kind: 'guide', ref: 'hull-resistance-in-plain-terms' }, { kind: 'record', ref: 'no-such-record' }, { kind: 'guide', ref: 'hull-resistance-in-plain-terms' }] },
+      body: {
+        items: [
+          { kind: 'guide', ref: 'hull-resistance-in-plain-terms' },
+          { kind: 'record', ref: 'no-such-record' },
+          { kind: 'guide', ref: 'hull-resistance-in-plain-terms' },
+        ],
+      },
     });
     expect(bad.status).toBe(400);
     expect(bad.body.error.issues.map((i: { path: string }) => i.path).sort()).toEqual(['items.1.ref', 'items.2.ref']);
     for (const role of ['member', 'alumni'] as const) {
-      expect((await call(route, 'PUT', { session: s[role], params: { subsystem: 'hull' }, body: { items: [] } })).status).toBe(403);
+      expect(
+        (await call(route, 'PUT', { session: s[role], params: { subsystem: 'hull' }, body: { items: [] } })).status,
+      ).toBe(403);
     }
     expect((await call(route, 'GET', { session: s.member, params: { subsystem: 'rigging' } })).status).toBe(404);
   });

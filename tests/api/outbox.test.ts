@@ -14,7 +14,9 @@ describe('GET /api/outbox', () => {
   it('shows leads the captured mail, newest first, with both parts', async () => {
     for (const name of ['First Person', 'Second Person']) {
       const email = `${name.split(' ')[0].toLowerCase()}@northmere.example`;
-      expect((await call(invitations, 'POST', { body: { email, name, role: 'member' }, session: s.lead })).status).toBe(201);
+      expect((await call(invitations, 'POST', { body: { email, name, role: 'member' }, session: s.lead })).status).toBe(
+        201,
+      );
     }
     const res = await call(outbox, 'GET', { session: s.lead });
     expect(res.status).toBe(200);
@@ -28,7 +30,10 @@ describe('GET /api/outbox', () => {
   });
 
   it('escapes what people typed in the HTML part', async () => {
-    await call(invitations, 'POST', { body: { email: 'tag@northmere.example', name: '<b>Bold</b> Name', role: 'member' }, session: s.lead });
+    await call(invitations, 'POST', {
+      body: { email: 'tag@northmere.example', name: '<b>Bold</b> Name', role: 'member' },
+      session: s.lead,
+    });
     const res = await call(outbox, 'GET', { session: s.lead });
     expect(res.body.messages[0].html).toContain('&lt;b&gt;Bold&lt;/b&gt; Name');
     expect(res.body.messages[0].html).not.toContain('<b>Bold</b>');

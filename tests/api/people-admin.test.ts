@@ -28,16 +28,27 @@ describe('PATCH /api/people/{id}', () => {
     const current = res.body.person.seasons[0];
     expect(current.role).toBe('advisor');
     const log = await call(audit, 'GET', { session: s.lead, query: { action: 'person.role-change' } });
-    expect(log.body.entries[0]).toMatchObject({ action: 'person.role-change', target: `user:${id}`, actor: demoAccounts.lead });
+    expect(log.body.entries[0]).toMatchObject({
+      action: 'person.role-change',
+      target: `user:${id}`,
+      actor: demoAccounts.lead,
+    });
     expect(log.body.entries[0].detail).toMatchObject({ from: 'member', to: 'advisor' });
     await call(person, 'PATCH', { params: { id }, body: { role: 'member' }, session: s.lead });
   });
 
   it('replaces the current-season subsystems of a person', async () => {
     const id = idOf(demoAccounts.member);
-    const res = await call(person, 'PATCH', { params: { id }, body: { subsystems: ['cooling', 'telemetry', 'cooling'] }, session: s.lead });
+    const res = await call(person, 'PATCH', {
+      params: { id },
+      body: { subsystems: ['cooling', 'telemetry', 'cooling'] },
+      session: s.lead,
+    });
     expect(res.status).toBe(200);
-    expect(res.body.person.seasons[0].subsystems.map((x: { slug: string }) => x.slug).sort()).toEqual(['cooling', 'telemetry']);
+    expect(res.body.person.seasons[0].subsystems.map((x: { slug: string }) => x.slug).sort()).toEqual([
+      'cooling',
+      'telemetry',
+    ]);
     const cleared = await call(person, 'PATCH', { params: { id }, body: { subsystems: [] }, session: s.lead });
     expect(cleared.body.person.seasons[0].subsystems).toEqual([]);
     const bad = await call(person, 'PATCH', { params: { id }, body: { subsystems: ['warp-drive'] }, session: s.lead });
@@ -55,23 +66,39 @@ describe('PATCH /api/people/{id}', () => {
     expect(db().select().from(users).where(eq(users.id, lead)).get()!.role).toBe('lead');
 
     const advisor = idOf(demoAccounts.advisor);
-    expect((await call(person, 'PATCH', { params: { id: advisor }, body: { role: 'lead' }, session: s.lead })).status).toBe(200);
-    expect((await call(person, 'PATCH', { params: { id: lead }, body: { role: 'alumni' }, session: s.lead })).status).toBe(200);
+    expect(
+      (await call(person, 'PATCH', { params: { id: advisor }, body: { role: 'lead' }, session: s.lead })).status,
+    ).toBe(200);
+    expect(
+      (await call(person, 'PATCH', { params: { id: lead }, body: { role: 'alumni' }, session: s.lead })).status,
+    ).toBe(200);
     // The former lead's session now carries the new role: no more admin.
-    expect((await call(person, 'PATCH', { params: { id: advisor }, body: { role: 'member' }, session: s.lead })).status).toBe(403);
+    expect(
+      (await call(person, 'PATCH', { params: { id: advisor }, body: { role: 'member' }, session: s.lead })).status,
+    ).toBe(403);
     expect((await call(me, 'GET', { session: s.lead })).body.user.role).toBe('alumni');
     // Put things back for the other tests.
-    expect((await call(person, 'PATCH', { params: { id: lead }, body: { role: 'lead' }, session: s.advisor })).status).toBe(200);
-    expect((await call(person, 'PATCH', { params: { id: advisor }, body: { role: 'advisor' }, session: s.lead })).status).toBe(200);
+    expect(
+      (await call(person, 'PATCH', { params: { id: lead }, body: { role: 'lead' }, session: s.advisor })).status,
+    ).toBe(200);
+    expect(
+      (await call(person, 'PATCH', { params: { id: advisor }, body: { role: 'advisor' }, session: s.lead })).status,
+    ).toBe(200);
   });
 
   it('answers 400 to an empty patch, 404 to an unknown person, 403 to non-leads and 401 signed out', async () => {
     const id = idOf(demoAccounts.member);
     expect((await call(person, 'PATCH', { params: { id }, body: {}, session: s.lead })).status).toBe(400);
-    expect((await call(person, 'PATCH', { params: { id }, body: { role: 'captain' }, session: s.lead })).status).toBe(400);
-    expect((await call(person, 'PATCH', { params: { id: 'nobody' }, body: { role: 'member' }, session: s.lead })).status).toBe(404);
+    expect((await call(person, 'PATCH', { params: { id }, body: { role: 'captain' }, session: s.lead })).status).toBe(
+      400,
+    );
+    expect(
+      (await call(person, 'PATCH', { params: { id: 'nobody' }, body: { role: 'member' }, session: s.lead })).status,
+    ).toBe(404);
     for (const role of ['advisor', 'member', 'alumni'] as const) {
-      expect((await call(person, 'PATCH', { params: { id }, body: { role: 'lead' }, session: s[role] })).status).toBe(403);
+      expect((await call(person, 'PATCH', { params: { id }, body: { role: 'lead' }, session: s[role] })).status).toBe(
+        403,
+      );
     }
     expect((await call(person, 'PATCH', { params: { id }, body: { role: 'lead' } })).status).toBe(401);
   });

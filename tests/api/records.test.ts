@@ -24,7 +24,13 @@ beforeAll(async () => {
 });
 
 const doc = (text: string) => ({ type: 'doc', content: [{ type: 'paragraph', content: [{ type: 'text', text }] }] });
-const newDecision = (extra: object = {}) => ({ kind: 'decision', title: 'Use a 6 mm² main cable', subsystem: 'battery', body: templateFor('decision'), ...extra });
+const newDecision = (extra: object = {}) => ({
+  kind: 'decision',
+  title: 'Use a 6 mm² main cable',
+  subsystem: 'battery',
+  body: templateFor('decision'),
+  ...extra,
+});
 
 async function create(role: DemoRole = 'member', extra: object = {}) {
   const res = await call(recordsRoute, 'POST', { session: s[role], body: newDecision(extra) });
@@ -41,7 +47,10 @@ describe('listing', () => {
     const lessons = await call(recordsRoute, 'GET', { session: s.alumni, query: { kind: 'lesson', limit: '100' } });
     expect(lessons.body.records.every((r: { kind: string }) => r.kind === 'lesson')).toBe(true);
     const page = await call(recordsRoute, 'GET', { session: s.alumni, query: { limit: '10' } });
-    const next = await call(recordsRoute, 'GET', { session: s.alumni, query: { limit: '10', cursor: page.body.nextCursor } });
+    const next = await call(recordsRoute, 'GET', {
+      session: s.alumni,
+      query: { limit: '10', cursor: page.body.nextCursor },
+    });
     expect(next.body.records[0].id).not.toBe(page.body.records[0].id);
     // Pages follow on without overlap.
     const ids = new Set(page.body.records.map((r: { id: string }) => r.id));
@@ -55,7 +64,10 @@ describe('listing', () => {
 
 describe('creating', () => {
   it('a member creates a decision in the current season; it starts as a draft with revision 1', async () => {
-    const r = await create('member', { calculationIds: ['demo-calc-cable-battery-main-2526'], relatedRecordIds: ['demo-rec-2526-main-cable-size'] });
+    const r = await create('member', {
+      calculationIds: ['demo-calc-cable-battery-main-2526'],
+      relatedRecordIds: ['demo-rec-2526-main-cable-size'],
+    });
     expect(r).toMatchObject({ kind: 'decision', status: 'draft', version: 1, season: '2025–26', subsystem: 'battery' });
     expect(r.bodyHtml).toContain('<h2>Context</h2>');
     expect(r.calculations.map((c: { id: string }) => c.id)).toEqual(['demo-calc-cable-battery-main-2526']);
@@ -68,9 +80,27 @@ describe('creating', () => {
     const body = {
       type: 'doc',
       content: [
-        { type: 'paragraph', attrs: { onclick: 'alert(1)', style: 'x' }, content: [{ type: 'text', text: '<script>alert("x")</script>' }] },
-        { type: 'paragraph', content: [{ type: 'text', text: 'bad link', marks: [{ type: 'link', attrs: { href: 'javascript:alert(1)' } }] }] },
-        { type: 'paragraph', content: [{ type: 'text', text: 'good link', marks: [{ type: 'link', attrs: { href: 'https://ittc.info/', onmouseover: 'x' } }] }] },
+        {
+          type: 'paragraph',
+          attrs: { onclick: 'alert(1)', style: 'x' },
+          content: [{ type: 'text', text: '<script>alert("x")</script>' }],
+        },
+        {
+          type: 'paragraph',
+          content: [
+            { type: 'text', text: 'bad link', marks: [{ type: 'link', attrs: { href: 'javascript:alert(1)' } }] },
+          ],
+        },
+        {
+          type: 'paragraph',
+          content: [
+            {
+              type: 'text',
+              text: 'good link',
+              marks: [{ type: 'link', attrs: { href: 'https://ittc.info/', onmouseover: 'x' } }],
+            },
+          ],
+        },
       ],
     };
     const r = await create('member', { body });
@@ -82,7 +112,10 @@ describe('creating', () => {
   });
 
   it('400 for a body that is not an editor document, a missing title, or links to nothing', async () => {
-    const bad = await call(recordsRoute, 'POST', { session: s.member, body: newDecision({ body: { type: 'doc', content: [{ type: 'iframe' }] } }) });
+    const bad = await call(recordsRoute, 'POST', {
+      session: s.member,
+      body: newDecision({ body: { type: 'doc', content: [{ type: 'iframe' }] } }),
+    });
     expect(bad.status).toBe(400);
     expect(bad.body.error.issues[0].path).toBe('body');
     const deep: Record<string, unknown> = { type: 'doc', content: [] };
@@ -92,11 +125,16 @@ describe('creating', () => {
       (cur.content as unknown[]).push(next);
       cur = next;
     }
-    expect((await call(recordsRoute, 'POST', { session: s.member, body: newDecision({ body: deep }) })).status).toBe(400);
+    expect((await call(recordsRoute, 'POST', { session: s.member, body: newDecision({ body: deep }) })).status).toBe(
+      400,
+    );
     const noTitle = await call(recordsRoute, 'POST', { session: s.member, body: newDecision({ title: '' }) });
     expect(noTitle.status).toBe(400);
     expect(noTitle.body.error.issues[0].path).toBe('title');
-    const ghost = await call(recordsRoute, 'POST', { session: s.member, body: newDecision({ calculationIds: ['nope'] }) });
+    const ghost = await call(recordsRoute, 'POST', {
+      session: s.member,
+      body: newDecision({ calculationIds: ['nope'] }),
+    });
     expect(ghost.status).toBe(400);
     expect(ghost.body.error.issues[0].path).toBe('calculationIds');
   });
@@ -105,7 +143,9 @@ describe('creating', () => {
     for (const role of ['alumni', 'advisor'] as const) {
       expect((await call(recordsRoute, 'POST', { session: s[role], body: newDecision() })).status).toBe(403);
     }
-    expect((await call(recordsRoute, 'POST', { session: s.member, body: newDecision({ seasonId: pastSeasonId }) })).status).toBe(403);
+    expect(
+      (await call(recordsRoute, 'POST', { session: s.member, body: newDecision({ seasonId: pastSeasonId }) })).status,
+    ).toBe(403);
     const lead = await call(recordsRoute, 'POST', { session: s.lead, body: newDecision({ seasonId: pastSeasonId }) });
     expect(lead.status).toBe(201);
   });
@@ -114,11 +154,19 @@ describe('creating', () => {
 describe('editing without losing work', () => {
   it('PATCH with the current version saves and makes a revision; a stale version gets 409 with the current record', async () => {
     const r = await create();
-    const ok = await call(recordRoute, 'PATCH', { session: s.member, params: { id: r.id }, body: { version: 1, title: 'Use a 10 mm² main cable', body: doc('Heavier but cooler.') } });
+    const ok = await call(recordRoute, 'PATCH', {
+      session: s.member,
+      params: { id: r.id },
+      body: { version: 1, title: 'Use a 10 mm² main cable', body: doc('Heavier but cooler.') },
+    });
     expect(ok.status).toBe(200);
     expect(ok.body.record.version).toBe(2);
     expect(ok.body.record.bodyHtml).toBe('<p>Heavier but cooler.</p>');
-    const stale = await call(recordRoute, 'PATCH', { session: s.lead, params: { id: r.id }, body: { version: 1, title: 'Lost?' } });
+    const stale = await call(recordRoute, 'PATCH', {
+      session: s.lead,
+      params: { id: r.id },
+      body: { version: 1, title: 'Lost?' },
+    });
     expect(stale.status).toBe(409);
     expect(stale.body.error.code).toBe('conflict');
     expect(stale.body.error.current.version).toBe(2);
@@ -131,7 +179,13 @@ describe('editing without losing work', () => {
   it('20 simultaneous edits of one version: exactly one wins, the rest get 409, one revision is added', async () => {
     const r = await create();
     const results = await Promise.all(
-      Array.from({ length: 20 }, (_, i) => call(recordRoute, 'PATCH', { session: s.member, params: { id: r.id }, body: { version: 1, title: `Concurrent edit ${i}` } })),
+      Array.from({ length: 20 }, (_, i) =>
+        call(recordRoute, 'PATCH', {
+          session: s.member,
+          params: { id: r.id },
+          body: { version: 1, title: `Concurrent edit ${i}` },
+        }),
+      ),
     );
     const statuses = results.map((x) => x.status).sort();
     expect(statuses.filter((x) => x === 200)).toHaveLength(1);
@@ -141,44 +195,91 @@ describe('editing without losing work', () => {
   });
 
   it('members may not edit a past season’s record; alumni may not edit at all; 404 for no record', async () => {
-    const past = await call(recordRoute, 'GET', { session: s.member, params: { id: 'demo-rec-2425-single-propeller' } });
+    const past = await call(recordRoute, 'GET', {
+      session: s.member,
+      params: { id: 'demo-rec-2425-single-propeller' },
+    });
     const v = past.body.record.version;
-    expect((await call(recordRoute, 'PATCH', { session: s.member, params: { id: 'demo-rec-2425-single-propeller' }, body: { version: v, title: 'Rewrite history' } })).status).toBe(403);
+    expect(
+      (
+        await call(recordRoute, 'PATCH', {
+          session: s.member,
+          params: { id: 'demo-rec-2425-single-propeller' },
+          body: { version: v, title: 'Rewrite history' },
+        })
+      ).status,
+    ).toBe(403);
     const r = await create();
-    expect((await call(recordRoute, 'PATCH', { session: s.alumni, params: { id: r.id }, body: { version: 1, title: 'Nope' } })).status).toBe(403);
-    expect((await call(recordRoute, 'PATCH', { session: s.member, params: { id: 'nope' }, body: { version: 1, title: 'Nope' } })).status).toBe(404);
-    expect((await call(recordRoute, 'PATCH', { session: s.member, params: { id: r.id }, body: { title: 'No version' } })).status).toBe(400);
+    expect(
+      (
+        await call(recordRoute, 'PATCH', {
+          session: s.alumni,
+          params: { id: r.id },
+          body: { version: 1, title: 'Nope' },
+        })
+      ).status,
+    ).toBe(403);
+    expect(
+      (
+        await call(recordRoute, 'PATCH', {
+          session: s.member,
+          params: { id: 'nope' },
+          body: { version: 1, title: 'Nope' },
+        })
+      ).status,
+    ).toBe(404);
+    expect(
+      (await call(recordRoute, 'PATCH', { session: s.member, params: { id: r.id }, body: { title: 'No version' } }))
+        .status,
+    ).toBe(400);
   });
 });
 
 describe('status and lineage', () => {
   it('follows draft → proposed → accepted; refuses illegal moves with 409', async () => {
     const r = await create();
-    expect((await call(status, 'POST', { session: s.member, params: { id: r.id }, body: { status: 'accepted' } })).status).toBe(409);
-    expect((await call(status, 'POST', { session: s.member, params: { id: r.id }, body: { status: 'proposed' } })).status).toBe(200);
+    expect(
+      (await call(status, 'POST', { session: s.member, params: { id: r.id }, body: { status: 'accepted' } })).status,
+    ).toBe(409);
+    expect(
+      (await call(status, 'POST', { session: s.member, params: { id: r.id }, body: { status: 'proposed' } })).status,
+    ).toBe(200);
     const acc = await call(status, 'POST', { session: s.member, params: { id: r.id }, body: { status: 'accepted' } });
     expect(acc.body.record.status).toBe('accepted');
-    expect((await call(status, 'POST', { session: s.member, params: { id: r.id }, body: { status: 'open' } })).status).toBe(400);
+    expect(
+      (await call(status, 'POST', { session: s.member, params: { id: r.id }, body: { status: 'open' } })).status,
+    ).toBe(400);
   });
 
   it('superseding needs the replacing record, and both show the link', async () => {
     const old = await create();
     await call(status, 'POST', { session: s.member, params: { id: old.id }, body: { status: 'proposed' } });
     await call(status, 'POST', { session: s.member, params: { id: old.id }, body: { status: 'accepted' } });
-    const missing = await call(status, 'POST', { session: s.member, params: { id: old.id }, body: { status: 'superseded' } });
+    const missing = await call(status, 'POST', {
+      session: s.member,
+      params: { id: old.id },
+      body: { status: 'superseded' },
+    });
     expect(missing.status).toBe(400);
     expect(missing.body.error.issues[0].path).toBe('supersededBy');
     const newer = await create('member', { title: 'Use a 10 mm² main cable after all' });
-    const sup = await call(status, 'POST', { session: s.member, params: { id: old.id }, body: { status: 'superseded', supersededBy: newer.id } });
+    const sup = await call(status, 'POST', {
+      session: s.member,
+      params: { id: old.id },
+      body: { status: 'superseded', supersededBy: newer.id },
+    });
     expect(sup.status).toBe(200);
     expect(sup.body.record.supersededBy.map((x: { id: string }) => x.id)).toEqual([newer.id]);
     const n = await call(recordRoute, 'GET', { session: s.alumni, params: { id: newer.id } });
     expect(n.body.record.supersedes.map((x: { id: string }) => x.id)).toEqual([old.id]);
-    expect((await call(status, 'POST', { session: s.member, params: { id: old.id }, body: { status: 'accepted' } })).status).toBe(409);
+    expect(
+      (await call(status, 'POST', { session: s.member, params: { id: old.id }, body: { status: 'accepted' } })).status,
+    ).toBe(409);
   });
 
   it('the demo lineage: the 2025–26 two-propeller decision supersedes 2024–25’s single propeller', async () => {
-    const r = (await call(recordRoute, 'GET', { session: s.alumni, params: { id: 'demo-rec-2425-single-propeller' } })).body.record;
+    const r = (await call(recordRoute, 'GET', { session: s.alumni, params: { id: 'demo-rec-2425-single-propeller' } }))
+      .body.record;
     expect(r.status).toBe('superseded');
     expect(r.supersededBy.map((x: { id: string }) => x.id)).toContain('demo-rec-2526-two-propellers');
   });
@@ -188,27 +289,47 @@ describe('review and comments', () => {
   it('an advisor marks the current version reviewed; members may not', async () => {
     const r = await create();
     expect((await call(review, 'POST', { session: s.member, params: { id: r.id }, body: {} })).status).toBe(403);
-    const ok = await call(review, 'POST', { session: s.advisor, params: { id: r.id }, body: { note: 'Check the fuse rating too.' } });
+    const ok = await call(review, 'POST', {
+      session: s.advisor,
+      params: { id: r.id },
+      body: { note: 'Check the fuse rating too.' },
+    });
     expect(ok.status).toBe(200);
-    expect(ok.body.record.reviewed).toMatchObject({ by: 'Dr. Felix Arnaud', version: 1, current: true, note: 'Check the fuse rating too.' });
+    expect(ok.body.record.reviewed).toMatchObject({
+      by: 'Dr. Felix Arnaud',
+      version: 1,
+      current: true,
+      note: 'Check the fuse rating too.',
+    });
   });
 
   it('alumni answer questions in comments; empty comments are refused', async () => {
     const r = await create();
-    const q = await call(commentsRoute, 'POST', { session: s.member, params: { id: r.id }, body: { body: 'Why not aluminium?' } });
+    const q = await call(commentsRoute, 'POST', {
+      session: s.member,
+      params: { id: r.id },
+      body: { body: 'Why not aluminium?' },
+    });
     expect(q.status).toBe(201);
-    const a = await call(commentsRoute, 'POST', { session: s.alumni, params: { id: r.id }, body: { body: 'We tried in 2024: the lugs corroded.', parentId: q.body.comment.id } });
+    const a = await call(commentsRoute, 'POST', {
+      session: s.alumni,
+      params: { id: r.id },
+      body: { body: 'We tried in 2024: the lugs corroded.', parentId: q.body.comment.id },
+    });
     expect(a.status).toBe(201);
     const list = await call(commentsRoute, 'GET', { session: s.advisor, params: { id: r.id } });
     expect(list.body.comments.map((c: { author: string }) => c.author)).toEqual(['Jonas Lindqvist', 'Priya Raman']);
-    expect((await call(commentsRoute, 'POST', { session: s.alumni, params: { id: r.id }, body: { body: '   ' } })).status).toBe(400);
+    expect(
+      (await call(commentsRoute, 'POST', { session: s.alumni, params: { id: r.id }, body: { body: '   ' } })).status,
+    ).toBe(400);
     expect((await call(commentsRoute, 'POST', { params: { id: r.id }, body: { body: 'hi' } })).status).toBe(401);
   });
 
   it('every write is audited', async () => {
     const res = await call(audit, 'GET', { session: s.lead, query: { limit: '200', action: 'record.' } });
     const actions = new Set(res.body.entries.map((e: { action: string }) => e.action));
-    for (const a of ['record.create', 'record.update', 'record.status', 'record.review', 'record.comment']) expect(actions).toContain(a);
+    for (const a of ['record.create', 'record.update', 'record.status', 'record.review', 'record.comment'])
+      expect(actions).toContain(a);
   });
 });
 
@@ -224,7 +345,12 @@ describe('attachments', () => {
     const r = await create();
     const up = await call(upload, 'POST', { session: s.member, params: { id: r.id }, rawBody: form(png, 'plot.png') });
     expect(up.status).toBe(201);
-    expect(up.body.attachment).toMatchObject({ fileName: 'plot.png', contentType: 'image/png', size: png.length, isImage: true });
+    expect(up.body.attachment).toMatchObject({
+      fileName: 'plot.png',
+      contentType: 'image/png',
+      size: png.length,
+      isImage: true,
+    });
     const id = up.body.attachment.id;
     expect((await call(download, 'GET', { params: { id } })).status).toBe(401);
     const res = await call(download, 'GET', { session: s.alumni, params: { id } });
@@ -248,14 +374,26 @@ describe('attachments', () => {
   it('415 for a disguised binary, 413 over the size limit, 403 for alumni, 400 without a file', async () => {
     const r = await create();
     const exe = new Uint8Array([0x4d, 0x5a, 0x90, 0x00, 0x03, 0x00, 0x00, 0x00]);
-    const bad = await call(upload, 'POST', { session: s.member, params: { id: r.id }, rawBody: form(exe, 'photo.png', 'image/png') });
+    const bad = await call(upload, 'POST', {
+      session: s.member,
+      params: { id: r.id },
+      rawBody: form(exe, 'photo.png', 'image/png'),
+    });
     expect(bad.status).toBe(415);
     expect(bad.body.error.code).toBe('unsupported_type');
     const big = new Uint8Array(20 * 1024 * 1024 + 10);
     big.set([0x25, 0x50, 0x44, 0x46, 0x2d]);
-    const tooBig = await call(upload, 'POST', { session: s.member, params: { id: r.id }, rawBody: form(big, 'big.pdf') });
+    const tooBig = await call(upload, 'POST', {
+      session: s.member,
+      params: { id: r.id },
+      rawBody: form(big, 'big.pdf'),
+    });
     expect(tooBig.status).toBe(413);
-    expect((await call(upload, 'POST', { session: s.alumni, params: { id: r.id }, rawBody: form(png, 'plot.png') })).status).toBe(403);
-    expect((await call(upload, 'POST', { session: s.member, params: { id: r.id }, rawBody: new FormData() })).status).toBe(400);
+    expect(
+      (await call(upload, 'POST', { session: s.alumni, params: { id: r.id }, rawBody: form(png, 'plot.png') })).status,
+    ).toBe(403);
+    expect(
+      (await call(upload, 'POST', { session: s.member, params: { id: r.id }, rawBody: new FormData() })).status,
+    ).toBe(400);
   });
 });

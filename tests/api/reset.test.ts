@@ -24,7 +24,11 @@ describe('POST /api/auth/request-reset', () => {
     const mail = latestMailTo(demoAccounts.advisor);
     expect(mail.subject).toBe('Reset your Wakebook password');
     expect(new URL(linkIn(mail.text)).pathname).toMatch(/^\/reset\/[A-Za-z0-9_-]{20,}$/);
-    const row = db().select().from(passwordResets).where(eq(passwordResets.tokenHash, hashToken(tokenIn(mail.text)))).get()!;
+    const row = db()
+      .select()
+      .from(passwordResets)
+      .where(eq(passwordResets.tokenHash, hashToken(tokenIn(mail.text))))
+      .get()!;
     expect(row.expiresAt.getTime() - row.createdAt.getTime()).toBe(3600 * 1000);
   });
 
@@ -57,7 +61,10 @@ describe('POST /api/auth/request-reset', () => {
 
   it('throttles many requests from one address across accounts', async () => {
     const statuses: number[] = [];
-    for (let i = 0; i < 11; i++) statuses.push((await call(requestReset, 'POST', { body: { email: `x${i}@northmere.example` }, ip: '127.0.7.7' })).status);
+    for (let i = 0; i < 11; i++)
+      statuses.push(
+        (await call(requestReset, 'POST', { body: { email: `x${i}@northmere.example` }, ip: '127.0.7.7' })).status,
+      );
     expect(statuses.filter((x) => x === 202)).toHaveLength(10);
     expect(statuses[10]).toBe(429);
     resetByAddress.clear('127.0.7.7');
@@ -84,9 +91,15 @@ describe('POST /api/auth/reset', () => {
     expect((await call(me, 'GET', { session: a })).status).toBe(401);
     expect((await call(me, 'GET', { session: b })).status).toBe(401);
 
-    const old = await call(signIn, 'POST', { body: { email: demoAccounts.lead, password: 'wakebook-demo' }, ip: '127.0.8.2' });
+    const old = await call(signIn, 'POST', {
+      body: { email: demoAccounts.lead, password: 'wakebook-demo' },
+      ip: '127.0.8.2',
+    });
     expect(old.status).toBe(401);
-    const fresh = await call(signIn, 'POST', { body: { email: demoAccounts.lead, password: NEW_PASSWORD }, ip: '127.0.8.3' });
+    const fresh = await call(signIn, 'POST', {
+      body: { email: demoAccounts.lead, password: NEW_PASSWORD },
+      ip: '127.0.8.3',
+    });
     expect(fresh.status).toBe(200);
 
     const again = await call(reset, 'POST', { body: { token, password: 'another-long-pass-99' } });
@@ -101,14 +114,20 @@ describe('POST /api/auth/reset', () => {
     const second = tokenIn(latestMailTo(demoAccounts.alumni).text);
     expect(second).not.toBe(first);
     expect((await call(reset, 'POST', { body: { token: second, password: NEW_PASSWORD } })).status).toBe(204);
-    expect((await call(reset, 'POST', { body: { token: first, password: NEW_PASSWORD } })).body.error.reason).toBe('used');
+    expect((await call(reset, 'POST', { body: { token: first, password: NEW_PASSWORD } })).body.error.reason).toBe(
+      'used',
+    );
   });
 
   it('refuses an expired link (400 expired) and one never issued (404)', async () => {
     resetByAccount.clear(demoAccounts.advisor);
     await call(requestReset, 'POST', { body: { email: demoAccounts.advisor }, ip: '127.0.8.6' });
     const token = tokenIn(latestMailTo(demoAccounts.advisor).text);
-    db().update(passwordResets).set({ expiresAt: new Date(Date.now() - 1) }).where(eq(passwordResets.tokenHash, hashToken(token))).run();
+    db()
+      .update(passwordResets)
+      .set({ expiresAt: new Date(Date.now() - 1) })
+      .where(eq(passwordResets.tokenHash, hashToken(token)))
+      .run();
     const expired = await call(reset, 'POST', { body: { token, password: NEW_PASSWORD } });
     expect(expired.status).toBe(400);
     expect(expired.body.error.reason).toBe('expired');

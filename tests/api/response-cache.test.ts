@@ -9,7 +9,14 @@ import * as me from '../../src/pages/api/me';
 import { db } from '../../src/lib/server/db/client';
 import { currentVersions, dependencies } from '../../src/lib/server/db/changes';
 import * as calculationRoute from '../../src/pages/api/calculations/[id]/index';
-import { cacheKey, cached, cacheStats, clearResponseCache, MAX_AGE_MS, store } from '../../src/lib/server/response-cache';
+import {
+  cacheKey,
+  cached,
+  cacheStats,
+  clearResponseCache,
+  MAX_AGE_MS,
+  store,
+} from '../../src/lib/server/response-cache';
 import { memoUntilWrite } from '../../src/lib/server/memo';
 
 let s: Record<DemoRole, string>;
@@ -35,12 +42,20 @@ describe('response cache', () => {
 
   it('a write anywhere makes the next read render again and show it', async () => {
     await call(recordRoute, 'GET', { session: s.member, params: { id: ID }, path });
-    const posted = await call(commentsRoute, 'POST', { session: s.lead, params: { id: ID }, body: { body: 'Does the cache see this?' } });
+    const posted = await call(commentsRoute, 'POST', {
+      session: s.lead,
+      params: { id: ID },
+      body: { body: 'Does the cache see this?' },
+    });
     expect(posted.status).toBe(201);
     const hits = cacheStats().hits;
     const after = await call(recordRoute, 'GET', { session: s.member, params: { id: ID }, path });
     expect(cacheStats().hits).toBe(hits);
-    const comments = await call(commentsRoute, 'GET', { session: s.member, params: { id: ID }, path: `${path}/comments` });
+    const comments = await call(commentsRoute, 'GET', {
+      session: s.member,
+      params: { id: ID },
+      path: `${path}/comments`,
+    });
     expect(after.body.record.commentCount).toBe(comments.body.comments.length);
     expect(comments.body.comments.map((c: { body: string }) => c.body)).toContain('Does the cache see this?');
   });
@@ -64,7 +79,11 @@ describe('response cache', () => {
   });
 
   it('refusals are not stored; the next allowed read is rendered for its own person', async () => {
-    const missing = await call(recordRoute, 'GET', { session: s.member, params: { id: 'no-such-record' }, path: '/api/records/no-such-record' });
+    const missing = await call(recordRoute, 'GET', {
+      session: s.member,
+      params: { id: 'no-such-record' },
+      path: '/api/records/no-such-record',
+    });
     expect(missing.status).toBe(404);
     expect(cacheStats().entries).toBe(0);
     const signedOut = await call(recordRoute, 'GET', { params: { id: ID }, path });
@@ -75,7 +94,12 @@ describe('response cache', () => {
     const key = 'user\u0000/x';
     const version = dependencies(currentVersions(), ['users']);
     const t0 = Date.now();
-    const out = await store(key, version, new Response('hello', { status: 200, headers: { 'set-cookie': 'a=b', 'x-kept': '1' } }), t0);
+    const out = await store(
+      key,
+      version,
+      new Response('hello', { status: 200, headers: { 'set-cookie': 'a=b', 'x-kept': '1' } }),
+      t0,
+    );
     expect(await out.text()).toBe('hello');
     const hit = cached(key, t0 + 1000);
     expect(hit && (await hit.text())).toBe('hello');
@@ -128,7 +152,11 @@ describe('invalidation follows the tables an answer read', () => {
     const calc1 = await call(calculationRoute, 'GET', { session: s.member, params: { id: CALC }, path: calcPath });
     const rec1 = await call(recordRoute, 'GET', { session: s.member, params: { id: ID }, path });
     expect(calc1.status).toBe(200);
-    const posted = await call(commentsRoute, 'POST', { session: s.lead, params: { id: ID }, body: { body: 'Only the record changes.' } });
+    const posted = await call(commentsRoute, 'POST', {
+      session: s.lead,
+      params: { id: ID },
+      body: { body: 'Only the record changes.' },
+    });
     expect(posted.status).toBe(201);
     const hits = cacheStats().hits;
     const calc2 = await call(calculationRoute, 'GET', { session: s.member, params: { id: CALC }, path: calcPath });

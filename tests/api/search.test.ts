@@ -30,7 +30,14 @@ async function search(params: Record<string, string | number>, role: DemoRole = 
   const query = Object.fromEntries(Object.entries(params).map(([k, v]) => [k, String(v)]));
   const res = await call(searchRoute, 'GET', { session: s[role], query });
   expect(res.status, res.text).toBe(200);
-  return res.body as { hits: Hit[]; total: number; totalCapped: boolean; corrections: { from: string; to: string[] }[]; unmatched: string[]; tookMs: number };
+  return res.body as {
+    hits: Hit[];
+    total: number;
+    totalCapped: boolean;
+    corrections: { from: string; to: string[] }[];
+    unmatched: string[];
+    tookMs: number;
+  };
 }
 
 const doc = (text: string) => ({ type: 'doc', content: [{ type: 'paragraph', content: [{ type: 'text', text }] }] });
@@ -46,7 +53,9 @@ describe('GET /api/search', () => {
       expect(typeof body.total).toBe('number');
       expect(typeof body.tookMs).toBe('number');
       for (const h of body.hits) {
-        expect(Object.keys(h)).toEqual(expect.arrayContaining(['type', 'id', 'title', 'snippet', 'subsystem', 'season', 'url', 'score']));
+        expect(Object.keys(h)).toEqual(
+          expect.arrayContaining(['type', 'id', 'title', 'snippet', 'subsystem', 'season', 'url', 'score']),
+        );
         expect(['guide', 'decision', 'lesson', 'calculation']).toContain(h.type);
       }
     }
@@ -71,7 +80,9 @@ describe('GET /api/search', () => {
     }
 
     const prefix = await search({ q: 'vent', limit: 50 });
-    expect(prefix.hits.map((h) => h.id)).toEqual(expect.arrayContaining(['demo-rec-2425-prop-ventilation-slalom', 'demo-rec-2526-sprint-prop-ventilation-launch']));
+    expect(prefix.hits.map((h) => h.id)).toEqual(
+      expect.arrayContaining(['demo-rec-2425-prop-ventilation-slalom', 'demo-rec-2526-sprint-prop-ventilation-launch']),
+    );
     expect(prefix.hits.some((h) => /<mark>Ventilation<\/mark>|<mark>ventilat/i.test(h.snippet + h.title))).toBe(true);
   });
 
@@ -82,7 +93,10 @@ describe('GET /api/search', () => {
     const battery = await search({ q: 'cell', subsystem: 'battery', limit: 50 });
     expect(battery.hits.length).toBeGreaterThan(0);
     expect(battery.hits.every((h) => h.subsystem === 'battery')).toBe(true);
-    const seasons = (await call(seasonsRoute, 'GET', { session: s.member })).body.seasons as { id: string; name: string }[];
+    const seasons = (await call(seasonsRoute, 'GET', { session: s.member })).body.seasons as {
+      id: string;
+      name: string;
+    }[];
     const past = seasons.find((x) => x.name === '2024–25')!;
     const byName = await search({ q: 'propeller', season: '2024–25', limit: 50 });
     const byId = await search({ q: 'propeller', season: past.id, limit: 50 });
@@ -100,9 +114,37 @@ describe('GET /api/search', () => {
 
   it('odd queries answer 200 or 400, never 5xx', async () => {
     const odd = [
-      '', ' ', 'a', '"', '""', '"unbalanced', 'AND', 'OR NOT', 'NEAR(prop vent, 2)', '*', 'prop*', '^prop', 'title:prop', '{title}: x',
-      '-', 'prop -vent', '(((', ')', '\\', '\u0000', '\u200b', '🚤⚡', 'שלום', '日本語', 'Ｆｕｌｌ', 'naïve café', '%', "'; DROP TABLE records; --",
-      'x'.repeat(499), 'x '.repeat(250), 'x'.repeat(5000),
+      '',
+      ' ',
+      'a',
+      '"',
+      '""',
+      '"unbalanced',
+      'AND',
+      'OR NOT',
+      'NEAR(prop vent, 2)',
+      '*',
+      'prop*',
+      '^prop',
+      'title:prop',
+      '{title}: x',
+      '-',
+      'prop -vent',
+      '(((',
+      ')',
+      '\\',
+      '\u0000',
+      '\u200b',
+      '🚤⚡',
+      'שלום',
+      '日本語',
+      'Ｆｕｌｌ',
+      'naïve café',
+      '%',
+      "'; DROP TABLE records; --",
+      'x'.repeat(499),
+      'x '.repeat(250),
+      'x'.repeat(5000),
     ];
     for (const q of odd) {
       const res = await call(searchRoute, 'GET', { session: s.member, query: { q } });
@@ -110,7 +152,13 @@ describe('GET /api/search', () => {
       if (res.status === 400) expect(res.body.error.code).toBe('invalid_input');
     }
     expect((await call(searchRoute, 'GET', { session: s.member, query: { q: 'x'.repeat(5000) } })).status).toBe(400);
-    const bad: Record<string, string>[] = [{ q: 'prop', type: 'memo' }, { q: 'prop', limit: '0' }, { q: 'prop', limit: '500' }, { q: 'prop', offset: '-1' }, { q: 'prop', subsystem: '../x' }];
+    const bad: Record<string, string>[] = [
+      { q: 'prop', type: 'memo' },
+      { q: 'prop', limit: '0' },
+      { q: 'prop', limit: '500' },
+      { q: 'prop', offset: '-1' },
+      { q: 'prop', subsystem: '../x' },
+    ];
     for (const query of bad) {
       const res = await call(searchRoute, 'GET', { session: s.member, query });
       expect(res.status, JSON.stringify(query)).toBe(400);
@@ -124,7 +172,12 @@ describe('fresh after writes through the real routes', () => {
   it('a new record is found at once, also by a typo of its new word; an edit moves it to its new words', async () => {
     const created = await call(recordsRoute, 'POST', {
       session: s.member,
-      body: { kind: 'decision', title: 'Quokkaline coating for the pod', subsystem: 'propulsion', body: doc('The zanthoxylum primer keeps weed off the pod.') },
+      body: {
+        kind: 'decision',
+        title: 'Quokkaline coating for the pod',
+        subsystem: 'propulsion',
+        body: doc('The zanthoxylum primer keeps weed off the pod.'),
+      },
     });
     expect(created.status).toBe(201);
     const id = created.body.record.id as string;
@@ -134,7 +187,11 @@ describe('fresh after writes through the real routes', () => {
     expect(typo.corrections[0]?.to).toContain('zanthoxylum');
     expect(typo.hits.map((h) => h.id)).toEqual([id]);
 
-    const edited = await call(recordRoute, 'PATCH', { session: s.member, params: { id }, body: { version: 1, title: 'Wallabine coating for the pod' } });
+    const edited = await call(recordRoute, 'PATCH', {
+      session: s.member,
+      params: { id },
+      body: { version: 1, title: 'Wallabine coating for the pod' },
+    });
     expect(edited.status).toBe(200);
     expect((await search({ q: 'quokkaline' })).hits).toEqual([]);
     expect((await search({ q: 'wallabine' })).hits.map((h) => h.id)).toEqual([id]);
@@ -142,14 +199,28 @@ describe('fresh after writes through the real routes', () => {
 
   it('superseding shows in the results straight away', async () => {
     const make = async (title: string) => {
-      const r = await call(recordsRoute, 'POST', { session: s.member, body: { kind: 'decision', title, subsystem: 'battery', body: doc('Fuse rating for the marsupial harness.') } });
+      const r = await call(recordsRoute, 'POST', {
+        session: s.member,
+        body: { kind: 'decision', title, subsystem: 'battery', body: doc('Fuse rating for the marsupial harness.') },
+      });
       expect(r.status).toBe(201);
       return r.body.record.id as string;
     };
     const old = await make('Marsupial harness fuse 60 A');
-    for (const st of ['proposed', 'accepted']) expect((await call(status, 'POST', { session: s.member, params: { id: old }, body: { status: st } })).status).toBe(200);
+    for (const st of ['proposed', 'accepted'])
+      expect(
+        (await call(status, 'POST', { session: s.member, params: { id: old }, body: { status: st } })).status,
+      ).toBe(200);
     const newer = await make('Marsupial harness fuse 80 A');
-    expect((await call(status, 'POST', { session: s.member, params: { id: old }, body: { status: 'superseded', supersededBy: newer } })).status).toBe(200);
+    expect(
+      (
+        await call(status, 'POST', {
+          session: s.member,
+          params: { id: old },
+          body: { status: 'superseded', supersededBy: newer },
+        })
+      ).status,
+    ).toBe(200);
     const hits = (await search({ q: 'marsupial harness' })).hits;
     expect(hits.find((h) => h.id === old)?.status).toBe('superseded');
     expect(hits.find((h) => h.id === newer)?.status).toBe('draft');
@@ -158,7 +229,13 @@ describe('fresh after writes through the real routes', () => {
   it('a saved calculation is found by its title and notes', async () => {
     const res = await call(calculationsRoute, 'POST', {
       session: s.member,
-      body: { kind: 'cable', title: 'Bilge pump feeder', subsystem: 'battery', notes: 'Numbat loom run from the fuse box.', inputs: { current_A: 10, length_m: 3, crossSection_mm2: 2.5, temperature_C: 20, systemVoltage_V: 48 } },
+      body: {
+        kind: 'cable',
+        title: 'Bilge pump feeder',
+        subsystem: 'battery',
+        notes: 'Numbat loom run from the fuse box.',
+        inputs: { current_A: 10, length_m: 3, crossSection_mm2: 2.5, temperature_C: 20, systemVoltage_V: 48 },
+      },
     });
     expect(res.status, res.text).toBe(201);
     const id = res.body.calculation.id as string;

@@ -27,39 +27,66 @@ describe('seasons', () => {
 
   it('409 for a duplicate name, 400 for an end before the start, 403 for others', async () => {
     expect((await call(seasons, 'POST', { session: s.lead, body: next })).status).toBe(409);
-    const bad = await call(seasons, 'POST', { session: s.lead, body: { ...next, name: '2027–28', endsOn: '2026-01-01' } });
+    const bad = await call(seasons, 'POST', {
+      session: s.lead,
+      body: { ...next, name: '2027–28', endsOn: '2026-01-01' },
+    });
     expect(bad.status).toBe(400);
     expect(bad.body.error.issues[0].path).toBe('endsOn');
-    for (const role of ['advisor', 'member', 'alumni'] as const) expect((await call(seasons, 'POST', { session: s[role], body: { ...next, name: `x-${role}` } })).status).toBe(403);
+    for (const role of ['advisor', 'member', 'alumni'] as const)
+      expect((await call(seasons, 'POST', { session: s[role], body: { ...next, name: `x-${role}` } })).status).toBe(
+        403,
+      );
   });
 
   it('moves a phase; 400 for an unknown phase', async () => {
     const res = await call(season, 'PATCH', { session: s.lead, params: { id: newId }, body: { phase: 'build' } });
     expect(res.body.season.phase).toBe('build');
-    expect((await call(season, 'PATCH', { session: s.lead, params: { id: newId }, body: { phase: 'party' } })).status).toBe(400);
-    expect((await call(season, 'PATCH', { session: s.lead, params: { id: 'nope' }, body: { phase: 'build' } })).status).toBe(404);
+    expect(
+      (await call(season, 'PATCH', { session: s.lead, params: { id: newId }, body: { phase: 'party' } })).status,
+    ).toBe(400);
+    expect(
+      (await call(season, 'PATCH', { session: s.lead, params: { id: 'nope' }, body: { phase: 'build' } })).status,
+    ).toBe(404);
   });
 
   it('rollover previews exactly what will change, and only writes with confirm', async () => {
     const members = (await call(people, 'GET', { session: s.lead })).body.people;
     const jonas = members.find((p: { name: string }) => p.name === 'Jonas Lindqvist');
-    const preview = await call(rollover, 'POST', { session: s.lead, params: { id: newId }, body: { continuing: [jonas.id] } });
+    const preview = await call(rollover, 'POST', {
+      session: s.lead,
+      params: { id: newId },
+      body: { continuing: [jonas.id] },
+    });
     expect(preview.status).toBe(200);
     expect(preview.body.applied).toBe(false);
     expect(preview.body.from).toBe('2025–26');
     const changes = preview.body.changes;
     expect(changes.find((c: { userId: string }) => c.userId === jonas.id).change).toBe('continues');
     expect(changes.filter((c: { change: string }) => c.change === 'to-alumni').length).toBeGreaterThan(0);
-    const unchanged = (await call(seasons, 'GET', { session: s.lead })).body.seasons.find((x: { current: boolean }) => x.current);
+    const unchanged = (await call(seasons, 'GET', { session: s.lead })).body.seasons.find(
+      (x: { current: boolean }) => x.current,
+    );
     expect(unchanged.name).toBe('2025–26');
 
-    expect((await call(rollover, 'POST', { session: s.member, params: { id: newId }, body: { confirm: true } })).status).toBe(403);
-    expect((await call(rollover, 'POST', { session: s.lead, params: { id: newId }, body: { continuing: ['stranger'] } })).status).toBe(400);
+    expect(
+      (await call(rollover, 'POST', { session: s.member, params: { id: newId }, body: { confirm: true } })).status,
+    ).toBe(403);
+    expect(
+      (await call(rollover, 'POST', { session: s.lead, params: { id: newId }, body: { continuing: ['stranger'] } }))
+        .status,
+    ).toBe(400);
 
-    const done = await call(rollover, 'POST', { session: s.lead, params: { id: newId }, body: { continuing: [jonas.id], confirm: true } });
+    const done = await call(rollover, 'POST', {
+      session: s.lead,
+      params: { id: newId },
+      body: { continuing: [jonas.id], confirm: true },
+    });
     expect(done.body.applied).toBe(true);
     const now = (await call(seasons, 'GET', { session: s.lead })).body.seasons;
-    expect(now.filter((x: { current: boolean }) => x.current).map((x: { name: string }) => x.name)).toEqual(['2026–27']);
+    expect(now.filter((x: { current: boolean }) => x.current).map((x: { name: string }) => x.name)).toEqual([
+      '2026–27',
+    ]);
     const after = (await call(people, 'GET', { session: s.lead })).body.people;
     const hanna = after.find((p: { name: string }) => p.name === 'Hanna Voss');
     expect(hanna.role).toBe('alumni');
@@ -72,12 +99,23 @@ describe('seasons', () => {
 
 describe('subsystems', () => {
   it('a lead adds and renames a subsystem; duplicates 409; others 403', async () => {
-    const add = await call(subsystems, 'POST', { session: s.lead, body: { slug: 'foils', name: 'Foils', summary: 'Hydrofoils and their control.' } });
+    const add = await call(subsystems, 'POST', {
+      session: s.lead,
+      body: { slug: 'foils', name: 'Foils', summary: 'Hydrofoils and their control.' },
+    });
     expect(add.status).toBe(201);
-    expect((await call(subsystems, 'POST', { session: s.lead, body: { slug: 'foils', name: 'Foils again' } })).status).toBe(409);
+    expect(
+      (await call(subsystems, 'POST', { session: s.lead, body: { slug: 'foils', name: 'Foils again' } })).status,
+    ).toBe(409);
     expect((await call(subsystems, 'POST', { session: s.member, body: { slug: 'x', name: 'X' } })).status).toBe(403);
-    const ren = await call(subsystem, 'PATCH', { session: s.lead, params: { slug: 'foils' }, body: { name: 'Hydrofoils' } });
+    const ren = await call(subsystem, 'PATCH', {
+      session: s.lead,
+      params: { slug: 'foils' },
+      body: { name: 'Hydrofoils' },
+    });
     expect(ren.body.subsystem.name).toBe('Hydrofoils');
-    expect((await call(subsystem, 'PATCH', { session: s.lead, params: { slug: 'nope' }, body: { name: 'X' } })).status).toBe(404);
+    expect(
+      (await call(subsystem, 'PATCH', { session: s.lead, params: { slug: 'nope' }, body: { name: 'X' } })).status,
+    ).toBe(404);
   });
 });

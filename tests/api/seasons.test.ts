@@ -19,7 +19,8 @@ describe('GET /api/seasons and /api/subsystems', () => {
     const list = res.body.seasons;
     expect(list.length).toBeGreaterThanOrEqual(3);
     expect(list.filter((s: { current: boolean }) => s.current)).toHaveLength(1);
-    for (const s of list) expect(Object.keys(s).sort()).toEqual(['boat', 'current', 'endsOn', 'id', 'name', 'phase', 'startsOn']);
+    for (const s of list)
+      expect(Object.keys(s).sort()).toEqual(['boat', 'current', 'endsOn', 'id', 'name', 'phase', 'startsOn']);
     const starts = list.map((s: { startsOn: string }) => s.startsOn);
     expect([...starts].sort().reverse()).toEqual(starts);
   });
@@ -28,7 +29,11 @@ describe('GET /api/seasons and /api/subsystems', () => {
     const res = await call(subsystems, 'GET', { session: await sessionFor('member') });
     expect(res.status).toBe(200);
     expect(res.body.subsystems.length).toBeGreaterThanOrEqual(6);
-    expect(res.body.subsystems[0]).toEqual({ slug: expect.any(String), name: expect.any(String), summary: expect.any(String) });
+    expect(res.body.subsystems[0]).toEqual({
+      slug: expect.any(String),
+      name: expect.any(String),
+      summary: expect.any(String),
+    });
   });
 
   it('seeding twice changes nothing', async () => {

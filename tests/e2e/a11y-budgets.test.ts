@@ -38,7 +38,11 @@ const PAGES: PageCase[] = [
   { path: '/calculations', as: 'member', budgetKb: PLAIN },
   { path: '/calculations/new/propeller', as: 'member', budgetKb: CHART },
   { path: '/calculations/demo-calc-prop-endurance-2526', as: 'member', budgetKb: CHART },
-  { path: '/calculations/compare?a=demo-calc-prop-endurance-2526&b=demo-calc-prop-sprint-2526', as: 'member', budgetKb: CHART },
+  {
+    path: '/calculations/compare?a=demo-calc-prop-endurance-2526&b=demo-calc-prop-sprint-2526',
+    as: 'member',
+    budgetKb: CHART,
+  },
   { path: '/people', as: 'member', budgetKb: PLAIN },
   { path: '/seasons', as: 'lead', budgetKb: PLAIN },
   { path: '/handover', as: 'advisor', budgetKb: PLAIN },
@@ -97,7 +101,12 @@ describe.each(PAGES)('$path as $as', ({ path, as, budgetKb }) => {
     const result = (await page.evaluate(async () => {
       // @ts-expect-error injected above
       const r = await window.axe.run(document, { resultTypes: ['violations'] });
-      return r.violations.map((v: { id: string; impact: string; help: string; nodes: { target: string[] }[] }) => ({ id: v.id, impact: v.impact, help: v.help, targets: v.nodes.slice(0, 3).map((n) => n.target.join(' ')) }));
+      return r.violations.map((v: { id: string; impact: string; help: string; nodes: { target: string[] }[] }) => ({
+        id: v.id,
+        impact: v.impact,
+        help: v.help,
+        targets: v.nodes.slice(0, 3).map((n) => n.target.join(' ')),
+      }));
     })) as { id: string; impact: string; help: string; targets: string[] }[];
     const bad = result.filter((v) => v.impact === 'serious' || v.impact === 'critical');
     expect(bad, JSON.stringify(bad, null, 2)).toEqual([]);

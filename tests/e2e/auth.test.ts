@@ -91,7 +91,9 @@ describe('signing in and out', () => {
     await signIn(page, 'member@wakebook.test');
     const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
     expect(overflow).toBeLessThanOrEqual(1);
-    expect(await page.getByRole('navigation', { name: 'Sections' }).getByRole('link', { name: 'Records' }).count()).toBe(1);
+    expect(
+      await page.getByRole('navigation', { name: 'Sections' }).getByRole('link', { name: 'Records' }).count(),
+    ).toBe(1);
     await shot(page, 'home-member-phone');
     await context.close();
   });

@@ -6,7 +6,8 @@ import { baseUrl } from './browser';
 
 type Who = 'out' | 'alumni' | 'advisor' | 'member' | 'lead';
 const SIGNED_IN: Who[] = ['alumni', 'advisor', 'member', 'lead'];
-const ok = (allowed: Who[]) => Object.fromEntries(SIGNED_IN.map((w) => [w, allowed.includes(w) ? 200 : 403])) as Record<Exclude<Who, 'out'>, number>;
+const ok = (allowed: Who[]) =>
+  Object.fromEntries(SIGNED_IN.map((w) => [w, allowed.includes(w) ? 200 : 403])) as Record<Exclude<Who, 'out'>, number>;
 const everyone = ok(SIGNED_IN);
 
 /** Expected status per page; signed-out visitors of private pages are redirected (302) to /sign-in. */
@@ -27,12 +28,24 @@ const PAGES: Record<string, { url: string; expect: Partial<Record<Who, number>> 
   'records/index.astro': { url: '/records', expect: { out: 302, ...everyone } },
   'records/new.astro': { url: '/records/new?kind=lesson', expect: { out: 302, ...ok(['member', 'lead']) } },
   'records/[id]/index.astro': { url: '/records/demo-rec-2526-two-propellers', expect: { out: 302, ...everyone } },
-  'records/[id]/edit.astro': { url: '/records/demo-rec-2526-two-propellers/edit', expect: { out: 302, ...ok(['member', 'lead']) } },
-  'records/[id]/history.astro': { url: '/records/demo-rec-2526-two-propellers/history', expect: { out: 302, ...everyone } },
+  'records/[id]/edit.astro': {
+    url: '/records/demo-rec-2526-two-propellers/edit',
+    expect: { out: 302, ...ok(['member', 'lead']) },
+  },
+  'records/[id]/history.astro': {
+    url: '/records/demo-rec-2526-two-propellers/history',
+    expect: { out: 302, ...everyone },
+  },
   'calculations/index.astro': { url: '/calculations', expect: { out: 302, ...everyone } },
   'calculations/new/[kind].astro': { url: '/calculations/new/cable', expect: { out: 302, ...everyone } },
-  'calculations/[id].astro': { url: '/calculations/demo-calc-cable-battery-main-2526', expect: { out: 302, ...everyone } },
-  'calculations/compare.astro': { url: '/calculations/compare?a=demo-calc-prop-endurance-2526&b=demo-calc-prop-sprint-2526', expect: { out: 302, ...everyone } },
+  'calculations/[id].astro': {
+    url: '/calculations/demo-calc-cable-battery-main-2526',
+    expect: { out: 302, ...everyone },
+  },
+  'calculations/compare.astro': {
+    url: '/calculations/compare?a=demo-calc-prop-endurance-2526&b=demo-calc-prop-sprint-2526',
+    expect: { out: 302, ...everyone },
+  },
   'people/index.astro': { url: '/people', expect: { out: 302, ...everyone } },
   'seasons/index.astro': { url: '/seasons', expect: { out: 302, ...everyone } },
   'handover.astro': { url: '/handover', expect: { out: 302, ...everyone } },
@@ -57,8 +70,15 @@ function pageFiles(dir = 'src/pages', prefix = ''): string[] {
 const cookies: Partial<Record<Who, string>> = {};
 beforeAll(async () => {
   for (const who of SIGNED_IN) {
-    const res = await fetch(`${baseUrl()}/api/auth/sign-in`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email: `${who}@wakebook.test`, password: 'wakebook-demo' }) });
-    cookies[who] = res.headers.getSetCookie().find((c) => c.startsWith('wakebook_session='))!.split(';')[0];
+    const res = await fetch(`${baseUrl()}/api/auth/sign-in`, {
+      method: 'POST',
+      headers: { 'content-type': 'application/json' },
+      body: JSON.stringify({ email: `${who}@wakebook.test`, password: 'wakebook-demo' }),
+    });
+    cookies[who] = res.headers
+      .getSetCookie()
+      .find((c) => c.startsWith('wakebook_session='))!
+      .split(';')[0];
   }
 });
 
@@ -70,7 +90,10 @@ describe('page authorization matrix', () => {
   for (const [file, page] of Object.entries(PAGES)) {
     it(`${file} (${page.url})`, async () => {
       for (const [who, status] of Object.entries(page.expect) as [Who, number][]) {
-        const res = await fetch(`${baseUrl()}${page.url}`, { redirect: 'manual', headers: who === 'out' ? {} : { cookie: cookies[who]! } });
+        const res = await fetch(`${baseUrl()}${page.url}`, {
+          redirect: 'manual',
+          headers: who === 'out' ? {} : { cookie: cookies[who]! },
+        });
         expect(res.status, `${who} on ${page.url}`).toBe(status);
         if (status === 302 && who === 'out') expect(res.headers.get('location')).toMatch(/^\/sign-in/);
         const body = await res.text();

@@ -14,7 +14,15 @@ export async function launch(): Promise<Browser> {
   return chromium.launch({
     executablePath: CHROMIUM,
     headless: true,
-    args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+    args: [
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-quic',
+      '--no-first-run',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+    ],
   });
 }
 
@@ -29,5 +37,8 @@ export async function signIn(page: Page, email: string, password = DEMO_PASSWORD
   await page.goto(`${baseUrl()}/sign-in`);
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password').fill(password);
-  await Promise.all([page.waitForURL((u) => !u.pathname.startsWith('/sign-in')), page.getByRole('button', { name: 'Sign in' }).click()]);
+  await Promise.all([
+    page.waitForURL((u) => !u.pathname.startsWith('/sign-in')),
+    page.getByRole('button', { name: 'Sign in' }).click(),
+  ]);
 }

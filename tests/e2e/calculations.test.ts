@@ -36,7 +36,11 @@ describe('calculators as a member uses them', () => {
     await page.getByLabel('Pitch ratio P/D').fill('1.8');
     // Results follow typing through a deferred value: wait for the field to be marked, not for a fixed time.
     await expect.poll(() => page.getByLabel('Pitch ratio P/D').getAttribute('aria-invalid')).toBe('true');
-    await page.getByRole('status').filter({ hasText: /P\/D|pitch/i }).first().waitFor();
+    await page
+      .getByRole('status')
+      .filter({ hasText: /P\/D|pitch/i })
+      .first()
+      .waitFor();
     await page.getByLabel('Pitch ratio P/D').fill('1.1');
     await expect.poll(() => page.getByLabel('Pitch ratio P/D').getAttribute('aria-invalid')).toBeNull();
     await output('thrust_N').waitFor();
@@ -49,7 +53,10 @@ describe('calculators as a member uses them', () => {
     await page.getByLabel('Title').fill('E2E endurance propeller check');
     await page.getByLabel('Subsystem').selectOption('propulsion');
     await page.getByLabel(/^Notes/).fill('Saved by the browser test.');
-    await Promise.all([page.waitForURL(/\/calculations\/[a-z2-7]{16}$/), page.getByRole('button', { name: 'Save calculation' }).click()]);
+    await Promise.all([
+      page.waitForURL(/\/calculations\/[a-z2-7]{16}$/),
+      page.getByRole('button', { name: 'Save calculation' }).click(),
+    ]);
     savedUrl = page.url();
     await page.getByRole('heading', { level: 1, name: 'E2E endurance propeller check' }).waitFor();
     expect(await page.locator('[data-output="pitchRatio"]').count()).toBe(0);
@@ -69,7 +76,10 @@ describe('calculators as a member uses them', () => {
     await page.goto(`${baseUrl()}/calculations?kind=propeller`);
     await page.getByLabel('Compare Tern 5 endurance propeller at cruise').check();
     await page.getByLabel('Compare Tern 5 sprint propeller off the start').check();
-    await Promise.all([page.waitForURL(/\/calculations\/compare/), page.getByRole('button', { name: 'Compare the two ticked' }).click()]);
+    await Promise.all([
+      page.waitForURL(/\/calculations\/compare/),
+      page.getByRole('button', { name: 'Compare the two ticked' }).click(),
+    ]);
     await page.getByRole('heading', { name: 'Compare calculations' }).waitFor();
     const pitchRow = page.getByRole('row', { name: /Pitch ratio/ });
     expect(await pitchRow.textContent()).toContain('differs');

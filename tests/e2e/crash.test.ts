@@ -9,7 +9,14 @@ import Database from 'better-sqlite3';
 
 const PORT = 4900 + Math.floor(Math.random() * 90);
 const dir = mkdtempSync(join(tmpdir(), 'wakebook-crash-'));
-const env = { ...process.env, HOST: '127.0.0.1', PORT: String(PORT), WAKEBOOK_DB: join(dir, 'crash.db'), WAKEBOOK_UPLOADS: join(dir, 'uploads'), WAKEBOOK_DEMO: '1' };
+const env = {
+  ...process.env,
+  HOST: '127.0.0.1',
+  PORT: String(PORT),
+  WAKEBOOK_DB: join(dir, 'crash.db'),
+  WAKEBOOK_UPLOADS: join(dir, 'uploads'),
+  WAKEBOOK_DEMO: '1',
+};
 const base = `http://127.0.0.1:${PORT}`;
 
 async function start(): Promise<ChildProcess> {
@@ -26,8 +33,15 @@ async function start(): Promise<ChildProcess> {
 }
 
 async function session(): Promise<string> {
-  const res = await fetch(`${base}/api/auth/sign-in`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email: 'member@wakebook.test', password: 'wakebook-demo' }) });
-  return res.headers.getSetCookie().find((c) => c.startsWith('wakebook_session='))!.split(';')[0];
+  const res = await fetch(`${base}/api/auth/sign-in`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json' },
+    body: JSON.stringify({ email: 'member@wakebook.test', password: 'wakebook-demo' }),
+  });
+  return res.headers
+    .getSetCookie()
+    .find((c) => c.startsWith('wakebook_session='))!
+    .split(';')[0];
 }
 
 describe('crash safety', () => {
@@ -69,7 +83,9 @@ describe('crash safety', () => {
 
     server = await start();
     const cookie2 = await session();
-    const res = await fetch(`${base}/api/records/demo-rec-2526-two-propellers/comments`, { headers: { cookie: cookie2 } });
+    const res = await fetch(`${base}/api/records/demo-rec-2526-two-propellers/comments`, {
+      headers: { cookie: cookie2 },
+    });
     const stored = new Set(((await res.json()) as { comments: { body: string }[] }).comments.map((c) => c.body));
     const lost = acknowledged.filter((b) => !stored.has(b));
     expect(lost).toEqual([]);

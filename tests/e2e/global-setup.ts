@@ -13,7 +13,15 @@ export default async function setup(project: TestProject) {
   const port = String(4500 + Math.floor(Math.random() * 400));
   // Spawned as node directly so teardown can stop it by its own PID.
   server = spawn(process.execPath, ['dist/server/entry.mjs'], {
-    env: { ...process.env, HOST: '127.0.0.1', PORT: port, WAKEBOOK_DB: join(dir, 'e2e.db'), WAKEBOOK_UPLOADS: join(dir, 'uploads'), WAKEBOOK_DEMO: '1', ASTRO_TELEMETRY_DISABLED: '1' },
+    env: {
+      ...process.env,
+      HOST: '127.0.0.1',
+      PORT: port,
+      WAKEBOOK_DB: join(dir, 'e2e.db'),
+      WAKEBOOK_UPLOADS: join(dir, 'uploads'),
+      WAKEBOOK_DEMO: '1',
+      ASTRO_TELEMETRY_DISABLED: '1',
+    },
     stdio: ['ignore', 'inherit', 'inherit'],
   });
   const base = `http://127.0.0.1:${port}`;

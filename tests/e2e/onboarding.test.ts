@@ -15,18 +15,27 @@ describe('onboarding, seasons and handover', () => {
     const page = await browser.newPage({ viewport: { width: 1280, height: 1000 } });
     await signIn(page, 'member@wakebook.test');
     await page.goto(`${baseUrl()}/subsystems/cooling`);
-    const route = page.getByRole('region', { name: 'Onboarding route' }).or(page.locator('section[aria-labelledby="route-h"]'));
+    const route = page
+      .getByRole('region', { name: 'Onboarding route' })
+      .or(page.locator('section[aria-labelledby="route-h"]'));
     await route.getByText(/of 5 done/).waitFor();
     const before = await route.getByText(/of 5 done/).textContent();
     await page.locator('astro-island:not([ssr]) input[type="checkbox"]').first().waitFor({ state: 'attached' });
     const box = route.getByRole('checkbox', { name: /Done: / }).nth(1);
     // The tick shows at once and is saved in the background: wait for the save before reloading.
-    const saved = page.waitForResponse((r) => r.url().endsWith('/api/onboarding/cooling/progress') && r.request().method() === 'POST');
+    const saved = page.waitForResponse(
+      (r) => r.url().endsWith('/api/onboarding/cooling/progress') && r.request().method() === 'POST',
+    );
     await box.check();
     expect((await saved).status()).toBe(200);
     await expect.poll(() => route.getByText(/of 5 done/).textContent()).not.toBe(before);
     await page.reload();
-    expect(await route.getByRole('checkbox', { name: /Done: / }).nth(1).isChecked()).toBe(true);
+    expect(
+      await route
+        .getByRole('checkbox', { name: /Done: / })
+        .nth(1)
+        .isChecked(),
+    ).toBe(true);
     await page.goto(`${baseUrl()}/`);
     expect(await page.getByRole('progressbar', { name: /Cooling onboarding: 2 of 5/ }).count()).toBe(1);
     await shot(page, 'onboarding-member');
@@ -44,7 +53,10 @@ describe('onboarding, seasons and handover', () => {
     await page.locator('astro-island:not([ssr])').getByRole('list', { name: 'Route items in order' }).waitFor();
     const title = (i: number) => list.getByRole('listitem').nth(i).locator('span.font-medium').textContent();
     const firstBefore = (await title(0))!;
-    await list.getByRole('button', { name: /Move .* down/ }).first().click();
+    await list
+      .getByRole('button', { name: /Move .* down/ })
+      .first()
+      .click();
     expect(await title(1)).toBe(firstBefore);
     await page.getByRole('button', { name: 'Save route' }).click();
     await page.getByText('Route saved.').waitFor();

@@ -55,7 +55,10 @@ describe('bringing a new member in', () => {
     await lead.getByLabel('Role').selectOption('member');
     await lead.getByLabel('Solar').check();
     await lead.getByRole('button', { name: 'Send the invitation' }).click();
-    await lead.getByRole('status').filter({ hasText: `${NEWCOMER.name} was invited as member` }).waitFor();
+    await lead
+      .getByRole('status')
+      .filter({ hasText: `${NEWCOMER.name} was invited as member` })
+      .waitFor();
     await lead.getByRole('row').filter({ hasText: NEWCOMER.email }).filter({ hasText: 'Pending' }).waitFor();
     await shot(lead, 'admin-invitations');
     inviteLink = await linkFromOutbox(lead, NEWCOMER.email, /invited you to Wakebook/);
@@ -80,7 +83,10 @@ describe('bringing a new member in', () => {
     await page.getByText('list of common passwords').waitFor();
     await shot(page, 'invite-accept-errors');
     await page.getByLabel('Choose a password').fill(NEWCOMER.password);
-    await Promise.all([page.waitForURL((u) => u.pathname === '/'), page.getByRole('button', { name: 'Join and sign in' }).click()]);
+    await Promise.all([
+      page.waitForURL((u) => u.pathname === '/'),
+      page.getByRole('button', { name: 'Join and sign in' }).click(),
+    ]);
     await page.getByLabel(`Account menu for ${NEWCOMER.name}`).waitFor();
     // Signing out and in again with the chosen password works.
     await page.getByLabel(`Account menu for ${NEWCOMER.name}`).click();
@@ -112,7 +118,9 @@ describe('bringing a new member in', () => {
     await row.getByRole('button', { name: 'Save' }).click();
     await row.getByText('Saved.').waitFor();
     await lead.reload();
-    expect(await lead.getByRole('row').filter({ hasText: NEWCOMER.email }).textContent()).toMatch(/Solar array, Telemetry/);
+    expect(await lead.getByRole('row').filter({ hasText: NEWCOMER.email }).textContent()).toMatch(
+      /Solar array, Telemetry/,
+    );
     await shot(lead, 'admin-people');
   });
 
@@ -130,7 +138,10 @@ describe('bringing a new member in', () => {
     expect(new URL(resetLink).pathname).toMatch(/^\/reset\/[A-Za-z0-9_-]{20,}$/);
     await page.goto(resetLink);
     await page.getByLabel('New password').fill(NEW_PASSWORD);
-    await Promise.all([page.waitForURL(/\/sign-in\?reset=1$/), page.getByRole('button', { name: 'Set the new password' }).click()]);
+    await Promise.all([
+      page.waitForURL(/\/sign-in\?reset=1$/),
+      page.getByRole('button', { name: 'Set the new password' }).click(),
+    ]);
     await page.getByRole('status').filter({ hasText: 'Your password was changed' }).waitFor();
     await shot(page, 'sign-in-after-reset');
     await signIn(page, NEWCOMER.email, NEW_PASSWORD);
@@ -144,9 +155,15 @@ describe('bringing a new member in', () => {
   it('the lead downloads the handover bundle and sees the bytes arrive', async () => {
     await lead.goto(`${baseUrl()}/admin/export`);
     await hydrated(lead, 'button');
-    const [download] = await Promise.all([lead.waitForEvent('download'), lead.getByRole('button', { name: 'Download the handover bundle' }).click()]);
+    const [download] = await Promise.all([
+      lead.waitForEvent('download'),
+      lead.getByRole('button', { name: 'Download the handover bundle' }).click(),
+    ]);
     expect(download.suggestedFilename()).toMatch(/^wakebook-handover-\d{4}-\d{2}-\d{2}\.zip$/);
-    await lead.getByText(/^Done: .* saved\.$/).first().waitFor();
+    await lead
+      .getByText(/^Done: .* saved\.$/)
+      .first()
+      .waitFor();
     await shot(lead, 'admin-export');
   });
 
@@ -166,7 +183,14 @@ describe('pages for others', () => {
     const context = await browser.newContext();
     const page = await context.newPage();
     await signIn(page, 'member@wakebook.test');
-    for (const path of ['/admin', '/admin/people', '/admin/invitations', '/admin/outbox', '/admin/audit', '/admin/export']) {
+    for (const path of [
+      '/admin',
+      '/admin/people',
+      '/admin/invitations',
+      '/admin/outbox',
+      '/admin/audit',
+      '/admin/export',
+    ]) {
       const res = await page.goto(`${baseUrl()}${path}`);
       expect(res?.status(), path).toBe(403);
       expect(await page.getByRole('heading', { level: 1 }).textContent()).toContain('Only leads may open');
@@ -182,7 +206,11 @@ describe('pages for others', () => {
 
   it('signed-out pages stay reachable without a session', async () => {
     const page = await browser.newPage();
-    for (const path of ['/forgot-password', '/invite/AAAAAAAAAAAAAAAAAAAAAAAAAAA', '/reset/AAAAAAAAAAAAAAAAAAAAAAAAAAA']) {
+    for (const path of [
+      '/forgot-password',
+      '/invite/AAAAAAAAAAAAAAAAAAAAAAAAAAA',
+      '/reset/AAAAAAAAAAAAAAAAAAAAAAAAAAA',
+    ]) {
       await page.goto(`${baseUrl()}${path}`);
       expect(new URL(page.url()).pathname, path).toBe(path);
     }
@@ -225,7 +253,11 @@ describe('accessibility of the people, mail and admin pages', () => {
       const violations = (await page.evaluate(async () => {
         // @ts-expect-error injected above
         const r = await window.axe.run(document, { resultTypes: ['violations'] });
-        return r.violations.map((v: { id: string; impact: string; nodes: { target: string[] }[] }) => ({ id: v.id, impact: v.impact, targets: v.nodes.slice(0, 3).map((n) => n.target.join(' ')) }));
+        return r.violations.map((v: { id: string; impact: string; nodes: { target: string[] }[] }) => ({
+          id: v.id,
+          impact: v.impact,
+          targets: v.nodes.slice(0, 3).map((n) => n.target.join(' ')),
+        }));
       })) as { id: string; impact: string; targets: string[] }[];
       const bad = violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
       expect(bad, JSON.stringify(bad, null, 2)).toEqual([]);

@@ -39,11 +39,16 @@ describe('decision records in the browser', () => {
     const picker = page.getByRole('group', { name: /Linked calculations/ });
     await picker.getByPlaceholder('Filter by title…').fill('Main battery lead');
     await picker.getByRole('checkbox').first().check();
-    await Promise.all([page.waitForURL(/\/records\/[a-z2-7]{16}$/), page.getByRole('button', { name: 'Create decision record' }).click()]);
+    await Promise.all([
+      page.waitForURL(/\/records\/[a-z2-7]{16}$/),
+      page.getByRole('button', { name: 'Create decision record' }).click(),
+    ]);
     recordUrl = page.url();
     await page.getByRole('heading', { level: 1, name: 'Fuse the main battery lead at 80 A' }).waitFor();
     expect(await page.locator('article .prose-wb').textContent()).toContain('An 80 A fuse at the pack end.');
-    expect(await page.getByRole('complementary', { name: 'About this record' }).textContent()).toContain('Main battery lead');
+    expect(await page.getByRole('complementary', { name: 'About this record' }).textContent()).toContain(
+      'Main battery lead',
+    );
     await shot(page, 'record-new-decision');
   });
 
@@ -92,8 +97,16 @@ describe('decision records in the browser', () => {
     await page.locator('astro-island:not([ssr]) input[aria-label="Attach files"]').waitFor({ state: 'attached' });
     const input = page.getByLabel('Attach files');
     await input.setInputFiles([
-      { name: 'loop.png', mimeType: 'image/png', buffer: readFileSync('content/demo/attachments/coolant-loop-schematic-2025-12.png') },
-      { name: 'current-log.csv', mimeType: 'text/csv', buffer: Buffer.from('time_s,current_A,voltage_V\n0,10,48\n1,60,47.1\n2,80,46.5\n3,75,46.7\n') },
+      {
+        name: 'loop.png',
+        mimeType: 'image/png',
+        buffer: readFileSync('content/demo/attachments/coolant-loop-schematic-2025-12.png'),
+      },
+      {
+        name: 'current-log.csv',
+        mimeType: 'text/csv',
+        buffer: Buffer.from('time_s,current_A,voltage_V\n0,10,48\n1,60,47.1\n2,80,46.5\n3,75,46.7\n'),
+      },
     ]);
     await page.getByRole('button', { name: 'Show the new attachments' }).click();
     await page.getByRole('img', { name: 'Attached image loop.png' }).waitFor();
@@ -117,7 +130,10 @@ describe('decision records in the browser', () => {
     await page.getByLabel('Title').fill('Use a 100 A breaker instead of the fuse');
     await page.locator('.ProseMirror h2', { hasText: 'Decision' }).waitFor();
     await typeInSection(page, 'Decision', 'A resettable breaker, after the bench test.');
-    await Promise.all([page.waitForURL(/\/records\/[a-z2-7]{16}$/), page.getByRole('button', { name: 'Create decision record' }).click()]);
+    await Promise.all([
+      page.waitForURL(/\/records\/[a-z2-7]{16}$/),
+      page.getByRole('button', { name: 'Create decision record' }).click(),
+    ]);
     const newerUrl = page.url();
     await page.goto(recordUrl);
     await page.getByRole('button', { name: /Supersede/ }).click();
@@ -126,9 +142,13 @@ describe('decision records in the browser', () => {
     await select.selectOption(newerUrl.split('/').pop()!);
     await page.getByRole('button', { name: 'Supersede', exact: true }).click();
     await page.getByText('Superseded by').waitFor();
-    expect(await page.getByRole('complementary', { name: 'About this record' }).textContent()).toContain('Replaced by Use a 100 A breaker');
+    expect(await page.getByRole('complementary', { name: 'About this record' }).textContent()).toContain(
+      'Replaced by Use a 100 A breaker',
+    );
     await page.goto(newerUrl);
-    expect(await page.getByRole('complementary', { name: 'About this record' }).textContent()).toContain('Replaces Fuse the main battery lead');
+    expect(await page.getByRole('complementary', { name: 'About this record' }).textContent()).toContain(
+      'Replaces Fuse the main battery lead',
+    );
     expect(id).toMatch(/^[a-z2-7]{16}$/);
     await shot(page, 'record-superseding');
   });

@@ -65,7 +65,11 @@ describe('search in the header', () => {
     await headerReady(page);
     await box2.click();
     await page.keyboard.type('ventilation');
-    await expect.poll(() => page.getByRole('listbox', { name: 'Search results' }).getByRole('option').count(), { timeout: 10_000 }).toBeGreaterThan(1);
+    await expect
+      .poll(() => page.getByRole('listbox', { name: 'Search results' }).getByRole('option').count(), {
+        timeout: 10_000,
+      })
+      .toBeGreaterThan(1);
     await page.keyboard.press('Escape');
     expect(await box2.getAttribute('aria-expanded')).toBe('false');
     expect(await page.getByRole('listbox', { name: 'Search results' }).isVisible()).toBe(false);
@@ -83,10 +87,15 @@ describe('search in the header', () => {
     await expect.poll(() => options.count(), { timeout: 10_000 }).toBeGreaterThan(1);
     await page.getByText(/Showing results for “propeller”/).waitFor();
     await page.getByRole('group', { name: 'Show only' }).getByRole('button', { name: 'Guides' }).click();
-    await expect.poll(async () => {
-      const hrefs = await options.evaluateAll((els) => els.map((e) => e.getAttribute('href') ?? ''));
-      return hrefs.length > 1 && hrefs.slice(0, -1).every((h) => h.startsWith('/guides/'));
-    }, { timeout: 10_000 }).toBe(true);
+    await expect
+      .poll(
+        async () => {
+          const hrefs = await options.evaluateAll((els) => els.map((e) => e.getAttribute('href') ?? ''));
+          return hrefs.length > 1 && hrefs.slice(0, -1).every((h) => h.startsWith('/guides/'));
+        },
+        { timeout: 10_000 },
+      )
+      .toBe(true);
     await box.focus();
     await Promise.all([page.waitForURL(/\/search\?/), page.keyboard.press('Enter')]);
     const url = new URL(page.url());
@@ -129,7 +138,10 @@ describe('the results page without JavaScript', () => {
     await page.getByText('What are you looking for?').waitFor();
     await page.getByLabel('Words to find').fill('cell');
     await page.getByLabel('Subsystem').selectOption('battery');
-    await Promise.all([page.waitForURL(/subsystem=battery/), page.getByRole('button', { name: 'Search', exact: true }).click()]);
+    await Promise.all([
+      page.waitForURL(/subsystem=battery/),
+      page.getByRole('button', { name: 'Search', exact: true }).click(),
+    ]);
     expect(await page.locator('main ol > li').count()).toBeGreaterThan(0);
     await page.goto(`${baseUrl()}/search?q=${'x'.repeat(600)}`);
     await page.getByText(/Keep a search under 500 characters/).waitFor();

@@ -24,7 +24,13 @@ describe('copper resistance — Floyd, Electric Circuit Fundamentals, AWG table 
 
 describe('cable calculator — loop length, ΔV = I·R, P = I²R, temperature coefficient (IEC 60028; REFERENCES.md §6, derived)', () => {
   it('100 A, 2 m one way, 16 mm², 60 °C, 48 V', () => {
-    const r = runCalculator('cable', { current_A: 100, length_m: 2, crossSection_mm2: 16, temperature_C: 60, systemVoltage_V: 48 });
+    const r = runCalculator('cable', {
+      current_A: 100,
+      length_m: 2,
+      crossSection_mm2: 16,
+      temperature_C: 60,
+      systemVoltage_V: 48,
+    });
     if (!r.ok) throw new Error(JSON.stringify(r));
     const o = r.result.outputs as Record<string, number>;
     const R = ((1.7241e-8 * 4) / 16e-6) * (1 + 0.00393 * 40);

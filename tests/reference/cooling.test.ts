@@ -15,7 +15,8 @@ const CP = [
 ] as const;
 
 describe('water specific heat — IAPWS R6-95(2018) formulation, values of REFERENCES.md §5 (derived)', () => {
-  for (const [t, cp] of CP) it(`${t} °C → ${cp} J/(kg·K)`, () => expect(Math.abs(freshWaterCp(t) - cp)).toBeLessThanOrEqual(0.01));
+  for (const [t, cp] of CP)
+    it(`${t} °C → ${cp} J/(kg·K)`, () => expect(Math.abs(freshWaterCp(t) - cp)).toBeLessThanOrEqual(0.01));
 });
 
 describe('junction temperature through series thermal resistances — datasheet practice, REFERENCES.md §5 (published arithmetic example)', () => {
@@ -29,15 +30,25 @@ describe('junction temperature through series thermal resistances — datasheet 
 // C. Bell, "fluids" library documentation, fluids.friction examples (published values, REFERENCES.md §5).
 describe('friction factors — fluids library documentation examples (C. Bell; Colebrook 1939, Haaland 1983, Swamee & Jain 1976) (published)', () => {
   it('laminar f(Re 128) = 0.5', () => expect(frictionFactor(128, 0)).toBeCloseTo(0.5, 15));
-  it('Colebrook(Re 1e5, ε/D 1e-4) = 0.018513866077471', () => expect(colebrook(1e5, 1e-4)).toBeCloseTo(0.018513866077471, 13));
-  it('Haaland(Re 1e5, ε/D 1e-4) = 0.018265053014793857', () => expect(haaland(1e5, 1e-4)).toBeCloseTo(0.018265053014793857, 14));
-  it('Swamee–Jain(Re 1e5, ε/D 1e-4) = 0.018452424431901808', () => expect(swameeJain(1e5, 1e-4)).toBeCloseTo(0.018452424431901808, 14));
+  it('Colebrook(Re 1e5, ε/D 1e-4) = 0.018513866077471', () =>
+    expect(colebrook(1e5, 1e-4)).toBeCloseTo(0.018513866077471, 13));
+  it('Haaland(Re 1e5, ε/D 1e-4) = 0.018265053014793857', () =>
+    expect(haaland(1e5, 1e-4)).toBeCloseTo(0.018265053014793857, 14));
+  it('Swamee–Jain(Re 1e5, ε/D 1e-4) = 0.018452424431901808', () =>
+    expect(swameeJain(1e5, 1e-4)).toBeCloseTo(0.018452424431901808, 14));
 });
 
 describe('cooling calculator — Q = ṁ·c_p·ΔT and Darcy–Weisbach (REFERENCES.md §5 formulas, derived)', () => {
   it('1000 W into 2 L/min water at 20 °C; 10 mm bore, 3 m; hot spot through 0.05 K/W', () => {
     const r = runCalculator('cooling', {
-      heat_W: 1000, flow_lpm: 2, coolant: 'water', inlet_C: 20, thermalResistance_KperW: 0.05, pipeBore_mm: 10, pipeLength_m: 3, roughness_mm: 0.0015,
+      heat_W: 1000,
+      flow_lpm: 2,
+      coolant: 'water',
+      inlet_C: 20,
+      thermalResistance_KperW: 0.05,
+      pipeBore_mm: 10,
+      pipeLength_m: 3,
+      roughness_mm: 0.0015,
     });
     if (!r.ok) throw new Error(JSON.stringify(r));
     const o = r.result.outputs as Record<string, number>;
@@ -48,10 +59,10 @@ describe('cooling calculator — Q = ṁ·c_p·ΔT and Darcy–Weisbach (REFEREN
     expect(o.coolantRise_K).toBeGreaterThan(7.1);
     expect(o.coolantRise_K).toBeLessThan(7.2);
     expect(o.hotspot_C).toBeCloseTo(o.outlet_C + 1000 * 0.05, 10);
-    const U = q / (Math.PI * 0.01 ** 2 / 4);
+    const U = q / ((Math.PI * 0.01 ** 2) / 4);
     const re = (p.density_kgm3 * U * 0.01) / p.viscosity_Pas;
     expect(o.reynolds).toBeCloseTo(re, 6);
-    expect(o.pressureDrop_Pa).toBeCloseTo(colebrook(re, 0.00015) * (3 / 0.01) * p.density_kgm3 * U * U / 2, 6);
+    expect(o.pressureDrop_Pa).toBeCloseTo((colebrook(re, 0.00015) * (3 / 0.01) * p.density_kgm3 * U * U) / 2, 6);
   });
 });
 
@@ -59,7 +70,7 @@ describe('cooling calculator — Q = ṁ·c_p·ΔT and Darcy–Weisbach (REFEREN
 describe('50 % (vol) ethylene glycol density — ASHRAE Fundamentals ch. 31 via Viega Table 5-16 (published)', () => {
   it('68 °F → 20 °C: between the 60 °F (67.20) and 70 °F (67.05 lb/ft³) entries', () => {
     const rho = coolantProperties('glycol50', 20).density_kgm3;
-    expect(rho).toBeCloseTo(((67.2 + 0.8 * (67.05 - 67.2)) * 16.01846337), 6);
+    expect(rho).toBeCloseTo((67.2 + 0.8 * (67.05 - 67.2)) * 16.01846337, 6);
   });
   it('100 °F (37.78 °C) → 66.55 lb/ft³ = 1066.03 kg/m³', () => {
     expect(coolantProperties('glycol50', (100 - 32) / 1.8).density_kgm3).toBeCloseTo(66.55 * 16.01846337, 6);

@@ -10,7 +10,10 @@ import { KQ_TERMS, KT_TERMS } from '../../src/lib/calc/data/wageningen-b';
 // (1981), "K_T, K_Q and efficiency curves for the Wageningen B-series propellers", Univ. of Michigan Report 237, Table 1.
 
 function readCsv(name: string): number[][] {
-  const text = readFileSync(join(__dirname, '..', 'fixtures', name), 'utf8').trim().split('\n').slice(1);
+  const text = readFileSync(join(__dirname, '..', 'fixtures', name), 'utf8')
+    .trim()
+    .split('\n')
+    .slice(1);
   return text.map((line) => line.split(',').map(Number));
 }
 
@@ -86,7 +89,15 @@ describe('B-series check values — Oosterveld & van Oossanen (1975) polynomial,
 describe('dimensional example — REFERENCES.md §1 (derived, relative 1e-5)', () => {
   it('B4-70, P/D 1.0, D 0.20 m, 1200 rpm, V_A 2.0 m/s, fresh 20 °C: J 0.5, T 173.1499 N, Q 5.54941 N·m, P_D 697.359 W, η₀ 0.496587', () => {
     const r = runCalculator('propeller', {
-      blades: 4, bladeAreaRatio: 0.7, pitchRatio: 1.0, diameter_m: 0.2, rpm: 1200, speed_mps: 2.0, wakeFraction: 0, temperature_C: 20, water: 'fresh',
+      blades: 4,
+      bladeAreaRatio: 0.7,
+      pitchRatio: 1.0,
+      diameter_m: 0.2,
+      rpm: 1200,
+      speed_mps: 2.0,
+      wakeFraction: 0,
+      temperature_C: 20,
+      water: 'fresh',
     });
     if (!r.ok) throw new Error(JSON.stringify(r));
     const o = r.result.outputs as Record<string, number>;

@@ -18,7 +18,13 @@ describe('ITTC-1957 worked value — A. Morrall (1970), NPL Ship Report 142, "19
 describe('resistance calculator arithmetic on the ITTC-1957 line (REFERENCES.md §2 formulas, derived)', () => {
   it('R_T = (1+k)·½ρV²S·C_F + ½ρV²·C_D·A with ρ, ν from ITTC 7.5-02-01-03 (2011) at 20 °C fresh', () => {
     const r = runCalculator('resistance', {
-      length_m: 5, wettedArea_m2: 3, speed_mps: 2.0068, formFactor: 1.1, appendageDragArea_m2: 0.004, temperature_C: 20, water: 'fresh',
+      length_m: 5,
+      wettedArea_m2: 3,
+      speed_mps: 2.0068,
+      formFactor: 1.1,
+      appendageDragArea_m2: 0.004,
+      temperature_C: 20,
+      water: 'fresh',
     });
     if (!r.ok) throw new Error(JSON.stringify(r));
     const o = r.result.outputs as Record<string, number>;

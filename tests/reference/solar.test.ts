@@ -13,13 +13,20 @@ describe('Ross cell temperature — pvlib-python test_temperature.py::test_ross 
 // A.P. Dobos (2014), "PVWatts Version 5 Manual", NREL/TP-6A20-62641; vector from pvlib-python
 // test_pvsystem.py::test_pvwatts_dc_scalars (published).
 describe('PVWatts DC power — pvlib-python test_pvsystem.py::test_pvwatts_dc_scalars (published)', () => {
-  it('G 900, T_c 30, P_STC 100 W, γ −0.003 → 88.65 W', () => expect(pvwattsDc(900, 30, 100, -0.003)).toBeCloseTo(88.65, 10));
+  it('G 900, T_c 30, P_STC 100 W, γ −0.003 → 88.65 W', () =>
+    expect(pvwattsDc(900, 30, 100, -0.003)).toBeCloseTo(88.65, 10));
 });
 
 describe('solar calculator chains Ross + PVWatts (Ross 1981; Dobos 2014; derived)', () => {
   it('1 m² at 20 % → P_STC 200 W; G 1000, T_a 20, NOCT 40 → T_c 45 °C; γ −0.004, losses 0.1 → 200·(1 − 0.08)·0.9 W', () => {
     const r = runCalculator('solar', {
-      area_m2: 1, moduleEfficiency: 0.2, irradiance_Wm2: 1000, ambient_C: 20, noct_C: 40, tempCoefficient_perK: -0.004, otherLosses: 0.1,
+      area_m2: 1,
+      moduleEfficiency: 0.2,
+      irradiance_Wm2: 1000,
+      ambient_C: 20,
+      noct_C: 40,
+      tempCoefficient_perK: -0.004,
+      otherLosses: 0.1,
     });
     if (!r.ok) throw new Error(JSON.stringify(r));
     const o = r.result.outputs as Record<string, number>;

@@ -17,7 +17,8 @@ vi.mock('astro:content', async () => {
       return { id: guideIdFromPath(file), collection: 'guides', data: guideSchema.parse(parse(front)), body: text };
     });
   return {
-    getCollection: async (name: string, filter?: (e: (typeof entries)[number]) => boolean) => (name === 'guides' ? entries.filter((e) => !filter || filter(e)) : []),
+    getCollection: async (name: string, filter?: (e: (typeof entries)[number]) => boolean) =>
+      name === 'guides' ? entries.filter((e) => !filter || filter(e)) : [],
     getEntry: async (name: string, id: string) => (name === 'guides' ? entries.find((e) => e.id === id) : undefined),
     render: async () => {
       throw new Error('render() is not available in unit tests');

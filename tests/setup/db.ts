@@ -19,7 +19,10 @@ export async function seedDemo(): Promise<void> {
 
 /** Signs a demo account in through the real route and returns its session cookie value. */
 export async function sessionFor(role: DemoRole): Promise<string> {
-  const res = await call(signIn, 'POST', { body: { email: demoAccounts[role], password: DEMO_PASSWORD }, ip: `127.0.1.${role.length}` });
+  const res = await call(signIn, 'POST', {
+    body: { email: demoAccounts[role], password: DEMO_PASSWORD },
+    ip: `127.0.1.${role.length}`,
+  });
   const session = res.cookies.get(SESSION_COOKIE);
   if (res.status !== 200 || !session) throw new Error(`sign-in as ${role} failed: ${res.status} ${res.text}`);
   return session;

@@ -39,7 +39,11 @@ function defaultPath(route: object, params: Record<string, string> = {}): string
   return `/api/test/route-${routeIds.get(route)}/${parts.join('/')}`;
 }
 
-export async function call(route: Partial<Record<Method, APIRoute>>, method: Method, options: CallOptions = {}): Promise<CallResult> {
+export async function call(
+  route: Partial<Record<Method, APIRoute>>,
+  method: Method,
+  options: CallOptions = {},
+): Promise<CallResult> {
   const handler = route[method];
   if (!handler) throw new Error(`route has no ${method} handler`);
   // Like the server, where the URL names the route and its parameters (the response cache keys on it).
@@ -79,5 +83,13 @@ export async function call(route: Partial<Record<Method, APIRoute>>, method: Met
   } catch {
     parsed = undefined;
   }
-  return { status: response.status, headers: response.headers, body: parsed, text, bytes, cookies: setCookies, setCookie };
+  return {
+    status: response.status,
+    headers: response.headers,
+    body: parsed,
+    text,
+    bytes,
+    cookies: setCookies,
+    setCookie,
+  };
 }

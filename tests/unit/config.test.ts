@@ -4,7 +4,13 @@ import { parseSettings, SettingsError } from '../../src/lib/server/config';
 describe('settings', () => {
   it('has defaults that run a local server', () => {
     const s = parseSettings({});
-    expect(s).toMatchObject({ HOST: '127.0.0.1', PORT: 4321, WAKEBOOK_DB: 'data/wakebook.db', WAKEBOOK_UPLOADS: 'data/uploads', WAKEBOOK_DEMO: false });
+    expect(s).toMatchObject({
+      HOST: '127.0.0.1',
+      PORT: 4321,
+      WAKEBOOK_DB: 'data/wakebook.db',
+      WAKEBOOK_UPLOADS: 'data/uploads',
+      WAKEBOOK_DEMO: false,
+    });
     expect(s.SMTP_URL).toBeUndefined();
   });
 
@@ -16,7 +22,10 @@ describe('settings', () => {
 
   it('accepts a long cron token and a sender address, and leaves both unset by default', () => {
     expect(parseSettings({}).WAKEBOOK_CRON_TOKEN).toBeUndefined();
-    const s = parseSettings({ WAKEBOOK_CRON_TOKEN: 'a'.repeat(32), MAIL_FROM: 'Northmere Wakebook <team@northmere.example>' });
+    const s = parseSettings({
+      WAKEBOOK_CRON_TOKEN: 'a'.repeat(32),
+      MAIL_FROM: 'Northmere Wakebook <team@northmere.example>',
+    });
     expect(s.WAKEBOOK_CRON_TOKEN).toBe('a'.repeat(32));
     expect(s.MAIL_FROM).toBe('Northmere Wakebook <team@northmere.example>');
   });

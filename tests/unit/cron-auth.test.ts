@@ -2,7 +2,8 @@ import { describe, it, expect } from 'vitest';
 import { isCronRequest } from '../../src/lib/server/cron-auth';
 
 const SECRET = 's3cret-'.repeat(6);
-const req = (authorization?: string) => new Request('http://localhost/api/digest/send', { method: 'POST', headers: authorization ? { authorization } : {} });
+const req = (authorization?: string) =>
+  new Request('http://localhost/api/digest/send', { method: 'POST', headers: authorization ? { authorization } : {} });
 
 describe('isCronRequest', () => {
   it('accepts exactly the configured bearer secret', () => {

@@ -5,7 +5,13 @@ import Database from 'better-sqlite3';
 import { mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { currentVersions, dependencies, instrumentConnection, readingInto, stillValid } from '../../src/lib/server/db/changes';
+import {
+  currentVersions,
+  dependencies,
+  instrumentConnection,
+  readingInto,
+  stillValid,
+} from '../../src/lib/server/db/changes';
 
 let db: Database.Database;
 let file: string;
@@ -47,7 +53,7 @@ describe('table versions', () => {
     expect(stillValid(notes)).toBe(false);
   });
 
-  it("a write reaches the tables its triggers write", () => {
+  it('a write reaches the tables its triggers write', () => {
     const log = depsOf('select count(*) from note_log').deps;
     db.prepare('insert into notes (body) values (?)').run('again');
     expect(stillValid(log)).toBe(false);

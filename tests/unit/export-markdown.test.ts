@@ -6,7 +6,11 @@ import { markdownToDoc } from '../../src/lib/server/demo/markdown';
 import { processBody } from '../../src/lib/server/records/body';
 import { slugify, safeFileName } from '../../src/lib/server/export/names';
 
-const text = (t: string, marks?: { type: string; attrs?: Record<string, unknown> }[]) => ({ type: 'text', text: t, ...(marks ? { marks } : {}) });
+const text = (t: string, marks?: { type: string; attrs?: Record<string, unknown> }[]) => ({
+  type: 'text',
+  text: t,
+  ...(marks ? { marks } : {}),
+});
 const p = (...content: object[]) => ({ type: 'paragraph', content });
 const doc = (...content: object[]) => ({ type: 'doc', content });
 
@@ -15,24 +19,62 @@ describe('docToMarkdown', () => {
     const md = docToMarkdown(
       doc(
         { type: 'heading', attrs: { level: 2 }, content: [text('Context')] },
-        p(text('Use '), text('foam', [{ type: 'bold' }]), text(' and '), text('glass ', [{ type: 'italic' }]), text('cloth '), text('x = 1', [{ type: 'code' }]), text('.')),
-        p(text('see '), text('the rules', [{ type: 'link', attrs: { href: 'https://example.org/a b' } }]), { type: 'hardBreak' }, text('next line')),
+        p(
+          text('Use '),
+          text('foam', [{ type: 'bold' }]),
+          text(' and '),
+          text('glass ', [{ type: 'italic' }]),
+          text('cloth '),
+          text('x = 1', [{ type: 'code' }]),
+          text('.'),
+        ),
+        p(
+          text('see '),
+          text('the rules', [{ type: 'link', attrs: { href: 'https://example.org/a b' } }]),
+          { type: 'hardBreak' },
+          text('next line'),
+        ),
       ),
     );
-    expect(md).toBe('## Context\n\nUse **foam** and _glass_ cloth `x = 1`.\n\nsee [the rules](https://example.org/a%20b)\\\nnext line\n');
+    expect(md).toBe(
+      '## Context\n\nUse **foam** and _glass_ cloth `x = 1`.\n\nsee [the rules](https://example.org/a%20b)\\\nnext line\n',
+    );
   });
 
   it('writes nested lists, task lists, quotes, code blocks and rules', () => {
     const md = docToMarkdown(
       doc(
-        { type: 'bulletList', content: [{ type: 'listItem', content: [p(text('one')), { type: 'orderedList', attrs: { start: 3 }, content: [{ type: 'listItem', content: [p(text('three'))] }] }] }] },
-        { type: 'taskList', content: [{ type: 'taskItem', attrs: { checked: true }, content: [p(text('done'))] }, { type: 'taskItem', attrs: { checked: false }, content: [p(text('open'))] }] },
+        {
+          type: 'bulletList',
+          content: [
+            {
+              type: 'listItem',
+              content: [
+                p(text('one')),
+                {
+                  type: 'orderedList',
+                  attrs: { start: 3 },
+                  content: [{ type: 'listItem', content: [p(text('three'))] }],
+                },
+              ],
+            },
+          ],
+        },
+        {
+          type: 'taskList',
+          content: [
+            { type: 'taskItem', attrs: { checked: true }, content: [p(text('done'))] },
+            { type: 'taskItem', attrs: { checked: false }, content: [p(text('open'))] },
+          ],
+        },
         { type: 'blockquote', content: [p(text('Safety first.')), p(text('Always.'))] },
         { type: 'codeBlock', attrs: { language: 'text' }, content: [text('V = I * R')] },
         { type: 'horizontalRule' },
       ),
     );
-    expect(md).toBe('- one\n\n  3. three\n\n- [x] done\n- [ ] open\n\n> Safety first.\n>\n> Always.\n\n```text\nV = I * R\n```\n\n---\n');
+    expect(md).toBe(
+      '- one\n\n  3. three\n\n- [x] done\n- [ ] open\n\n> Safety first.\n>\n> Always.\n\n```text\nV = I * R\n```\n\n---\n',
+    );
   });
 
   it('escapes text that Markdown would read as syntax', () => {
@@ -42,7 +84,9 @@ describe('docToMarkdown', () => {
   });
 
   it('rewrites link targets when asked', () => {
-    const md = docToMarkdown(doc(p(text('older', [{ type: 'link', attrs: { href: '/records/abc' } }]))), { href: (h) => h.replace('/records/abc', '../records/older-abc.md') });
+    const md = docToMarkdown(doc(p(text('older', [{ type: 'link', attrs: { href: '/records/abc' } }]))), {
+      href: (h) => h.replace('/records/abc', '../records/older-abc.md'),
+    });
     expect(md).toBe('[older](../records/older-abc.md)\n');
   });
 
@@ -60,7 +104,9 @@ describe('docToMarkdown', () => {
 
 describe('bundle names', () => {
   it('makes readable, safe slugs and file names', () => {
-    expect(slugify('Build the Tern 3 hull: 10 mm foam — glass/epoxy!')).toBe('build-the-tern-3-hull-10-mm-foam-glass-epoxy');
+    expect(slugify('Build the Tern 3 hull: 10 mm foam — glass/epoxy!')).toBe(
+      'build-the-tern-3-hull-10-mm-foam-glass-epoxy',
+    );
     expect(slugify('***')).toBe('untitled');
     expect(safeFileName('../../etc/passwd')).toBe('passwd');
     expect(safeFileName('a:b?.csv')).toBe('a_b_.csv');

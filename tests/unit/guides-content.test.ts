@@ -5,12 +5,16 @@ import { parse } from 'yaml';
 import { guideSchema, guideIdFromPath } from '../../src/lib/guide-schema';
 
 const base = 'src/content/guides';
-const files = readdirSync(base, { recursive: true }).map(String).filter((f) => f.endsWith('.mdx'));
+const files = readdirSync(base, { recursive: true })
+  .map(String)
+  .filter((f) => f.endsWith('.mdx'));
 const read = (f: string) => {
   const text = readFileSync(join(base, f), 'utf8');
   return { text, front: parse(/^---\n([\s\S]*?)\n---/.exec(text)![1]) };
 };
-const demoCalcIds = new Set((JSON.parse(readFileSync('content/demo/calculations.json', 'utf8')) as { id: string }[]).map((c) => c.id));
+const demoCalcIds = new Set(
+  (JSON.parse(readFileSync('content/demo/calculations.json', 'utf8')) as { id: string }[]).map((c) => c.id),
+);
 
 describe('the guides collection', () => {
   it('has at least 10 guides over at least 6 subsystems, with unique slugs', () => {
@@ -33,13 +37,23 @@ describe('the guides collection', () => {
   });
 
   it('guides that touch batteries, propellers, high current or coolant carry a safety block', () => {
-    const hazardous = files.filter((f) => ['battery', 'propulsion', 'cooling', 'solar', 'steering'].includes(read(f).front.subsystem));
+    const hazardous = files.filter((f) =>
+      ['battery', 'propulsion', 'cooling', 'solar', 'steering'].includes(read(f).front.subsystem),
+    );
     for (const f of hazardous) expect(read(f).text, f).toMatch(/> \*\*Safety\.\*\*/);
   });
 });
 
 describe('guideSchema refuses wrong front matter with the field named', () => {
-  const good = { title: 'A guide', subsystem: 'hull', summary: 'A summary long enough.', order: 1, audience: 'everyone', reviewedBy: 'Ruth Calloway', reviewedOn: '2026-01-01' };
+  const good = {
+    title: 'A guide',
+    subsystem: 'hull',
+    summary: 'A summary long enough.',
+    order: 1,
+    audience: 'everyone',
+    reviewedBy: 'Ruth Calloway',
+    reviewedOn: '2026-01-01',
+  };
   it.each([
     ['title', { title: '' }],
     ['subsystem', { subsystem: 'rigging' }],

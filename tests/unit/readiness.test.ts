@@ -18,7 +18,10 @@ describe('scoreReadiness', () => {
   });
 
   it('scores 0 for a subsystem with nothing handed over, and says what is missing', () => {
-    const r = scoreReadiness({ acceptedDecisions: [], lessons: [], route: { items: 0, itemsFromSeason: 0, missingItems: 0 }, guides: [] }, NOW);
+    const r = scoreReadiness(
+      { acceptedDecisions: [], lessons: [], route: { items: 0, itemsFromSeason: 0, missingItems: 0 }, guides: [] },
+      NOW,
+    );
     // Lessons count as handled when there are none to hand on (20 points); everything else is missing.
     expect(r.score).toBe(20);
     expect(r.missing).toContain('No accepted decision recorded this season.');
@@ -27,21 +30,39 @@ describe('scoreReadiness', () => {
   });
 
   it('names a decision without reasoning or calculation and takes its share off', () => {
-    const r = scoreReadiness({ ...complete, acceptedDecisions: [...complete.acceptedDecisions, { id: 'd2', title: 'Thin one', reasoningWords: MIN_REASONING_WORDS - 1, calculations: 0 }] }, NOW);
+    const r = scoreReadiness(
+      {
+        ...complete,
+        acceptedDecisions: [
+          ...complete.acceptedDecisions,
+          { id: 'd2', title: 'Thin one', reasoningWords: MIN_REASONING_WORDS - 1, calculations: 0 },
+        ],
+      },
+      NOW,
+    );
     expect(r.score).toBe(Math.round(100 - 35 / 2));
     expect(r.missing).toEqual(['Decision “Thin one” needs its reasoning (79 words) and a linked calculation.']);
   });
 
   it('an open lesson on the onboarding route counts as handed on; one off the route is missing', () => {
-    const on = scoreReadiness({ ...complete, lessons: [{ id: 'l', title: 'Open but handed on', status: 'open', onRoute: true }] }, NOW);
+    const on = scoreReadiness(
+      { ...complete, lessons: [{ id: 'l', title: 'Open but handed on', status: 'open', onRoute: true }] },
+      NOW,
+    );
     expect(on.score).toBe(100);
-    const off = scoreReadiness({ ...complete, lessons: [{ id: 'l', title: 'Forgotten', status: 'open', onRoute: false }] }, NOW);
+    const off = scoreReadiness(
+      { ...complete, lessons: [{ id: 'l', title: 'Forgotten', status: 'open', onRoute: false }] },
+      NOW,
+    );
     expect(off.score).toBe(80);
     expect(off.missing[0]).toMatch(/Forgotten/);
   });
 
   it('guides reviewed more than a year ago lower the score', () => {
-    const r = scoreReadiness({ ...complete, guides: [...complete.guides, { slug: 'old', title: 'Old guide', reviewedOn: '2025-05-20' }] }, NOW);
+    const r = scoreReadiness(
+      { ...complete, guides: [...complete.guides, { slug: 'old', title: 'Old guide', reviewedOn: '2025-05-20' }] },
+      NOW,
+    );
     expect(r.score).toBe(Math.round(100 - 25 / 2));
     expect(r.missing[0]).toContain('Old guide');
   });

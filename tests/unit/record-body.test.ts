@@ -9,7 +9,9 @@ const para = (content: object[]) => ({ type: 'doc', content: [{ type: 'paragraph
 describe('processBody: validate, sanitise, render', () => {
   it('renders headings, lists and marks to HTML and plain text', () => {
     const out = processBody(markdownToDoc('## Context\n\nWe **chose** *two* props.\n\n- sprint\n- endurance\n'));
-    expect(out.html).toBe('<h2>Context</h2><p>We <strong>chose</strong> <em>two</em> props.</p><ul><li><p>sprint</p></li><li><p>endurance</p></li></ul>');
+    expect(out.html).toBe(
+      '<h2>Context</h2><p>We <strong>chose</strong> <em>two</em> props.</p><ul><li><p>sprint</p></li><li><p>endurance</p></li></ul>',
+    );
     expect(out.text).toContain('We chose two props.');
   });
 
@@ -21,7 +23,16 @@ describe('processBody: validate, sanitise, render', () => {
 
   it('drops javascript:, data: and obfuscated links but keeps https, mailto and site paths', () => {
     const link = (href: string) => ({ type: 'text', text: href, marks: [{ type: 'link', attrs: { href } }] });
-    const out = processBody(para([link('javascript:alert(1)'), link('data:text/html,x'), link('java\nscript:alert(1)'), link('https://example.org/'), link('mailto:a@b.c'), link('/records/x')]));
+    const out = processBody(
+      para([
+        link('javascript:alert(1)'),
+        link('data:text/html,x'),
+        link('java\nscript:alert(1)'),
+        link('https://example.org/'),
+        link('mailto:a@b.c'),
+        link('/records/x'),
+      ]),
+    );
     expect(out.html.match(/<a /g)).toHaveLength(3);
     expect(out.html).not.toMatch(/href="(javascript|data|java)/);
     const hrefs = JSON.stringify(out.doc).match(/"href":"[^"]*"/g);
@@ -29,7 +40,16 @@ describe('processBody: validate, sanitise, render', () => {
   });
 
   it('drops attributes the schema does not know (event handlers, styles)', () => {
-    const out = processBody({ type: 'doc', content: [{ type: 'heading', attrs: { level: 2, onclick: 'x', style: 'color:red' }, content: [{ type: 'text', text: 'H' }] }] });
+    const out = processBody({
+      type: 'doc',
+      content: [
+        {
+          type: 'heading',
+          attrs: { level: 2, onclick: 'x', style: 'color:red' },
+          content: [{ type: 'text', text: 'H' }],
+        },
+      ],
+    });
     expect(out.html).toBe('<h2>H</h2>');
   });
 
@@ -39,7 +59,10 @@ describe('processBody: validate, sanitise, render', () => {
     ['the wrong root', { type: 'paragraph' }],
     ['an unknown node', { type: 'doc', content: [{ type: 'script', content: [] }] }],
     ['text directly in the document', { type: 'doc', content: [{ type: 'text', text: 'bare' }] }],
-    ['a heading level the editor does not offer', { type: 'doc', content: [{ type: 'heading', attrs: { level: 7 }, content: [] }] }],
+    [
+      'a heading level the editor does not offer',
+      { type: 'doc', content: [{ type: 'heading', attrs: { level: 7 }, content: [] }] },
+    ],
   ])('refuses %s with a 400 on path body', (_name, body) => {
     try {
       processBody(body);

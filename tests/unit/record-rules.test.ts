@@ -3,8 +3,18 @@ import { canMove, nextStatuses, needsReplacement, isValidStatus, INITIAL_STATUS 
 
 // API.md: decision statuses draft → proposed → accepted → superseded | withdrawn (proposed may also go to
 // withdrawn); lesson statuses open → addressed.
-const ALLOWED = new Set(['decision:draft>proposed', 'decision:proposed>accepted', 'decision:proposed>withdrawn', 'decision:accepted>superseded', 'decision:accepted>withdrawn', 'lesson:open>addressed']);
-const ALL: Record<'decision' | 'lesson', string[]> = { decision: ['draft', 'proposed', 'accepted', 'superseded', 'withdrawn'], lesson: ['open', 'addressed'] };
+const ALLOWED = new Set([
+  'decision:draft>proposed',
+  'decision:proposed>accepted',
+  'decision:proposed>withdrawn',
+  'decision:accepted>superseded',
+  'decision:accepted>withdrawn',
+  'lesson:open>addressed',
+]);
+const ALL: Record<'decision' | 'lesson', string[]> = {
+  decision: ['draft', 'proposed', 'accepted', 'superseded', 'withdrawn'],
+  lesson: ['open', 'addressed'],
+};
 
 describe('record lifecycles', () => {
   for (const kind of ['decision', 'lesson'] as const) {

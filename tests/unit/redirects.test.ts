@@ -15,7 +15,9 @@ describe('redirects after sign-in', () => {
   });
 
   it('sends the signed-out back where they were going', () => {
-    expect(signInPath(new URL('http://h/records/abc?tab=history'))).toBe('/sign-in?next=%2Frecords%2Fabc%3Ftab%3Dhistory');
+    expect(signInPath(new URL('http://h/records/abc?tab=history'))).toBe(
+      '/sign-in?next=%2Frecords%2Fabc%3Ftab%3Dhistory',
+    );
     expect(signInPath(new URL('http://h/'))).toBe('/sign-in');
   });
 });

@@ -14,7 +14,8 @@ class FakeRes extends EventEmitter {
 const turn = async () => {
   for (let i = 0; i < 5; i++) await new Promise((r) => setImmediate(r));
 };
-const recordInto = (started: number[]) => ((_req: unknown, res: unknown) => void started.push((res as FakeRes).id)) as never;
+const recordInto = (started: number[]) =>
+  ((_req: unknown, res: unknown) => void started.push((res as FakeRes).id)) as never;
 
 describe('request queue', () => {
   it('starts requests in arrival order, never more than the limit at once', async () => {

@@ -23,10 +23,14 @@ describe('content security policy', () => {
   });
 
   it('adds the headers to HTML and to other responses, keeping ones a route set', async () => {
-    const page = await withSecurityHeaders(new Response('<script>go()</script>', { headers: { 'content-type': 'text/html' } }));
+    const page = await withSecurityHeaders(
+      new Response('<script>go()</script>', { headers: { 'content-type': 'text/html' } }),
+    );
     expect(page.headers.get('content-security-policy')).toContain(sha('go()'));
     expect(await page.text()).toBe('<script>go()</script>');
-    const json = await withSecurityHeaders(new Response('{}', { headers: { 'content-type': 'application/json', 'referrer-policy': 'no-referrer' } }));
+    const json = await withSecurityHeaders(
+      new Response('{}', { headers: { 'content-type': 'application/json', 'referrer-policy': 'no-referrer' } }),
+    );
     expect(json.headers.get('x-content-type-options')).toBe('nosniff');
     expect(json.headers.get('referrer-policy')).toBe('no-referrer');
     expect(json.headers.get('content-security-policy')).toContain("script-src 'self'");

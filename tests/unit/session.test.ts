@@ -3,7 +3,13 @@ import { eq } from 'drizzle-orm';
 import { AstroCookies } from '../../node_modules/astro/dist/core/cookies/cookies.js';
 import { db } from '../../src/lib/server/db/client';
 import { sessions, users } from '../../src/lib/server/db/schema';
-import { startSession, readSession, endAllSessions, SESSION_COOKIE, SESSION_LIFETIME_DAYS } from '../../src/lib/server/auth/lucia';
+import {
+  startSession,
+  readSession,
+  endAllSessions,
+  SESSION_COOKIE,
+  SESSION_LIFETIME_DAYS,
+} from '../../src/lib/server/auth/lucia';
 import { newId } from '../../src/lib/server/ids';
 
 const DAY = 86_400;
@@ -16,12 +22,26 @@ function jar(session?: string) {
 }
 
 function setExpiry(id: string, secondsFromNow: number) {
-  db().update(sessions).set({ expiresAt: Math.floor(Date.now() / 1000) + secondsFromNow }).where(eq(sessions.id, id)).run();
+  db()
+    .update(sessions)
+    .set({ expiresAt: Math.floor(Date.now() / 1000) + secondsFromNow })
+    .where(eq(sessions.id, id))
+    .run();
 }
 
 beforeAll(() => {
   userId = newId();
-  db().insert(users).values({ id: userId, email: 's@wakebook.test', name: 'Session Tester', role: 'member', passwordHash: 'x', createdAt: new Date() }).run();
+  db()
+    .insert(users)
+    .values({
+      id: userId,
+      email: 's@wakebook.test',
+      name: 'Session Tester',
+      role: 'member',
+      passwordHash: 'x',
+      createdAt: new Date(),
+    })
+    .run();
 });
 
 describe('sessions', () => {
@@ -42,7 +62,9 @@ describe('sessions', () => {
     const cookies = jar(session.id);
     const { user } = await readSession(cookies);
     expect(user).toBeNull();
-    expect([...cookies.headers()].join('\n')).toMatch(new RegExp(`${SESSION_COOKIE}=;|${SESSION_COOKIE}=\\s*;|Max-Age=0`));
+    expect([...cookies.headers()].join('\n')).toMatch(
+      new RegExp(`${SESSION_COOKIE}=;|${SESSION_COOKIE}=\\s*;|Max-Age=0`),
+    );
   });
 
   it('slides: a session used in its second half is extended', async () => {

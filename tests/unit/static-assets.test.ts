@@ -50,7 +50,11 @@ describe('built assets served from memory', () => {
     serveAsset(assets, { method: 'GET', url: '/favicon.svg', headers: {} }, first);
     expect(first.headers?.['cache-control']).toBe('public, max-age=0, must-revalidate');
     const again = fakeRes();
-    serveAsset(assets, { method: 'GET', url: '/favicon.svg', headers: { 'if-none-match': first.headers?.etag } }, again);
+    serveAsset(
+      assets,
+      { method: 'GET', url: '/favicon.svg', headers: { 'if-none-match': first.headers?.etag } },
+      again,
+    );
     expect(again.status).toBe(304);
     const head = fakeRes();
     serveAsset(assets, { method: 'HEAD', url: '/favicon.svg', headers: {} }, head);

@@ -12,10 +12,16 @@ export default function DigestToggle({ initial }: { initial: boolean }) {
     try {
       const res = await apiFetch<{ digestOptIn: boolean }>('/api/me', { method: 'PATCH', json: { digestOptIn: next } });
       setOn(res.digestOptIn);
-      setMessage({ kind: 'ok', text: res.digestOptIn ? 'You will get the weekly digest.' : 'The weekly digest is off.' });
+      setMessage({
+        kind: 'ok',
+        text: res.digestOptIn ? 'You will get the weekly digest.' : 'The weekly digest is off.',
+      });
     } catch (e) {
       setOn(!next);
-      setMessage({ kind: 'error', text: e instanceof ApiError ? e.message : 'Could not reach the server; nothing changed.' });
+      setMessage({
+        kind: 'error',
+        text: e instanceof ApiError ? e.message : 'Could not reach the server; nothing changed.',
+      });
     } finally {
       setBusy(false);
     }
@@ -26,7 +32,16 @@ export default function DigestToggle({ initial }: { initial: boolean }) {
         <input type="checkbox" checked={on} disabled={busy} onChange={(e) => change(e.target.checked)} />
         <span>Send me the weekly digest by e-mail</span>
       </label>
-      <div aria-live="polite">{message && <p role={message.kind === 'error' ? 'alert' : 'status'} className={message.kind === 'error' ? 'field-error' : 'text-sm text-accent'}>{message.text}</p>}</div>
+      <div aria-live="polite">
+        {message && (
+          <p
+            role={message.kind === 'error' ? 'alert' : 'status'}
+            className={message.kind === 'error' ? 'field-error' : 'text-sm text-accent'}
+          >
+            {message.text}
+          </p>
+        )}
+      </div>
     </div>
   );
 }

@@ -15,7 +15,15 @@ interface Props {
 }
 
 /** A lead's controls for one person: role, and who owns what in the current season. */
-export default function PersonEditor({ id, name, role: initialRole, owned: initialOwned, subsystems, season, isSelf }: Props) {
+export default function PersonEditor({
+  id,
+  name,
+  role: initialRole,
+  owned: initialOwned,
+  subsystems,
+  season,
+  isSelf,
+}: Props) {
   const [open, setOpen] = useState(false);
   const [role, setRole] = useState<Role>(initialRole);
   const [owned, setOwned] = useState<string[]>(initialOwned);
@@ -48,32 +56,71 @@ export default function PersonEditor({ id, name, role: initialRole, owned: initi
 
   if (!open) {
     return (
-      <button type="button" className="btn btn-quiet text-sm" onClick={() => setOpen(true)} aria-label={`Change ${name}`}>
+      <button
+        type="button"
+        className="btn btn-quiet text-sm"
+        onClick={() => setOpen(true)}
+        aria-label={`Change ${name}`}
+      >
         Change
       </button>
     );
   }
   return (
-    <form onSubmit={save} className="flex min-w-56 flex-col gap-2 rounded-md border border-line bg-surface p-3 text-sm" aria-label={`Change ${name}`}>
+    <form
+      onSubmit={save}
+      className="flex min-w-56 flex-col gap-2 rounded-md border border-line bg-surface p-3 text-sm"
+      aria-label={`Change ${name}`}
+    >
       <div className="field">
         <label htmlFor={`${base}-role`}>Role</label>
-        <select id={`${base}-role`} className="input py-1 text-sm" value={role} onChange={(e) => setRole(e.target.value as Role)}>
+        <select
+          id={`${base}-role`}
+          className="input py-1 text-sm"
+          value={role}
+          onChange={(e) => setRole(e.target.value as Role)}
+        >
           <RoleOptions />
         </select>
       </div>
       {season ? (
         <fieldset>
           <legend className="mb-1 font-semibold">Owns in {season}</legend>
-          <SubsystemChecks subsystems={subsystems} owned={owned} onChange={setOwned} className="grid grid-cols-2 gap-x-3 gap-y-1" />
+          <SubsystemChecks
+            subsystems={subsystems}
+            owned={owned}
+            onChange={setOwned}
+            className="grid grid-cols-2 gap-x-3 gap-y-1"
+          />
         </fieldset>
       ) : (
         <p className="text-muted">No season is current, so there is nothing to assign.</p>
       )}
       <div className="flex gap-2">
-        <button type="submit" className="btn btn-primary text-sm" disabled={busy || !changed}>{busy ? 'Saving…' : 'Save'}</button>
-        <button type="button" className="btn btn-quiet text-sm" onClick={() => { setOpen(false); setRole(saved.role); setOwned(saved.owned); setMessage(null); }}>Close</button>
+        <button type="submit" className="btn btn-primary text-sm" disabled={busy || !changed}>
+          {busy ? 'Saving…' : 'Save'}
+        </button>
+        <button
+          type="button"
+          className="btn btn-quiet text-sm"
+          onClick={() => {
+            setOpen(false);
+            setRole(saved.role);
+            setOwned(saved.owned);
+            setMessage(null);
+          }}
+        >
+          Close
+        </button>
       </div>
-      {message && <p role={message.kind === 'error' ? 'alert' : 'status'} className={message.kind === 'error' ? 'field-error' : 'text-accent'}>{message.text}</p>}
+      {message && (
+        <p
+          role={message.kind === 'error' ? 'alert' : 'status'}
+          className={message.kind === 'error' ? 'field-error' : 'text-accent'}
+        >
+          {message.text}
+        </p>
+      )}
     </form>
   );
 }

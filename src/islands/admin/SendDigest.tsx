@@ -29,8 +29,19 @@ export default function SendDigest() {
   }
   return (
     <div className="flex flex-col gap-2">
-      <button type="button" className="btn btn-primary self-start" onClick={send} disabled={busy}>{busy ? 'Sending…' : 'Send the digest now'}</button>
-      <div aria-live="polite">{result && <p role={result.kind === 'error' ? 'alert' : 'status'} className={result.kind === 'error' ? 'alert' : 'notice'}>{result.text}</p>}</div>
+      <button type="button" className="btn btn-primary self-start" onClick={send} disabled={busy}>
+        {busy ? 'Sending…' : 'Send the digest now'}
+      </button>
+      <div aria-live="polite">
+        {result && (
+          <p
+            role={result.kind === 'error' ? 'alert' : 'status'}
+            className={result.kind === 'error' ? 'alert' : 'notice'}
+          >
+            {result.text}
+          </p>
+        )}
+      </div>
     </div>
   );
 }

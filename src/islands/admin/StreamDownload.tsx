@@ -49,7 +49,9 @@ export default function StreamDownload({ url, label, fallbackName }: Props) {
         count += value.byteLength;
         setReceived(count);
       }
-      const href = URL.createObjectURL(new Blob(chunks, { type: res.headers.get('content-type') ?? 'application/octet-stream' }));
+      const href = URL.createObjectURL(
+        new Blob(chunks, { type: res.headers.get('content-type') ?? 'application/octet-stream' }),
+      );
       const a = document.createElement('a');
       a.href = href;
       a.download = name;
@@ -71,22 +73,47 @@ export default function StreamDownload({ url, label, fallbackName }: Props) {
   return (
     <div className="flex flex-col gap-2">
       <div className="flex flex-wrap items-center gap-2">
-        <button type="button" className="btn btn-primary" onClick={start} disabled={state === 'busy'} aria-describedby={`${fallbackName}-progress`}>
+        <button
+          type="button"
+          className="btn btn-primary"
+          onClick={start}
+          disabled={state === 'busy'}
+          aria-describedby={`${fallbackName}-progress`}
+        >
           {state === 'busy' ? 'Preparing…' : label}
         </button>
-        {state === 'busy' && <button type="button" className="btn btn-quiet" onClick={() => abort.current?.abort()}>Cancel</button>}
+        {state === 'busy' && (
+          <button type="button" className="btn btn-quiet" onClick={() => abort.current?.abort()}>
+            Cancel
+          </button>
+        )}
       </div>
-      <p id={`${fallbackName}-progress`} role="status" aria-live="polite" aria-busy={state === 'busy'} className="text-sm text-muted tabular">
+      <p
+        id={`${fallbackName}-progress`}
+        role="status"
+        aria-live="polite"
+        aria-busy={state === 'busy'}
+        className="text-sm text-muted tabular"
+      >
         {state === 'busy' && (
           <>
-            <span className="mr-2 inline-block h-3 w-3 animate-spin rounded-full border-2 border-accent border-t-transparent align-middle" aria-hidden="true" />
+            <span
+              className="mr-2 inline-block h-3 w-3 animate-spin rounded-full border-2 border-accent border-t-transparent align-middle"
+              aria-hidden="true"
+            />
             {formatBytes(received)} received{total ? ` of ${formatBytes(total)}` : ''}…
           </>
         )}
         {state === 'done' && `Done: ${formatBytes(received)} saved.`}
       </p>
-      {state === 'busy' && total && <progress className="w-64" max={total} value={received} aria-label="Download progress" />}
-      {state === 'error' && <p className="field-error" role="alert">{error}</p>}
+      {state === 'busy' && total && (
+        <progress className="w-64" max={total} value={received} aria-label="Download progress" />
+      )}
+      {state === 'error' && (
+        <p className="field-error" role="alert">
+          {error}
+        </p>
+      )}
     </div>
   );
 }

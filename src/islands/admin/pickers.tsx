@@ -6,7 +6,9 @@ export function RoleOptions() {
   return (
     <>
       {(Object.keys(ROLE_LABELS) as Role[]).map((r) => (
-        <option key={r} value={r}>{ROLE_LABELS[r]}</option>
+        <option key={r} value={r}>
+          {ROLE_LABELS[r]}
+        </option>
       ))}
     </>
   );
@@ -26,7 +28,11 @@ export function SubsystemChecks({ subsystems, owned, onChange, className }: Subs
     <div className={className}>
       {subsystems.map((s) => (
         <label key={s.slug} className="flex items-center gap-1.5">
-          <input type="checkbox" checked={owned.includes(s.slug)} onChange={(e) => onChange(e.target.checked ? [...owned, s.slug] : owned.filter((x) => x !== s.slug))} />
+          <input
+            type="checkbox"
+            checked={owned.includes(s.slug)}
+            onChange={(e) => onChange(e.target.checked ? [...owned, s.slug] : owned.filter((x) => x !== s.slug))}
+          />
           {s.name}
         </label>
       ))}

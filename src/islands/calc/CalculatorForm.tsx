@@ -45,11 +45,21 @@ function toInputs(inputs: InputMeta[], raw: Raw): Record<string, unknown> {
   return out;
 }
 
-export default function CalculatorForm({ kind, initialInputs, subsystems = [], defaultSubsystem, canSave = false, embedded = false }: Props) {
+export default function CalculatorForm({
+  kind,
+  initialInputs,
+  subsystems = [],
+  defaultSubsystem,
+  canSave = false,
+  embedded = false,
+}: Props) {
   const calc = getCalculator(kind);
   const [raw, setRaw] = useState<Raw>(() => initialRaw(calc?.inputs ?? [], initialInputs));
   const deferred = useDeferredValue(raw);
-  const run = useMemo(() => (calc ? runCalculator(kind, toInputs(calc.inputs, deferred)) : null), [calc, kind, deferred]);
+  const run = useMemo(
+    () => (calc ? runCalculator(kind, toInputs(calc.inputs, deferred)) : null),
+    [calc, kind, deferred],
+  );
   const datasets = useMemo(
     () => (run?.ok && run.result.series ? Object.values(run.result.series).map((set) => [{ set }]) : []),
     [run],
@@ -58,29 +68,51 @@ export default function CalculatorForm({ kind, initialInputs, subsystems = [], d
   if (!calc || !run) return <p className="alert">Unknown calculator “{kind}”.</p>;
 
   const fieldErrors: Record<string, string> = {};
-  if (!run.ok && run.error === 'invalid_input') for (const i of run.issues) fieldErrors[i.path.split('.')[0]] ??= i.message;
+  if (!run.ok && run.error === 'invalid_input')
+    for (const i of run.issues) fieldErrors[i.path.split('.')[0]] ??= i.message;
   if (!run.ok && run.error === 'out_of_range') fieldErrors[run.input] ??= run.message;
 
   const groups = [...new Set(calc.inputs.map((m) => m.group ?? 'Inputs'))];
   const set = (name: string, value: string) => setRaw((r) => ({ ...r, [name]: value }));
 
   return (
-    <div className={embedded ? 'card my-6 font-sans' : 'grid gap-8 lg:grid-cols-[minmax(0,26rem)_minmax(0,1fr)]'} data-calculator={kind}>
-      <form className="flex flex-col gap-5" onSubmit={(e) => e.preventDefault()} aria-label={`${calc.title} inputs`} noValidate>
+    <div
+      className={embedded ? 'card my-6 font-sans' : 'grid gap-8 lg:grid-cols-[minmax(0,26rem)_minmax(0,1fr)]'}
+      data-calculator={kind}
+    >
+      <form
+        className="flex flex-col gap-5"
+        onSubmit={(e) => e.preventDefault()}
+        aria-label={`${calc.title} inputs`}
+        noValidate
+      >
         {embedded && <p className="eyebrow">Live calculator · {calc.title}</p>}
         {groups.map((g) => (
           <fieldset key={g} className="flex flex-col gap-3">
             <legend className="mb-1 text-sm font-bold uppercase tracking-wide text-muted">{g}</legend>
-            {calc.inputs.filter((m) => (m.group ?? 'Inputs') === g).map((m) => (
-              <Field key={m.name} meta={m} value={raw[m.name] ?? ''} error={fieldErrors[m.name]} onChange={(v) => set(m.name, v)} idPrefix={embedded ? `emb-${kind}` : 'in'} />
-            ))}
+            {calc.inputs
+              .filter((m) => (m.group ?? 'Inputs') === g)
+              .map((m) => (
+                <Field
+                  key={m.name}
+                  meta={m}
+                  value={raw[m.name] ?? ''}
+                  error={fieldErrors[m.name]}
+                  onChange={(v) => set(m.name, v)}
+                  idPrefix={embedded ? `emb-${kind}` : 'in'}
+                />
+              ))}
           </fieldset>
         ))}
-        <button type="button" className="btn btn-quiet self-start" onClick={() => setRaw(initialRaw(calc.inputs))}>Reset to defaults</button>
+        <button type="button" className="btn btn-quiet self-start" onClick={() => setRaw(initialRaw(calc.inputs))}>
+          Reset to defaults
+        </button>
       </form>
 
       <section aria-labelledby={`results-${kind}`} aria-live="polite" className="flex flex-col gap-4">
-        <h2 id={`results-${kind}`} className="text-lg font-semibold">Results</h2>
+        <h2 id={`results-${kind}`} className="text-lg font-semibold">
+          Results
+        </h2>
         {!run.ok && (
           <p className="alert" role="status">
             {run.error === 'out_of_range' ? run.message : 'Some inputs need attention: see the messages beside them.'}
@@ -93,8 +125,12 @@ export default function CalculatorForm({ kind, initialInputs, subsystems = [], d
               <tbody>
                 {calc.outputs.map((o) => (
                   <tr key={o.name} className="border-b border-line">
-                    <th scope="row" className="py-1.5 pr-3 text-left font-medium" title={o.help}>{o.label}</th>
-                    <td className="py-1.5 text-right font-semibold" data-output={o.name}>{formatNumber(run.result.outputs[o.name], o.digits)}</td>
+                    <th scope="row" className="py-1.5 pr-3 text-left font-medium" title={o.help}>
+                      {o.label}
+                    </th>
+                    <td className="py-1.5 text-right font-semibold" data-output={o.name}>
+                      {formatNumber(run.result.outputs[o.name], o.digits)}
+                    </td>
                     <td className="w-20 py-1.5 pl-2 text-muted">{o.unit}</td>
                   </tr>
                 ))}
@@ -102,7 +138,12 @@ export default function CalculatorForm({ kind, initialInputs, subsystems = [], d
             </table>
             {run.result.warnings.length > 0 && (
               <ul className="notice flex flex-col gap-1 text-sm" aria-label="Warnings">
-                {run.result.warnings.map((w) => <li key={w}><span aria-hidden="true">⚠ </span>{w}</li>)}
+                {run.result.warnings.map((w) => (
+                  <li key={w}>
+                    <span aria-hidden="true">⚠ </span>
+                    {w}
+                  </li>
+                ))}
               </ul>
             )}
             {!embedded && datasets.map((d, i) => <LineChart key={i} datasets={d} />)}
@@ -110,13 +151,27 @@ export default function CalculatorForm({ kind, initialInputs, subsystems = [], d
             {run.result.grid && <GridTable grid={run.result.grid} />}
           </>
         )}
-        {!embedded && canSave && run.ok && <SaveForm kind={kind} inputs={run.inputs} subsystems={subsystems} defaultSubsystem={defaultSubsystem} />}
+        {!embedded && canSave && run.ok && (
+          <SaveForm kind={kind} inputs={run.inputs} subsystems={subsystems} defaultSubsystem={defaultSubsystem} />
+        )}
       </section>
     </div>
   );
 }
 
-function Field({ meta, value, error, onChange, idPrefix }: { meta: InputMeta; value: string; error?: string; onChange: (v: string) => void; idPrefix: string }) {
+function Field({
+  meta,
+  value,
+  error,
+  onChange,
+  idPrefix,
+}: {
+  meta: InputMeta;
+  value: string;
+  error?: string;
+  onChange: (v: string) => void;
+  idPrefix: string;
+}) {
   const id = `${idPrefix}-${meta.name}`;
   const describedBy = [`${id}-help`, error ? `${id}-error` : ''].filter(Boolean).join(' ');
   return (
@@ -127,26 +182,69 @@ function Field({ meta, value, error, onChange, idPrefix }: { meta: InputMeta; va
       </label>
       <div className="flex items-center gap-2">
         {meta.kind === 'choice' ? (
-          <select id={id} className="input" value={value} onChange={(e) => onChange(e.target.value)} aria-describedby={describedBy} aria-invalid={error ? true : undefined}>
-            {(meta.options ?? []).map((o) => <option key={o.value} value={o.value}>{o.label}</option>)}
+          <select
+            id={id}
+            className="input"
+            value={value}
+            onChange={(e) => onChange(e.target.value)}
+            aria-describedby={describedBy}
+            aria-invalid={error ? true : undefined}
+          >
+            {(meta.options ?? []).map((o) => (
+              <option key={o.value} value={o.value}>
+                {o.label}
+              </option>
+            ))}
           </select>
         ) : (
-          <input id={id} className="input tabular" inputMode="decimal" value={value} onChange={(e) => onChange(e.target.value)}
-            aria-describedby={describedBy} aria-invalid={error ? true : undefined} autoComplete="off" />
+          <input
+            id={id}
+            className="input tabular"
+            inputMode="decimal"
+            value={value}
+            onChange={(e) => onChange(e.target.value)}
+            aria-describedby={describedBy}
+            aria-invalid={error ? true : undefined}
+            autoComplete="off"
+          />
         )}
-        {meta.unit && <span className="w-16 shrink-0 text-sm text-muted" aria-hidden="true">{meta.unit}</span>}
+        {meta.unit && (
+          <span className="w-16 shrink-0 text-sm text-muted" aria-hidden="true">
+            {meta.unit}
+          </span>
+        )}
       </div>
       <p id={`${id}-help`} className="text-xs text-muted">
         {meta.help}
         {meta.unit && <span className="sr-only"> Unit: {meta.unit}.</span>}
-        {meta.min !== undefined && meta.max !== undefined && <> Range {meta.min}–{meta.max}{meta.unit ? ` ${meta.unit}` : ''}.</>}
+        {meta.min !== undefined && meta.max !== undefined && (
+          <>
+            {' '}
+            Range {meta.min}–{meta.max}
+            {meta.unit ? ` ${meta.unit}` : ''}.
+          </>
+        )}
       </p>
-      {error && <p id={`${id}-error`} className="field-error">{error}</p>}
+      {error && (
+        <p id={`${id}-error`} className="field-error">
+          {error}
+        </p>
+      )}
     </div>
   );
 }
 
-function SaveForm({ kind, inputs, subsystems, defaultSubsystem }: { kind: string; inputs: Record<string, unknown>; subsystems: { slug: string; name: string }[]; defaultSubsystem?: string }) {
+function SaveForm({
+  kind,
+  inputs,
+  subsystems,
+  defaultSubsystem,
+}: {
+  kind: string;
+  inputs: Record<string, unknown>;
+  subsystems: { slug: string; name: string }[];
+  defaultSubsystem?: string;
+}) {
   const [title, setTitle] = useState('');
   const [subsystem, setSubsystem] = useState(defaultSubsystem ?? subsystems[0]?.slug ?? '');
   const [notes, setNotes] = useState('');
@@ -160,7 +258,10 @@ function SaveForm({ kind, inputs, subsystems, defaultSubsystem }: { kind: string
     setErrors({});
     setMessage('');
     try {
-      const res = await apiFetch<{ calculation: { url: string } }>('/api/calculations', { method: 'POST', json: { kind, title, subsystem, notes, inputs } });
+      const res = await apiFetch<{ calculation: { url: string } }>('/api/calculations', {
+        method: 'POST',
+        json: { kind, title, subsystem, notes, inputs },
+      });
       window.location.assign(res.calculation.url);
     } catch (err) {
       setSaving(false);
@@ -173,26 +274,57 @@ function SaveForm({ kind, inputs, subsystems, defaultSubsystem }: { kind: string
 
   return (
     <form onSubmit={save} className="card mt-2 flex flex-col gap-3" aria-labelledby="save-h" noValidate>
-      <h2 id="save-h" className="text-lg font-semibold">Save this calculation</h2>
-      {message && <p className="alert" role="alert">{message}</p>}
+      <h2 id="save-h" className="text-lg font-semibold">
+        Save this calculation
+      </h2>
+      {message && (
+        <p className="alert" role="alert">
+          {message}
+        </p>
+      )}
       <div className="field">
         <label htmlFor="save-title">Title</label>
-        <input id="save-title" className="input" value={title} onChange={(e) => setTitle(e.target.value)} placeholder="e.g. Endurance propeller at race pace"
-          aria-invalid={errors.title ? true : undefined} aria-describedby={errors.title ? 'save-title-error' : undefined} />
-        {errors.title && <p id="save-title-error" className="field-error">{errors.title}</p>}
+        <input
+          id="save-title"
+          className="input"
+          value={title}
+          onChange={(e) => setTitle(e.target.value)}
+          placeholder="e.g. Endurance propeller at race pace"
+          aria-invalid={errors.title ? true : undefined}
+          aria-describedby={errors.title ? 'save-title-error' : undefined}
+        />
+        {errors.title && (
+          <p id="save-title-error" className="field-error">
+            {errors.title}
+          </p>
+        )}
       </div>
       <div className="field">
         <label htmlFor="save-subsystem">Subsystem</label>
-        <select id="save-subsystem" className="input" value={subsystem} onChange={(e) => setSubsystem(e.target.value)} aria-invalid={errors.subsystem ? true : undefined}>
-          {subsystems.map((s) => <option key={s.slug} value={s.slug}>{s.name}</option>)}
+        <select
+          id="save-subsystem"
+          className="input"
+          value={subsystem}
+          onChange={(e) => setSubsystem(e.target.value)}
+          aria-invalid={errors.subsystem ? true : undefined}
+        >
+          {subsystems.map((s) => (
+            <option key={s.slug} value={s.slug}>
+              {s.name}
+            </option>
+          ))}
         </select>
         {errors.subsystem && <p className="field-error">{errors.subsystem}</p>}
       </div>
       <div className="field">
-        <label htmlFor="save-notes">Notes <span className="font-normal text-muted">(optional: why these inputs, where they came from)</span></label>
+        <label htmlFor="save-notes">
+          Notes <span className="font-normal text-muted">(optional: why these inputs, where they came from)</span>
+        </label>
         <textarea id="save-notes" className="input min-h-24" value={notes} onChange={(e) => setNotes(e.target.value)} />
       </div>
-      <button type="submit" className="btn btn-primary self-start" disabled={saving}>{saving ? 'Saving…' : 'Save calculation'}</button>
+      <button type="submit" className="btn btn-primary self-start" disabled={saving}>
+        {saving ? 'Saving…' : 'Save calculation'}
+      </button>
     </form>
   );
 }

@@ -1,7 +1,14 @@
 import type { JSONContent } from '@tiptap/react';
 
 export interface Draft {
-  fields: { title: string; subsystem: string; seasonId: string; source: string; calculationIds: string[]; relatedRecordIds: string[] };
+  fields: {
+    title: string;
+    subsystem: string;
+    seasonId: string;
+    source: string;
+    calculationIds: string[];
+    relatedRecordIds: string[];
+  };
   body: JSONContent;
   baseVersion: number;
   savedAt: string;

@@ -13,7 +13,8 @@ export default function AttachmentUploader({ recordId, maxMb }: { recordId: stri
   const [over, setOver] = useState(false);
   const input = useRef<HTMLInputElement>(null);
 
-  const update = (i: number, patch: Partial<Upload>) => setUploads((u) => u.map((x, j) => (j === i ? { ...x, ...patch } : x)));
+  const update = (i: number, patch: Partial<Upload>) =>
+    setUploads((u) => u.map((x, j) => (j === i ? { ...x, ...patch } : x)));
 
   function send(files: FileList | File[]) {
     const list = Array.from(files);
@@ -59,24 +60,50 @@ export default function AttachmentUploader({ recordId, maxMb }: { recordId: stri
 
   return (
     <div className="flex flex-col gap-2">
-      <div onDragOver={(e) => { e.preventDefault(); setOver(true); }} onDragLeave={() => setOver(false)} onDrop={onDrop}
-        className={`rounded-lg border-2 border-dashed p-4 text-center text-sm ${over ? 'border-accent bg-accent-soft' : 'border-line'}`}>
+      <div
+        onDragOver={(e) => {
+          e.preventDefault();
+          setOver(true);
+        }}
+        onDragLeave={() => setOver(false)}
+        onDrop={onDrop}
+        className={`rounded-lg border-2 border-dashed p-4 text-center text-sm ${over ? 'border-accent bg-accent-soft' : 'border-line'}`}
+      >
         <p>Drop photos, PDFs, CSV logs or text files here, or</p>
-        <button type="button" className="btn btn-quiet mt-2 text-sm" onClick={() => input.current?.click()}>Choose files…</button>
-        <input ref={input} type="file" multiple className="sr-only" aria-label="Attach files" tabIndex={-1}
-          accept="image/png,image/jpeg,image/gif,image/webp,application/pdf,text/csv,.csv,text/plain,.txt,.log" onChange={(e) => e.target.files && send(e.target.files)} />
+        <button type="button" className="btn btn-quiet mt-2 text-sm" onClick={() => input.current?.click()}>
+          Choose files…
+        </button>
+        <input
+          ref={input}
+          type="file"
+          multiple
+          className="sr-only"
+          aria-label="Attach files"
+          tabIndex={-1}
+          accept="image/png,image/jpeg,image/gif,image/webp,application/pdf,text/csv,.csv,text/plain,.txt,.log"
+          onChange={(e) => e.target.files && send(e.target.files)}
+        />
         <p className="mt-2 text-xs text-muted">Up to {maxMb} MB each. The type is checked from the file’s contents.</p>
       </div>
       <ul className="flex flex-col gap-2" aria-live="polite">
         {uploads.map((u, i) => (
           <li key={i} className="text-sm">
-            <div className="flex justify-between gap-2"><span className="truncate">{u.name}</span><span className="text-muted">{u.state === 'done' ? 'Uploaded' : u.state === 'error' ? 'Failed' : `${Math.round(u.progress * 100)} %`}</span></div>
+            <div className="flex justify-between gap-2">
+              <span className="truncate">{u.name}</span>
+              <span className="text-muted">
+                {u.state === 'done' ? 'Uploaded' : u.state === 'error' ? 'Failed' : `${Math.round(u.progress * 100)} %`}
+              </span>
+            </div>
             <progress className="w-full" max={1} value={u.progress} aria-label={`Upload of ${u.name}`} />
             {u.message && <p className="field-error">{u.message}</p>}
           </li>
         ))}
       </ul>
-      {anyDone && !busy && <button type="button" className="btn btn-primary self-start text-sm" onClick={() => window.location.reload()}>Show the new attachments</button>}
+      {anyDone && !busy && (
+        <button type="button" className="btn btn-primary self-start text-sm" onClick={() => window.location.reload()}>
+          Show the new attachments
+        </button>
+      )}
     </div>
   );
 }

@@ -27,14 +27,20 @@ export default function CsvPreview({ url, name }: { url: string; name: string })
 
   if (error) return <p className="text-sm text-muted">{error}</p>;
   if (!table) return <p className="text-sm text-muted">Loading {name}…</p>;
-  if (numeric.length < 2) return <p className="text-sm text-muted">This file has fewer than two numeric columns to plot.</p>;
+  if (numeric.length < 2)
+    return <p className="text-sm text-muted">This file has fewer than two numeric columns to plot.</p>;
 
   const col = (i: number) => table.rows.map((r) => Number(r[i]));
   const unitOf = (h: string) => /_(\w+)$/.exec(h)?.[1] ?? '';
   const set = {
     title: name,
     x: { name: table.header[x], label: table.header[x], unit: unitOf(table.header[x]), values: col(x) },
-    y: ys.map((i) => ({ name: table.header[i], label: table.header[i], unit: unitOf(table.header[i]), values: col(i) })),
+    y: ys.map((i) => ({
+      name: table.header[i],
+      label: table.header[i],
+      unit: unitOf(table.header[i]),
+      values: col(i),
+    })),
   };
   const id = `csv-${name.replace(/\W+/g, '-')}`;
   return (
@@ -43,20 +49,38 @@ export default function CsvPreview({ url, name }: { url: string; name: string })
         <div className="field">
           <label htmlFor={`${id}-x`}>Along (x)</label>
           <select id={`${id}-x`} className="input py-1" value={x} onChange={(e) => setX(Number(e.target.value))}>
-            {numeric.map((i) => <option key={i} value={i}>{table.header[i]}</option>)}
+            {numeric.map((i) => (
+              <option key={i} value={i}>
+                {table.header[i]}
+              </option>
+            ))}
           </select>
         </div>
         <fieldset className="flex flex-wrap gap-3">
           <legend className="mb-1 font-semibold">Plot</legend>
-          {numeric.filter((i) => i !== x).map((i) => (
-            <label key={i} className="flex items-center gap-1">
-              <input type="checkbox" checked={ys.includes(i)} onChange={() => setYs((v) => (v.includes(i) ? v.filter((k) => k !== i) : [...v, i]))} />
-              {table.header[i]}
-            </label>
-          ))}
+          {numeric
+            .filter((i) => i !== x)
+            .map((i) => (
+              <label key={i} className="flex items-center gap-1">
+                <input
+                  type="checkbox"
+                  checked={ys.includes(i)}
+                  onChange={() => setYs((v) => (v.includes(i) ? v.filter((k) => k !== i) : [...v, i]))}
+                />
+                {table.header[i]}
+              </label>
+            ))}
         </fieldset>
       </div>
-      {ys.length > 0 ? <LineChart datasets={[{ set }]} height={260} title={`${name}: ${table.rows.length} rows${table.truncated ? ' (first 20,000 shown)' : ''}`} /> : <p className="text-sm text-muted">Tick a column to plot.</p>}
+      {ys.length > 0 ? (
+        <LineChart
+          datasets={[{ set }]}
+          height={260}
+          title={`${name}: ${table.rows.length} rows${table.truncated ? ' (first 20,000 shown)' : ''}`}
+        />
+      ) : (
+        <p className="text-sm text-muted">Tick a column to plot.</p>
+      )}
     </div>
   );
 }

@@ -17,10 +17,24 @@ export default function ReviewButton({ id, version }: { id: string; version: num
   }
   return (
     <div className="flex flex-col gap-2">
-      <label htmlFor="review-note" className="text-sm font-semibold">Review note <span className="font-normal text-muted">(optional)</span></label>
-      <textarea id="review-note" className="input min-h-16 text-sm" value={note} onChange={(e) => setNote(e.target.value)} maxLength={1000} />
-      <button type="button" className="btn btn-quiet text-sm" onClick={review} disabled={state === 'busy'}>Mark version {version} reviewed</button>
-      {state === 'error' && <p className="field-error" role="alert">{error}</p>}
+      <label htmlFor="review-note" className="text-sm font-semibold">
+        Review note <span className="font-normal text-muted">(optional)</span>
+      </label>
+      <textarea
+        id="review-note"
+        className="input min-h-16 text-sm"
+        value={note}
+        onChange={(e) => setNote(e.target.value)}
+        maxLength={1000}
+      />
+      <button type="button" className="btn btn-quiet text-sm" onClick={review} disabled={state === 'busy'}>
+        Mark version {version} reviewed
+      </button>
+      {state === 'error' && (
+        <p className="field-error" role="alert">
+          {error}
+        </p>
+      )}
     </div>
   );
 }

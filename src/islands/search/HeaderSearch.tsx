@@ -79,7 +79,9 @@ export default function HeaderSearch({ initialQuery = '' }: { initialQuery?: str
       onBlur={onBlur}
       onPointerEnter={() => setWanted(true)}
     >
-      <label htmlFor="site-search" className="sr-only">Search everything</label>
+      <label htmlFor="site-search" className="sr-only">
+        Search everything
+      </label>
       <input
         ref={inputRef}
         id="site-search"
@@ -109,7 +111,10 @@ export default function HeaderSearch({ initialQuery = '' }: { initialQuery?: str
         onKeyDown={onKeyDown}
       />
       {type && <input type="hidden" name="type" value={type} />}
-      <div hidden={!showList} className="absolute right-0 z-30 mt-1 w-[min(36rem,calc(100vw-2rem))] rounded-lg border border-line bg-surface p-2 shadow-lg">
+      <div
+        hidden={!showList}
+        className="absolute right-0 z-30 mt-1 w-[min(36rem,calc(100vw-2rem))] rounded-lg border border-line bg-surface p-2 shadow-lg"
+      >
         <div role="group" aria-label="Show only" className="mb-2 flex flex-wrap gap-1.5">
           {(['', ...SEARCH_TYPES] as const).map((t) => (
             <button

@@ -1,7 +1,12 @@
 import { statusInfo } from '~/lib/record-status';
 import type { SearchHit } from '~/lib/search-types';
 
-const TYPE_LABEL: Record<SearchHit['type'], string> = { guide: 'Guide', decision: 'Decision record', lesson: 'Lesson', calculation: 'Calculation' };
+const TYPE_LABEL: Record<SearchHit['type'], string> = {
+  guide: 'Guide',
+  decision: 'Decision record',
+  lesson: 'Lesson',
+  calculation: 'Calculation',
+};
 
 /** "Decision record · Propulsion · 2025–26 · ✓ Accepted": what a hit is, in words. */
 export function HitMeta({ hit, className }: { hit: SearchHit; className?: string }) {

@@ -26,7 +26,10 @@ interface Props {
 /** The listbox under the header's search field: results as you type (SWR), then a link to all results. */
 export default function SearchResults({ ref, query, type, listId, idPrefix, allHref, visible, onActiveId }: Props) {
   const key = query ? searchKey({ q: query, type, limit: LIMIT }) : null;
-  const { data, error, isLoading } = useSWR<SearchResponse>(key, fetcher, { keepPreviousData: true, revalidateOnFocus: false });
+  const { data, error, isLoading } = useSWR<SearchResponse>(key, fetcher, {
+    keepPreviousData: true,
+    revalidateOnFocus: false,
+  });
   const hits = query && data ? data.hits : [];
   const count = hits.length + (query ? 1 : 0); // the last option opens the results page
   // The highlighted option belongs to the answer it was chosen in; a new answer starts with none.
@@ -70,13 +73,21 @@ export default function SearchResults({ ref, query, type, listId, idPrefix, allH
 
   return (
     <>
-      <p className="sr-only" role="status" aria-live="polite">{visible ? status : ''}</p>
+      <p className="sr-only" role="status" aria-live="polite">
+        {visible ? status : ''}
+      </p>
       {data && data.corrections.length > 0 && hits.length > 0 && (
         <p className="px-2 pb-1 text-xs text-muted">
-          Showing results for {data.corrections.map((c) => `“${c.to[0]}”`).join(', ')} (you typed {data.corrections.map((c) => `“${c.from}”`).join(', ')}).
+          Showing results for {data.corrections.map((c) => `“${c.to[0]}”`).join(', ')} (you typed{' '}
+          {data.corrections.map((c) => `“${c.from}”`).join(', ')}).
         </p>
       )}
-      <div role="listbox" id={listId} aria-label="Search results" className="flex max-h-[70vh] flex-col overflow-y-auto [&_mark]:rounded-sm [&_mark]:bg-amber-soft [&_mark]:text-ink">
+      <div
+        role="listbox"
+        id={listId}
+        aria-label="Search results"
+        className="flex max-h-[70vh] flex-col overflow-y-auto [&_mark]:rounded-sm [&_mark]:bg-amber-soft [&_mark]:text-ink"
+      >
         {hits.map((h, i) => (
           <a
             key={`${h.type}:${h.id}`}
@@ -90,7 +101,9 @@ export default function SearchResults({ ref, query, type, listId, idPrefix, allH
           >
             <span className="block text-sm font-semibold" dangerouslySetInnerHTML={{ __html: h.titleHtml }} />
             <HitMeta hit={h} className="block text-xs text-muted" />
-            {h.snippet && <span className="mt-0.5 line-clamp-2 block text-xs" dangerouslySetInnerHTML={{ __html: h.snippet }} />}
+            {h.snippet && (
+              <span className="mt-0.5 line-clamp-2 block text-xs" dangerouslySetInnerHTML={{ __html: h.snippet }} />
+            )}
           </a>
         ))}
         {query && (
@@ -103,7 +116,11 @@ export default function SearchResults({ ref, query, type, listId, idPrefix, allH
             onMouseMove={() => active !== hits.length && choose(hits.length)}
             className={`block rounded-md px-2 py-1.5 text-sm font-semibold ${active === hits.length ? 'bg-accent-soft' : ''}`}
           >
-            {hits.length === 0 ? (isLoading ? 'Searching…' : `No quick results: open the results page for “${query}”`) : `All results for “${query}”`}
+            {hits.length === 0
+              ? isLoading
+                ? 'Searching…'
+                : `No quick results: open the results page for “${query}”`
+              : `All results for “${query}”`}
           </a>
         )}
       </div>

@@ -14,7 +14,15 @@ const COLOURS = ['#115e56', '#b5730a', '#7d4a6c', '#3c5a99', '#2c7a48', '#a3261b
 const DASHES: (number[] | undefined)[] = [undefined, [8, 4], [2, 3], [12, 3, 2, 3]];
 
 /** Line chart of one or more series sets on a shared numeric x axis; units pick the left or right y axis. */
-export default function LineChart({ datasets, height = 300, title }: { datasets: ChartDataset[]; height?: number; title?: string }) {
+export default function LineChart({
+  datasets,
+  height = 300,
+  title,
+}: {
+  datasets: ChartDataset[];
+  height?: number;
+  title?: string;
+}) {
   const el = useRef<HTMLDivElement>(null);
 
   useEffect(() => {
@@ -40,16 +48,36 @@ export default function LineChart({ datasets, height = 300, title }: { datasets:
         });
       }),
     );
-    const axisStyle = { stroke: 'currentColor', grid: { stroke: 'rgba(127,127,127,0.2)' }, ticks: { stroke: 'rgba(127,127,127,0.3)' } };
+    const axisStyle = {
+      stroke: 'currentColor',
+      grid: { stroke: 'rgba(127,127,127,0.2)' },
+      ticks: { stroke: 'rgba(127,127,127,0.3)' },
+    };
     const opts: uPlot.Options = {
       width: host.clientWidth || 600,
       height,
       scales: { x: { time: false }, left: {}, right: {} },
-      series: [{ label: `${first.x.label}${first.x.unit ? ` (${first.x.unit})` : ''}`, value: (_u, v) => (v == null ? '–' : formatNumber(v, 3)) }, ...lines],
+      series: [
+        {
+          label: `${first.x.label}${first.x.unit ? ` (${first.x.unit})` : ''}`,
+          value: (_u, v) => (v == null ? '–' : formatNumber(v, 3)),
+        },
+        ...lines,
+      ],
       axes: [
         { ...axisStyle, label: `${first.x.label}${first.x.unit ? ` (${first.x.unit})` : ''}` },
         { ...axisStyle, scale: 'left', label: units[0] || '' },
-        ...(units.length > 1 ? [{ ...axisStyle, scale: 'right', side: 1 as const, label: units.slice(1).join(', '), grid: { show: false } }] : []),
+        ...(units.length > 1
+          ? [
+              {
+                ...axisStyle,
+                scale: 'right',
+                side: 1 as const,
+                label: units.slice(1).join(', '),
+                grid: { show: false },
+              },
+            ]
+          : []),
       ],
       legend: { live: true },
     };
@@ -66,7 +94,11 @@ export default function LineChart({ datasets, height = 300, title }: { datasets:
   const label = title ?? first?.title ?? 'Chart';
   return (
     <figure className="text-ink">
-      <div ref={el} role="img" aria-label={`${label}: ${datasets.flatMap((d) => d.set.y.map((y) => y.label)).join(', ')} against ${first?.x.label ?? 'x'}`} />
+      <div
+        ref={el}
+        role="img"
+        aria-label={`${label}: ${datasets.flatMap((d) => d.set.y.map((y) => y.label)).join(', ')} against ${first?.x.label ?? 'x'}`}
+      />
       <figcaption className="mt-1 text-sm text-muted">{label}</figcaption>
       {first && <DataTable datasets={datasets} />}
     </figure>
@@ -85,11 +117,17 @@ function DataTable({ datasets }: { datasets: ChartDataset[] }) {
         return (
           <div key={i} className="mt-2 max-h-72 overflow-auto">
             <table className="tabular border-collapse text-xs">
-              <caption className="text-left font-semibold">{d.name ? `${d.name}: ` : ''}{d.set.title}</caption>
+              <caption className="text-left font-semibold">
+                {d.name ? `${d.name}: ` : ''}
+                {d.set.title}
+              </caption>
               <thead>
                 <tr>
                   {[d.set.x, ...d.set.y].map((a) => (
-                    <th key={a.name} scope="col" className="border border-line px-2 py-1 text-left">{a.label}{a.unit ? ` (${a.unit})` : ''}</th>
+                    <th key={a.name} scope="col" className="border border-line px-2 py-1 text-left">
+                      {a.label}
+                      {a.unit ? ` (${a.unit})` : ''}
+                    </th>
                   ))}
                 </tr>
               </thead>
@@ -97,7 +135,9 @@ function DataTable({ datasets }: { datasets: ChartDataset[] }) {
                 {rows.map((j) => (
                   <tr key={j}>
                     {[d.set.x, ...d.set.y].map((a) => (
-                      <td key={a.name} className="border border-line px-2 py-0.5 text-right">{formatNumber(a.values[j], 3)}</td>
+                      <td key={a.name} className="border border-line px-2 py-0.5 text-right">
+                        {formatNumber(a.values[j], 3)}
+                      </td>
                     ))}
                   </tr>
                 ))}

@@ -57,13 +57,22 @@ export function polynomial(terms: readonly BTerm[], J: number, pd: number, ae: n
 export function checkBSeriesRange(blades: number, bladeAreaRatio: number, pitchRatio: number): void {
   const [zMin, zMax] = B_RANGE.blades;
   if (!Number.isInteger(blades) || blades < zMin || blades > zMax)
-    throw new OutOfRangeError('blades', `The B-series polynomials cover ${zMin} to ${zMax} blades; ${blades} is outside.`);
+    throw new OutOfRangeError(
+      'blades',
+      `The B-series polynomials cover ${zMin} to ${zMax} blades; ${blades} is outside.`,
+    );
   const [aMin, aMax] = B_RANGE.bladeAreaRatio;
   if (bladeAreaRatio < aMin - 1e-12 || bladeAreaRatio > aMax + 1e-12)
-    throw new OutOfRangeError('bladeAreaRatio', `The B-series polynomials cover A_E/A_0 ${aMin}–${aMax}; ${bladeAreaRatio} is outside.`);
+    throw new OutOfRangeError(
+      'bladeAreaRatio',
+      `The B-series polynomials cover A_E/A_0 ${aMin}–${aMax}; ${bladeAreaRatio} is outside.`,
+    );
   const [pMin, pMax] = B_RANGE.pitchRatio;
   if (pitchRatio < pMin - 1e-12 || pitchRatio > pMax + 1e-12)
-    throw new OutOfRangeError('pitchRatio', `The B-series polynomials cover P/D ${pMin}–${pMax}; ${pitchRatio} is outside.`);
+    throw new OutOfRangeError(
+      'pitchRatio',
+      `The B-series polynomials cover P/D ${pMin}–${pMax}; ${pitchRatio} is outside.`,
+    );
 }
 
 export function coverageWarning(blades: number, bladeAreaRatio: number): string | null {
@@ -132,7 +141,13 @@ export function chordRatio075(blades: number, bladeAreaRatio: number): number {
 }
 
 /** Blade-section Reynolds number at 0.75R. n in rev/s. */
-export function reynolds075(p: { blades: number; bladeAreaRatio: number }, D: number, n: number, vA: number, nu: number): number {
+export function reynolds075(
+  p: { blades: number; bladeAreaRatio: number },
+  D: number,
+  n: number,
+  vA: number,
+  nu: number,
+): number {
   const c = chordRatio075(p.blades, p.bladeAreaRatio) * D;
   return (c * Math.sqrt(vA * vA + (0.75 * Math.PI * n * D) ** 2)) / nu;
 }

@@ -1,4 +1,12 @@
-import { EG50_CP_C, EG50_CP_KJKGK, EG50_DENSITY_F, EG50_DENSITY_LBFT3, EG50_VISC_C, EG50_VISC_CP, LBFT3_TO_KGM3 } from './data/glycol';
+import {
+  EG50_CP_C,
+  EG50_CP_KJKGK,
+  EG50_DENSITY_F,
+  EG50_DENSITY_LBFT3,
+  EG50_VISC_C,
+  EG50_VISC_CP,
+  LBFT3_TO_KGM3,
+} from './data/glycol';
 import { interp } from './numeric';
 import { heatCapacities, liquidDensity } from './properties/iapws95';
 import { P0 } from './properties/water';

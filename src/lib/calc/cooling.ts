@@ -36,29 +36,119 @@ const DEMO_INPUT_POWER_W = 4000;
 const DEMO_EFFICIENCY = 0.97;
 
 const inputs: InputMeta[] = [
-  num({ name: 'heat_W', label: 'Heat to remove', unit: 'W', min: 0, max: 100000, step: 1, optional: true, group: 'Heat', help: 'Heat into the coolant. Leave empty to compute it from input power and efficiency.' }),
   num({
-    name: 'inputPower_W', label: 'Input power', unit: 'W', min: 0, max: 500000, step: 10, default: DEMO_INPUT_POWER_W, optional: true, group: 'Heat',
+    name: 'heat_W',
+    label: 'Heat to remove',
+    unit: 'W',
+    min: 0,
+    max: 100000,
+    step: 1,
+    optional: true,
+    group: 'Heat',
+    help: 'Heat into the coolant. Leave empty to compute it from input power and efficiency.',
+  }),
+  num({
+    name: 'inputPower_W',
+    label: 'Input power',
+    unit: 'W',
+    min: 0,
+    max: 500000,
+    step: 10,
+    default: DEMO_INPUT_POWER_W,
+    optional: true,
+    group: 'Heat',
     help: 'Electrical power into the motor or controller; with its efficiency gives the heat (1 − η)·P. Demo values 4000 W and 0.97 are used when no heat figure is given.',
   }),
-  num({ name: 'efficiency', label: 'Efficiency', unit: '', min: 0.01, max: 1, step: 0.005, default: DEMO_EFFICIENCY, optional: true, group: 'Heat', help: 'Efficiency of the cooled unit at that power, as a fraction.' }),
-  num({ name: 'flow_lpm', label: 'Coolant flow', unit: 'L/min', min: 0.01, max: 500, step: 0.1, default: 4, group: 'Coolant', help: 'Volume flow through the cold plate or jacket.' }),
+  num({
+    name: 'efficiency',
+    label: 'Efficiency',
+    unit: '',
+    min: 0.01,
+    max: 1,
+    step: 0.005,
+    default: DEMO_EFFICIENCY,
+    optional: true,
+    group: 'Heat',
+    help: 'Efficiency of the cooled unit at that power, as a fraction.',
+  }),
+  num({
+    name: 'flow_lpm',
+    label: 'Coolant flow',
+    unit: 'L/min',
+    min: 0.01,
+    max: 500,
+    step: 0.1,
+    default: 4,
+    group: 'Coolant',
+    help: 'Volume flow through the cold plate or jacket.',
+  }),
   choice({
-    name: 'coolant', label: 'Coolant', unit: '', default: 'water', group: 'Coolant',
+    name: 'coolant',
+    label: 'Coolant',
+    unit: '',
+    default: 'water',
+    group: 'Coolant',
     options: [
       { value: 'water', label: 'Water' },
       { value: 'glycol50', label: 'Ethylene glycol 50 % by volume' },
     ],
     help: 'Water carries more heat; a glycol mix protects against frost when the boat is stored cold.',
   }),
-  num({ name: 'inlet_C', label: 'Inlet temperature', unit: '°C', min: -25, max: 95, step: 0.5, default: 25, group: 'Coolant', help: 'Coolant temperature entering the cooled unit (lake-water loops run near the water temperature).' }),
   num({
-    name: 'thermalResistance_KperW', label: 'Thermal resistance to coolant', unit: 'K/W', min: 0, max: 50, step: 0.001, default: 0.1, group: 'Hot spot',
+    name: 'inlet_C',
+    label: 'Inlet temperature',
+    unit: '°C',
+    min: -25,
+    max: 95,
+    step: 0.5,
+    default: 25,
+    group: 'Coolant',
+    help: 'Coolant temperature entering the cooled unit (lake-water loops run near the water temperature).',
+  }),
+  num({
+    name: 'thermalResistance_KperW',
+    label: 'Thermal resistance to coolant',
+    unit: 'K/W',
+    min: 0,
+    max: 50,
+    step: 0.001,
+    default: 0.1,
+    group: 'Hot spot',
     help: 'Sum of series resistances from the hot spot (junction or winding) to the coolant, e.g. junction–case + case–plate + plate–coolant, for the heat path considered.',
   }),
-  num({ name: 'pipeBore_mm', label: 'Pipe bore', unit: 'mm', min: 1, max: 200, step: 0.5, optional: true, group: 'Pipe (optional)', help: 'Inner diameter of the hose or pipe run, for the pressure drop.' }),
-  num({ name: 'pipeLength_m', label: 'Pipe length', unit: 'm', min: 0.01, max: 200, step: 0.05, optional: true, group: 'Pipe (optional)', help: 'Length of the run (straight-pipe loss only; add fittings separately).' }),
-  num({ name: 'roughness_mm', label: 'Wall roughness ε', unit: 'mm', min: 0, max: 5, step: 0.0005, default: 0.0015, group: 'Pipe (optional)', help: 'Absolute roughness: about 0.0015 mm for drawn tubing and smooth hose.' }),
+  num({
+    name: 'pipeBore_mm',
+    label: 'Pipe bore',
+    unit: 'mm',
+    min: 1,
+    max: 200,
+    step: 0.5,
+    optional: true,
+    group: 'Pipe (optional)',
+    help: 'Inner diameter of the hose or pipe run, for the pressure drop.',
+  }),
+  num({
+    name: 'pipeLength_m',
+    label: 'Pipe length',
+    unit: 'm',
+    min: 0.01,
+    max: 200,
+    step: 0.05,
+    optional: true,
+    group: 'Pipe (optional)',
+    help: 'Length of the run (straight-pipe loss only; add fittings separately).',
+  }),
+  num({
+    name: 'roughness_mm',
+    label: 'Wall roughness ε',
+    unit: 'mm',
+    min: 0,
+    max: 5,
+    step: 0.0005,
+    default: 0.0015,
+    group: 'Pipe (optional)',
+    help: 'Absolute roughness: about 0.0015 mm for drawn tubing and smooth hose.',
+  }),
 ];
 
 const fillDemoHeat = (raw: unknown) => {
@@ -70,19 +160,18 @@ const fillDemoHeat = (raw: unknown) => {
   return raw;
 };
 
-const schema = z
-  .preprocess(fillDemoHeat, objectSchema(inputs))
-  .superRefine((v, ctx) => {
-    const o = v as Record<string, number | undefined>;
-    if (o.heat_W === undefined && (o.inputPower_W === undefined || o.efficiency === undefined)) {
-      for (const path of ['inputPower_W', 'efficiency'])
-        if (o[path] === undefined) ctx.addIssue({ code: 'custom', path: [path], message: 'Give the heat, or both input power and efficiency.' });
-    }
-    if ((o.pipeBore_mm === undefined) !== (o.pipeLength_m === undefined)) {
-      const missing = o.pipeBore_mm === undefined ? 'pipeBore_mm' : 'pipeLength_m';
-      ctx.addIssue({ code: 'custom', path: [missing], message: 'Give both pipe bore and pipe length, or neither.' });
-    }
-  });
+const schema = z.preprocess(fillDemoHeat, objectSchema(inputs)).superRefine((v, ctx) => {
+  const o = v as Record<string, number | undefined>;
+  if (o.heat_W === undefined && (o.inputPower_W === undefined || o.efficiency === undefined)) {
+    for (const path of ['inputPower_W', 'efficiency'])
+      if (o[path] === undefined)
+        ctx.addIssue({ code: 'custom', path: [path], message: 'Give the heat, or both input power and efficiency.' });
+  }
+  if ((o.pipeBore_mm === undefined) !== (o.pipeLength_m === undefined)) {
+    const missing = o.pipeBore_mm === undefined ? 'pipeBore_mm' : 'pipeLength_m';
+    ctx.addIssue({ code: 'custom', path: [missing], message: 'Give both pipe bore and pipe length, or neither.' });
+  }
+});
 
 /** Series thermal path: T_hot = T_ref + P·ΣR_th (semiconductor datasheet practice). */
 export function junctionTemperature(refC: number, power_W: number, resistances_KperW: number[]): number {
@@ -101,8 +190,20 @@ export const coolingCalculator: Calculator<CoolingInput, CoolingOutput> = {
     { name: 'heat_W', label: 'Heat into coolant', unit: 'W', digits: 0 },
     { name: 'coolantRise_K', label: 'Coolant temperature rise', unit: 'K', digits: 2 },
     { name: 'outlet_C', label: 'Outlet temperature', unit: '°C', digits: 1 },
-    { name: 'hotspot_C', label: 'Hot-spot temperature', unit: '°C', digits: 1, help: 'Outlet coolant + heat × thermal resistance (conservative: uses the warmest coolant).' },
-    { name: 'pressureDrop_Pa', label: 'Pipe pressure drop', unit: 'Pa', digits: 0, help: 'Straight pipe only; empty when no pipe is given.' },
+    {
+      name: 'hotspot_C',
+      label: 'Hot-spot temperature',
+      unit: '°C',
+      digits: 1,
+      help: 'Outlet coolant + heat × thermal resistance (conservative: uses the warmest coolant).',
+    },
+    {
+      name: 'pressureDrop_Pa',
+      label: 'Pipe pressure drop',
+      unit: 'Pa',
+      digits: 0,
+      help: 'Straight pipe only; empty when no pipe is given.',
+    },
     { name: 'reynolds', label: 'Pipe Reynolds number', unit: '', digits: 0 },
   ],
   sources: [
@@ -110,7 +211,11 @@ export const coolingCalculator: Calculator<CoolingInput, CoolingOutput> = {
     SRC_IAPWS08_VISC,
     SRC_ASHRAE_EG,
     SRC_ETB_EG,
-    { citation: 'Specific heat of 50 % by volume ethylene glycol: values from memory of the ASHRAE / supplier tables (±3 %), not re-checked — use your coolant datasheet.', use: 'c_p of the glycol mix (memory).' },
+    {
+      citation:
+        'Specific heat of 50 % by volume ethylene glycol: values from memory of the ASHRAE / supplier tables (±3 %), not re-checked — use your coolant datasheet.',
+      use: 'c_p of the glycol mix (memory).',
+    },
     SRC_COLEBROOK,
     SRC_FLUIDS,
   ],
@@ -119,7 +224,12 @@ export const coolingCalculator: Calculator<CoolingInput, CoolingOutput> = {
     const heat = input.heat_W ?? (input.inputPower_W as number) * (1 - (input.efficiency as number));
     const [tMin, tMax] = COOLANT_RANGE[input.coolant];
     if (input.inlet_C < tMin)
-      throw new OutOfRangeError('inlet_C', input.coolant === 'water' ? 'Water freezes at this inlet temperature; use a glycol mix.' : `Below ${tMin} °C the glycol table ends.`);
+      throw new OutOfRangeError(
+        'inlet_C',
+        input.coolant === 'water'
+          ? 'Water freezes at this inlet temperature; use a glycol mix.'
+          : `Below ${tMin} °C the glycol table ends.`,
+      );
     const q = input.flow_lpm / 60000; // m³/s
     let mean = input.inlet_C;
     let rise = 0;
@@ -140,10 +250,15 @@ export const coolingCalculator: Calculator<CoolingInput, CoolingOutput> = {
     const hotspot = outlet + heat * input.thermalResistance_KperW;
     const warnings: string[] = [];
     if (input.coolant === 'glycol50')
-      warnings.push('Glycol specific heat is from memory (±3 %); use your coolant supplier’s datasheet for a final design.');
-    if (outlet > 60) warnings.push(`Outlet coolant at ${outlet.toFixed(0)} °C can scald; check hose and fitting ratings.`);
+      warnings.push(
+        'Glycol specific heat is from memory (±3 %); use your coolant supplier’s datasheet for a final design.',
+      );
+    if (outlet > 60)
+      warnings.push(`Outlet coolant at ${outlet.toFixed(0)} °C can scald; check hose and fitting ratings.`);
     if (hotspot > 125)
-      warnings.push(`Hot spot ${hotspot.toFixed(0)} °C: check it against the device's maximum junction or winding temperature with margin.`);
+      warnings.push(
+        `Hot spot ${hotspot.toFixed(0)} °C: check it against the device's maximum junction or winding temperature with margin.`,
+      );
 
     let pressureDrop: number | null = null;
     let reynolds: number | null = null;
@@ -154,10 +269,19 @@ export const coolingCalculator: Calculator<CoolingInput, CoolingOutput> = {
       const f = frictionFactor(reynolds, input.roughness_mm / input.pipeBore_mm);
       pressureDrop = darcyWeisbach(f, input.pipeLength_m, D, props.density_kgm3, U);
       if (reynolds >= RE_LAMINAR && reynolds < RE_TURBULENT)
-        warnings.push(`Pipe Re ${reynolds.toFixed(0)} is in the laminar–turbulent transition; the friction factor there is uncertain.`);
+        warnings.push(
+          `Pipe Re ${reynolds.toFixed(0)} is in the laminar–turbulent transition; the friction factor there is uncertain.`,
+        );
     }
     return {
-      outputs: { heat_W: heat, coolantRise_K: rise, outlet_C: outlet, hotspot_C: hotspot, pressureDrop_Pa: pressureDrop, reynolds },
+      outputs: {
+        heat_W: heat,
+        coolantRise_K: rise,
+        outlet_C: outlet,
+        hotspot_C: hotspot,
+        pressureDrop_Pa: pressureDrop,
+        reynolds,
+      },
       warnings,
     };
   },

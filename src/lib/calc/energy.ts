@@ -14,14 +14,68 @@ export interface EnergyInput {
   drivetrainEfficiency: number;
 }
 
-export type EnergyOutput = { availableEnergy_Wh: number; averageElectricalPower_W: number; averageShaftPower_W: number };
+export type EnergyOutput = {
+  availableEnergy_Wh: number;
+  averageElectricalPower_W: number;
+  averageShaftPower_W: number;
+};
 
 export const energyInputs = (group = 'Energy budget'): InputMeta[] => [
-  num({ name: 'batteryEnergy_Wh', label: 'Battery energy', unit: 'Wh', min: 0, max: 100000, step: 10, default: 1800, group, help: 'Nominal pack energy, V_nom × C_Ah (demo default 1.8 kWh; class rules usually cap it).' }),
-  num({ name: 'usableFraction', label: 'Usable fraction', unit: '', min: 0, max: 1, step: 0.01, default: 0.9, group, help: 'Share of the nominal energy you plan to use (depth of discharge, reserve, cold-cell derating).' }),
-  num({ name: 'raceDuration_h', label: 'Race duration', unit: 'h', min: 0.01, max: 48, step: 0.05, default: 2, group, help: 'Length of the race or heat the budget must last.' }),
-  num({ name: 'solarPower_W', label: 'Average solar power', unit: 'W', min: 0, max: 20000, step: 10, default: 250, group, help: 'Average array output over the race window (use the solar calculator for one condition).' }),
-  num({ name: 'drivetrainEfficiency', label: 'Drivetrain efficiency', unit: '', min: 0.05, max: 1, step: 0.01, default: 0.85, group, help: 'Battery-to-shaft efficiency: controller × motor × gearbox.' }),
+  num({
+    name: 'batteryEnergy_Wh',
+    label: 'Battery energy',
+    unit: 'Wh',
+    min: 0,
+    max: 100000,
+    step: 10,
+    default: 1800,
+    group,
+    help: 'Nominal pack energy, V_nom × C_Ah (demo default 1.8 kWh; class rules usually cap it).',
+  }),
+  num({
+    name: 'usableFraction',
+    label: 'Usable fraction',
+    unit: '',
+    min: 0,
+    max: 1,
+    step: 0.01,
+    default: 0.9,
+    group,
+    help: 'Share of the nominal energy you plan to use (depth of discharge, reserve, cold-cell derating).',
+  }),
+  num({
+    name: 'raceDuration_h',
+    label: 'Race duration',
+    unit: 'h',
+    min: 0.01,
+    max: 48,
+    step: 0.05,
+    default: 2,
+    group,
+    help: 'Length of the race or heat the budget must last.',
+  }),
+  num({
+    name: 'solarPower_W',
+    label: 'Average solar power',
+    unit: 'W',
+    min: 0,
+    max: 20000,
+    step: 10,
+    default: 250,
+    group,
+    help: 'Average array output over the race window (use the solar calculator for one condition).',
+  }),
+  num({
+    name: 'drivetrainEfficiency',
+    label: 'Drivetrain efficiency',
+    unit: '',
+    min: 0.05,
+    max: 1,
+    step: 0.01,
+    default: 0.85,
+    group,
+    help: 'Battery-to-shaft efficiency: controller × motor × gearbox.',
+  }),
 ];
 
 const inputs = energyInputs();
@@ -35,7 +89,11 @@ export interface Budget {
 export function energyBudget(e: EnergyInput): Budget {
   const available = e.batteryEnergy_Wh * e.usableFraction + e.solarPower_W * e.raceDuration_h;
   const electrical = available / e.raceDuration_h;
-  return { availableEnergy_Wh: available, averageElectricalPower_W: electrical, averageShaftPower_W: electrical * e.drivetrainEfficiency };
+  return {
+    availableEnergy_Wh: available,
+    averageElectricalPower_W: electrical,
+    averageShaftPower_W: electrical * e.drivetrainEfficiency,
+  };
 }
 
 export const energyCautions = [CAUTION_BATTERY, CAUTION_DEFER];
@@ -43,23 +101,37 @@ export const energyCautions = [CAUTION_BATTERY, CAUTION_DEFER];
 export const energyCalculator: Calculator<EnergyInput, EnergyOutput> = {
   kind: 'energy',
   title: 'Race energy budget',
-  summary: 'Usable battery energy plus solar energy over the race, and the average electrical and shaft power they sustain.',
+  summary:
+    'Usable battery energy plus solar energy over the race, and the average electrical and shaft power they sustain.',
   engineVersion: '1.0.0',
   inputSchema: objectSchema(inputs) as unknown as z.ZodType<EnergyInput>,
   inputs,
   outputs: [
-    { name: 'availableEnergy_Wh', label: 'Available energy', unit: 'Wh', digits: 0, help: 'battery × usable fraction + solar power × duration' },
+    {
+      name: 'availableEnergy_Wh',
+      label: 'Available energy',
+      unit: 'Wh',
+      digits: 0,
+      help: 'battery × usable fraction + solar power × duration',
+    },
     { name: 'averageElectricalPower_W', label: 'Average electrical power', unit: 'W', digits: 0 },
     { name: 'averageShaftPower_W', label: 'Average shaft power', unit: 'W', digits: 0 },
   ],
   sources: [
-    { citation: 'Energy balance E = V_nom·C_Ah, usable E·DoD, average power E_usable/t (REFERENCES §6; arithmetic, no empirical model).', use: 'Energy budget.' },
+    {
+      citation:
+        'Energy balance E = V_nom·C_Ah, usable E·DoD, average power E_usable/t (REFERENCES §6; arithmetic, no empirical model).',
+      use: 'Energy budget.',
+    },
   ],
   cautions: energyCautions,
   compute(input) {
     const b = energyBudget(input);
     const warnings: string[] = [];
-    if (input.usableFraction > 0.95) warnings.push('Planning to use more than 95 % of the pack leaves no reserve for a headwind, a restart or a cold pack.');
+    if (input.usableFraction > 0.95)
+      warnings.push(
+        'Planning to use more than 95 % of the pack leaves no reserve for a headwind, a restart or a cold pack.',
+      );
     if (b.availableEnergy_Wh === 0) warnings.push('No energy available: the boat cannot move on this budget.');
     return { outputs: { ...b }, warnings };
   },

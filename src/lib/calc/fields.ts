@@ -14,7 +14,9 @@ export function int(spec: NumberSpec): InputMeta {
   return { kind: 'integer', step: 1, ...spec };
 }
 
-export function choice(spec: Omit<InputMeta, 'kind' | 'min' | 'max' | 'step'> & { options: { value: string; label: string }[] }): InputMeta {
+export function choice(
+  spec: Omit<InputMeta, 'kind' | 'min' | 'max' | 'step'> & { options: { value: string; label: string }[] },
+): InputMeta {
   return { kind: 'choice', ...spec };
 }
 
@@ -27,8 +29,10 @@ export function fieldSchema(meta: InputMeta): z.ZodType {
   } else {
     let n = z.number({ error: `${meta.label} must be a number` });
     if (meta.kind === 'integer') n = n.int({ error: `${meta.label} must be a whole number` });
-    if (meta.min !== undefined) n = n.min(meta.min, { error: `${meta.label} must be at least ${meta.min} ${meta.unit}`.trim() });
-    if (meta.max !== undefined) n = n.max(meta.max, { error: `${meta.label} must be at most ${meta.max} ${meta.unit}`.trim() });
+    if (meta.min !== undefined)
+      n = n.min(meta.min, { error: `${meta.label} must be at least ${meta.min} ${meta.unit}`.trim() });
+    if (meta.max !== undefined)
+      n = n.max(meta.max, { error: `${meta.label} must be at most ${meta.max} ${meta.unit}`.trim() });
     base = n;
   }
   // JSON forms send null for an empty optional field. An optional field's `default` only prefills the form;

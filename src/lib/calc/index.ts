@@ -30,11 +30,18 @@ export type CalculatorKind = keyof typeof calculators;
 export const calculatorKinds = Object.freeze(Object.keys(calculators) as CalculatorKind[]);
 
 export function getCalculator(kind: string): Calculator<any, any> | undefined {
-  return Object.prototype.hasOwnProperty.call(calculators, kind) ? (calculators as Record<string, Calculator<any, any>>)[kind] : undefined;
+  return Object.prototype.hasOwnProperty.call(calculators, kind)
+    ? (calculators as Record<string, Calculator<any, any>>)[kind]
+    : undefined;
 }
 
 export type RunResult =
-  | { ok: true; inputs: Record<string, unknown>; result: CalcResult<Record<string, number | string | null>>; engineVersion: string }
+  | {
+      ok: true;
+      inputs: Record<string, unknown>;
+      result: CalcResult<Record<string, number | string | null>>;
+      engineVersion: string;
+    }
   | { ok: false; error: 'invalid_input'; issues: { path: string; message: string }[] }
   | { ok: false; error: 'out_of_range'; input: string; message: string };
 
@@ -44,7 +51,12 @@ export type RunResult =
  */
 export function runCalculator(kind: string, rawInputs: unknown): RunResult {
   const calc = getCalculator(kind);
-  if (!calc) return { ok: false, error: 'invalid_input', issues: [{ path: 'kind', message: `Unknown calculator kind "${kind}".` }] };
+  if (!calc)
+    return {
+      ok: false,
+      error: 'invalid_input',
+      issues: [{ path: 'kind', message: `Unknown calculator kind "${kind}".` }],
+    };
   const parsed = calc.inputSchema.safeParse(rawInputs ?? {});
   if (!parsed.success) {
     return {

@@ -29,14 +29,24 @@ export function brent(f: (x: number) => number, a: number, b: number, tol = 1e-1
   if (fa === 0) return a;
   if (fb === 0) return b;
   if (Math.sign(fa) === Math.sign(fb)) throw new Error('brent: root not bracketed');
-  let c = a, fc = fa, d = b - a, e = d;
+  let c = a,
+    fc = fa,
+    d = b - a,
+    e = d;
   for (let i = 0; i < maxIter; i++) {
     if (Math.sign(fb) === Math.sign(fc)) {
-      c = a; fc = fa; d = b - a; e = d;
+      c = a;
+      fc = fa;
+      d = b - a;
+      e = d;
     }
     if (Math.abs(fc) < Math.abs(fb)) {
-      a = b; b = c; c = a;
-      fa = fb; fb = fc; fc = fa;
+      a = b;
+      b = c;
+      c = a;
+      fa = fb;
+      fb = fc;
+      fc = fa;
     }
     const tol1 = 2 * Number.EPSILON * Math.abs(b) + 0.5 * tol;
     const xm = 0.5 * (c - b);
@@ -48,7 +58,8 @@ export function brent(f: (x: number) => number, a: number, b: number, tol = 1e-1
         p = 2 * xm * s;
         q = 1 - s;
       } else {
-        const qq = fa / fc, r = fb / fc;
+        const qq = fa / fc,
+          r = fb / fc;
         p = s * (2 * xm * qq * (qq - r) - (b - a) * (r - 1));
         q = (qq - 1) * (r - 1) * (s - 1);
       }

@@ -46,25 +46,88 @@ export type PropellerOutput = {
 // Shared by race and propeller-sweep. Schema limits are generic; the B-series range is enforced in compute
 // so that the API can say which input is outside the method (422) rather than "invalid form" (400).
 export const geometryInputs = (group = 'Propeller'): InputMeta[] => [
-  int({ name: 'blades', label: 'Blades Z', unit: '', min: 1, max: 12, default: 3, group, help: 'Number of blades. The B-series covers 2–7.' }),
+  int({
+    name: 'blades',
+    label: 'Blades Z',
+    unit: '',
+    min: 1,
+    max: 12,
+    default: 3,
+    group,
+    help: 'Number of blades. The B-series covers 2–7.',
+  }),
   num({
-    name: 'bladeAreaRatio', label: 'Blade area ratio A_E/A_0', unit: '', min: 0.05, max: 2, step: 0.01, default: 0.5, group,
+    name: 'bladeAreaRatio',
+    label: 'Blade area ratio A_E/A_0',
+    unit: '',
+    min: 0.05,
+    max: 2,
+    step: 0.01,
+    default: 0.5,
+    group,
     help: 'Expanded blade area over disk area. The polynomials cover 0.30–1.05; tested models per blade number cover less (a warning says when).',
   }),
-  num({ name: 'pitchRatio', label: 'Pitch ratio P/D', unit: '', min: 0.1, max: 3, step: 0.01, default: 1.0, group, help: 'Pitch over diameter. The polynomials cover 0.5–1.4.' }),
-  num({ name: 'diameter_m', label: 'Diameter D', unit: 'm', min: 0.02, max: 3, step: 0.005, default: 0.2, group, help: 'Propeller diameter (demo default 0.20 m, typical of student boats).' }),
+  num({
+    name: 'pitchRatio',
+    label: 'Pitch ratio P/D',
+    unit: '',
+    min: 0.1,
+    max: 3,
+    step: 0.01,
+    default: 1.0,
+    group,
+    help: 'Pitch over diameter. The polynomials cover 0.5–1.4.',
+  }),
+  num({
+    name: 'diameter_m',
+    label: 'Diameter D',
+    unit: 'm',
+    min: 0.02,
+    max: 3,
+    step: 0.005,
+    default: 0.2,
+    group,
+    help: 'Propeller diameter (demo default 0.20 m, typical of student boats).',
+  }),
 ];
 
 export const wakeInput = (group = 'Propeller'): InputMeta =>
   num({
-    name: 'wakeFraction', label: 'Wake fraction w', unit: '', min: 0, max: 0.6, step: 0.01, default: 0, group,
+    name: 'wakeFraction',
+    label: 'Wake fraction w',
+    unit: '',
+    min: 0,
+    max: 0.6,
+    step: 0.01,
+    default: 0,
+    group,
     help: 'Taylor wake fraction: the propeller sees V_A = V·(1 − w). Near 0 for a pod ahead of the hull wake; measure or estimate for your layout.',
   });
 
 const inputs: InputMeta[] = [
   ...geometryInputs(),
-  num({ name: 'rpm', label: 'Shaft speed', unit: 'rpm', min: 1, max: 20000, step: 10, default: 1500, group: 'Operating point', help: 'Propeller shaft speed (after any gearbox).' }),
-  num({ name: 'speed_mps', label: 'Boat speed V', unit: 'm/s', min: 0, max: 30, step: 0.1, default: 4, group: 'Operating point', help: 'Boat speed through the water (demo default 4 m/s).' }),
+  num({
+    name: 'rpm',
+    label: 'Shaft speed',
+    unit: 'rpm',
+    min: 1,
+    max: 20000,
+    step: 10,
+    default: 1500,
+    group: 'Operating point',
+    help: 'Propeller shaft speed (after any gearbox).',
+  }),
+  num({
+    name: 'speed_mps',
+    label: 'Boat speed V',
+    unit: 'm/s',
+    min: 0,
+    max: 30,
+    step: 0.1,
+    default: 4,
+    group: 'Operating point',
+    help: 'Boat speed through the water (demo default 4 m/s).',
+  }),
   wakeInput('Operating point'),
   temperatureInput('Water'),
   waterInput('Water'),
@@ -91,7 +154,15 @@ export function operatingPoint(p: BSeriesPropeller, D: number, n: number, vA: nu
   const kq = cubic(p.kq, J);
   const thrust = kt * rho * n * n * D ** 4;
   const torque = kq * rho * n * n * D ** 5;
-  return { advanceRatio: J, kt, kq, efficiency: openWaterEfficiency(p, J), thrust_N: thrust, torque_Nm: torque, shaftPower_W: TWO_PI * n * torque };
+  return {
+    advanceRatio: J,
+    kt,
+    kq,
+    efficiency: openWaterEfficiency(p, J),
+    thrust_N: thrust,
+    torque_Nm: torque,
+    shaftPower_W: TWO_PI * n * torque,
+  };
 }
 
 export function openWaterSeries(p: BSeriesPropeller, points = 41): SeriesSet {
@@ -122,10 +193,22 @@ export const propellerCalculator: Calculator<PropellerInput, PropellerOutput> = 
     { name: 'advanceRatio', label: 'Advance ratio J', unit: '', digits: 3, help: 'J = V_A/(n·D), n in rev/s.' },
     { name: 'kt', label: 'Thrust coefficient K_T', unit: '', digits: 4 },
     { name: 'kq', label: 'Torque coefficient K_Q', unit: '', digits: 5 },
-    { name: 'efficiency', label: 'Open-water efficiency η₀', unit: '', digits: 3, help: 'η₀ = J·K_T/(2π·K_Q); empty when the propeller gives no thrust.' },
+    {
+      name: 'efficiency',
+      label: 'Open-water efficiency η₀',
+      unit: '',
+      digits: 3,
+      help: 'η₀ = J·K_T/(2π·K_Q); empty when the propeller gives no thrust.',
+    },
     { name: 'thrust_N', label: 'Thrust T', unit: 'N', digits: 1 },
     { name: 'torque_Nm', label: 'Torque Q', unit: 'N·m', digits: 2 },
-    { name: 'shaftPower_W', label: 'Shaft power P_D', unit: 'W', digits: 0, help: 'P_D = 2π·n·Q, delivered to the propeller.' },
+    {
+      name: 'shaftPower_W',
+      label: 'Shaft power P_D',
+      unit: 'W',
+      digits: 0,
+      help: 'P_D = 2π·n·Q, delivered to the propeller.',
+    },
   ],
   sources: propellerSources,
   cautions: propellerCautions,
@@ -140,12 +223,17 @@ export const propellerCalculator: Calculator<PropellerInput, PropellerOutput> = 
     const vA = input.speed_mps * (1 - input.wakeFraction);
     const J = vA / (n * D);
     if (J > J_MAX)
-      throw new OutOfRangeError('rpm', `Advance ratio J = ${J.toFixed(2)} is far beyond where this propeller gives thrust (J ≈ ${p.jZeroThrust.toFixed(2)}); raise the shaft speed or lower the boat speed.`);
+      throw new OutOfRangeError(
+        'rpm',
+        `Advance ratio J = ${J.toFixed(2)} is far beyond where this propeller gives thrust (J ≈ ${p.jZeroThrust.toFixed(2)}); raise the shaft speed or lower the boat speed.`,
+      );
     const op = operatingPoint(p, D, n, vA, water.density_kgm3);
     let efficiency: number | null = op.efficiency;
     if (op.kt <= 0) {
       efficiency = null;
-      warnings.push(`At J = ${J.toFixed(2)} the propeller gives no thrust (K_T ≤ 0 beyond J ≈ ${p.jZeroThrust.toFixed(2)}): it is being dragged or windmilling.`);
+      warnings.push(
+        `At J = ${J.toFixed(2)} the propeller gives no thrust (K_T ≤ 0 beyond J ≈ ${p.jZeroThrust.toFixed(2)}): it is being dragged or windmilling.`,
+      );
     }
     const rnWarn = reynoldsWarning(reynolds075(p, D, n, vA, water.kinematicViscosity_m2s));
     if (rnWarn) warnings.push(rnWarn);

@@ -40,7 +40,14 @@ export type RaceOutput = {
 
 export const thrustDeductionInput = (group = 'Propeller'): InputMeta =>
   num({
-    name: 'thrustDeduction', label: 'Thrust deduction t', unit: '', min: 0, max: 0.5, step: 0.01, default: 0, group,
+    name: 'thrustDeduction',
+    label: 'Thrust deduction t',
+    unit: '',
+    min: 0,
+    max: 0.5,
+    step: 0.01,
+    default: 0,
+    group,
     help: 'Share of thrust lost to the propeller’s suction on the hull: the useful thrust is T·(1 − t). Near 0 for a pod well clear of the hull.',
   });
 
@@ -89,24 +96,44 @@ export function selfPropulsion(ctx: RaceContext, V: number): SelfPropulsionPoint
   const kt = cubic(ctx.prop.kt, J);
   const kq = cubic(ctx.prop.kq, J);
   const torque = kq * ctx.rho * n * n * ctx.D ** 5;
-  return { speed: V, n, J, kt, kq, thrust: kt * ctx.rho * n * n * ctx.D ** 4, torque, shaftPower: 2 * Math.PI * n * torque, resistance: R };
+  return {
+    speed: V,
+    n,
+    J,
+    kt,
+    kq,
+    thrust: kt * ctx.rho * n * n * ctx.D ** 4,
+    torque,
+    shaftPower: 2 * Math.PI * n * torque,
+    resistance: R,
+  };
 }
 
 /** Speed at which the shaft power needed equals `power` (W); throws OutOfRangeError when none in SPEED_SEARCH. */
 export function solveRaceSpeed(ctx: RaceContext, power: number, powerInput = 'batteryEnergy_Wh'): SelfPropulsionPoint {
   const [vLo, vHi] = SPEED_SEARCH;
-  if (!(power > 0)) throw new OutOfRangeError(powerInput, 'The energy budget gives no shaft power, so there is no operating point.');
+  if (!(power > 0))
+    throw new OutOfRangeError(powerInput, 'The energy budget gives no shaft power, so there is no operating point.');
   const pLo = selfPropulsion(ctx, vLo).shaftPower;
   if (pLo > power)
-    throw new OutOfRangeError(powerInput, `The budget (${power.toFixed(0)} W at the shaft) is too small to push the boat even at ${vLo} m/s with this propeller.`);
+    throw new OutOfRangeError(
+      powerInput,
+      `The budget (${power.toFixed(0)} W at the shaft) is too small to push the boat even at ${vLo} m/s with this propeller.`,
+    );
   const pHi = selfPropulsion(ctx, vHi).shaftPower;
   if (pHi < power)
-    throw new OutOfRangeError(powerInput, `The budget (${power.toFixed(0)} W at the shaft) would drive the boat beyond ${vHi} m/s, outside this model; check the inputs.`);
+    throw new OutOfRangeError(
+      powerInput,
+      `The budget (${power.toFixed(0)} W at the shaft) would drive the boat beyond ${vHi} m/s, outside this model; check the inputs.`,
+    );
   const V = brent((v) => selfPropulsion(ctx, v).shaftPower - power, vLo, vHi, 1e-9);
   return selfPropulsion(ctx, V);
 }
 
-export function raceContext(input: HullInput & PropellerGeometry & { wakeFraction: number; thrustDeduction: number }, prop?: BSeriesPropeller): RaceContext {
+export function raceContext(
+  input: HullInput & PropellerGeometry & { wakeFraction: number; thrustDeduction: number },
+  prop?: BSeriesPropeller,
+): RaceContext {
   const w = waterProperties(input.temperature_C, input.water);
   return {
     hull: input,
@@ -132,10 +159,22 @@ export const raceCalculator: Calculator<RaceInput, RaceOutput> = {
     { name: 'rpm', label: 'Shaft speed', unit: 'rpm', digits: 0 },
     { name: 'advanceRatio', label: 'Advance ratio J', unit: '', digits: 3 },
     { name: 'thrust_N', label: 'Propeller thrust T', unit: 'N', digits: 1 },
-    { name: 'resistance_N', label: 'Hull resistance R', unit: 'N', digits: 1, help: 'Equals T·(1 − t) at the operating point.' },
+    {
+      name: 'resistance_N',
+      label: 'Hull resistance R',
+      unit: 'N',
+      digits: 1,
+      help: 'Equals T·(1 − t) at the operating point.',
+    },
     { name: 'torque_Nm', label: 'Shaft torque', unit: 'N·m', digits: 2 },
     { name: 'shaftPower_W', label: 'Shaft power', unit: 'W', digits: 0 },
-    { name: 'electricalPower_W', label: 'Electrical power', unit: 'W', digits: 0, help: 'Average battery + solar power over the race.' },
+    {
+      name: 'electricalPower_W',
+      label: 'Electrical power',
+      unit: 'W',
+      digits: 0,
+      help: 'Average battery + solar power over the race.',
+    },
     { name: 'efficiency', label: 'Open-water efficiency η₀', unit: '', digits: 3 },
   ],
   sources: [...propellerSources, ...resistanceSources.filter((s) => !propellerSources.includes(s))],
@@ -150,7 +189,10 @@ export const raceCalculator: Calculator<RaceInput, RaceOutput> = {
     const vA = op.speed * (1 - input.wakeFraction);
     const rn = reynoldsWarning(reynolds075(ctx.prop, ctx.D, op.n, vA, ctx.nu));
     if (rn) warnings.push(rn);
-    if (op.n * 60 > 6000) warnings.push(`The propeller would turn at ${(op.n * 60).toFixed(0)} rpm: check that the motor and gearing can reach it.`);
+    if (op.n * 60 > 6000)
+      warnings.push(
+        `The propeller would turn at ${(op.n * 60).toFixed(0)} rpm: check that the motor and gearing can reach it.`,
+      );
     const speeds = linspace(0.3 * op.speed, 1.3 * op.speed, 31);
     const need = speeds.map((v) => selfPropulsion(ctx, v).shaftPower);
     const series: SeriesSet = {
@@ -158,7 +200,12 @@ export const raceCalculator: Calculator<RaceInput, RaceOutput> = {
       x: { name: 'speed_mps', label: 'Speed', unit: 'm/s', values: speeds },
       y: [
         { name: 'shaftPower_W', label: 'Shaft power needed', unit: 'W', values: need },
-        { name: 'budget_W', label: 'Average shaft power on the budget', unit: 'W', values: speeds.map(() => budget.averageShaftPower_W) },
+        {
+          name: 'budget_W',
+          label: 'Average shaft power on the budget',
+          unit: 'W',
+          values: speeds.map(() => budget.averageShaftPower_W),
+        },
       ],
     };
     return {

@@ -33,14 +33,48 @@ export type ResistanceOutput = {
 };
 
 export const hullInputs = (group = 'Hull'): InputMeta[] => [
-  num({ name: 'length_m', label: 'Waterline length L', unit: 'm', min: 0.3, max: 50, step: 0.05, default: 5.5, group, help: 'Length on the waterline at racing trim (demo default 5.5 m).' }),
-  num({ name: 'wettedArea_m2', label: 'Wetted surface S', unit: 'm²', min: 0.05, max: 200, step: 0.05, default: 3, group, help: 'Wetted surface of the hull at racing trim (demo default 3 m²).' }),
   num({
-    name: 'formFactor', label: 'Form factor 1+k', unit: '', min: 1, max: 2, step: 0.01, default: 1, group,
+    name: 'length_m',
+    label: 'Waterline length L',
+    unit: 'm',
+    min: 0.3,
+    max: 50,
+    step: 0.05,
+    default: 5.5,
+    group,
+    help: 'Length on the waterline at racing trim (demo default 5.5 m).',
+  }),
+  num({
+    name: 'wettedArea_m2',
+    label: 'Wetted surface S',
+    unit: 'm²',
+    min: 0.05,
+    max: 200,
+    step: 0.05,
+    default: 3,
+    group,
+    help: 'Wetted surface of the hull at racing trim (demo default 3 m²).',
+  }),
+  num({
+    name: 'formFactor',
+    label: 'Form factor 1+k',
+    unit: '',
+    min: 1,
+    max: 2,
+    step: 0.01,
+    default: 1,
+    group,
     help: 'Viscous resistance over flat-plate friction (ITTC-1978). 1.0 for a flat plate; slender hulls are often 1.05–1.2 — from a tank test or a Prohaska plot if you have one.',
   }),
   num({
-    name: 'appendageDragArea_m2', label: 'Appendage drag area C_D·A', unit: 'm²', min: 0, max: 1, step: 0.0005, default: 0, group,
+    name: 'appendageDragArea_m2',
+    label: 'Appendage drag area C_D·A',
+    unit: 'm²',
+    min: 0,
+    max: 1,
+    step: 0.0005,
+    default: 0,
+    group,
     help: 'Sum of drag coefficient × reference area for pod, strut, rudder and fins, added as ½ρV²·C_D·A.',
   }),
   temperatureInput('Water'),
@@ -49,7 +83,17 @@ export const hullInputs = (group = 'Hull'): InputMeta[] => [
 
 const inputs: InputMeta[] = [
   ...hullInputs(),
-  num({ name: 'speed_mps', label: 'Boat speed V', unit: 'm/s', min: 0.01, max: 30, step: 0.1, default: 5, group: 'Speed', help: 'Boat speed through the water (demo default 5 m/s).' }),
+  num({
+    name: 'speed_mps',
+    label: 'Boat speed V',
+    unit: 'm/s',
+    min: 0.01,
+    max: 30,
+    step: 0.1,
+    default: 5,
+    group: 'Speed',
+    help: 'Boat speed through the water (demo default 5 m/s).',
+  }),
 ];
 
 /** ITTC-1957: C_F = 0.075/(log₁₀Re − 2)². */
@@ -77,7 +121,13 @@ export function hullResistance(h: HullInput, V: number, rho: number, nu: number)
   const cf = ittc57(Math.max(re, 1e3));
   const frictional = q * h.wettedArea_m2 * cf;
   const appendage = q * h.appendageDragArea_m2;
-  return { reynolds: re, cf, frictional_N: frictional, appendage_N: appendage, total_N: h.formFactor * frictional + appendage };
+  return {
+    reynolds: re,
+    cf,
+    frictional_N: frictional,
+    appendage_N: appendage,
+    total_N: h.formFactor * frictional + appendage,
+  };
 }
 
 export const resistanceSources = [SRC_ITTC57, SRC_ITTC78, SRC_ITTC_WATER];
@@ -105,10 +155,15 @@ export const resistanceCalculator: Calculator<ResistanceInput, ResistanceOutput>
     const V = input.speed_mps;
     const r = hullResistance(input, V, w.density_kgm3, w.kinematicViscosity_m2s);
     if (r.reynolds < RE_MIN)
-      throw new OutOfRangeError('speed_mps', `Reynolds number ${r.reynolds.toExponential(2)} is below 1·10⁵, where the ITTC-1957 line does not apply; raise the speed or check the length.`);
+      throw new OutOfRangeError(
+        'speed_mps',
+        `Reynolds number ${r.reynolds.toExponential(2)} is below 1·10⁵, where the ITTC-1957 line does not apply; raise the speed or check the length.`,
+      );
     const warnings: string[] = [];
     if (r.reynolds < 1e6)
-      warnings.push('Re is below 1·10⁶: the boundary layer may be partly laminar, and the turbulent ITTC-1957 line then overestimates friction.');
+      warnings.push(
+        'Re is below 1·10⁶: the boundary layer may be partly laminar, and the turbulent ITTC-1957 line then overestimates friction.',
+      );
     if (input.formFactor === 1)
       warnings.push('Form factor 1+k = 1 treats the hull as a flat plate; real hulls have more viscous resistance.');
     const vMin = (RE_MIN * w.kinematicViscosity_m2s) / input.length_m;

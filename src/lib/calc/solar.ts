@@ -17,16 +17,83 @@ export interface SolarInput {
 export type SolarOutput = { cellTemperature_C: number; power_W: number; ratedPower_W: number };
 
 const inputs: InputMeta[] = [
-  num({ name: 'area_m2', label: 'Array area', unit: 'm²', min: 0.01, max: 50, step: 0.05, default: 1.8, group: 'Array', help: 'Total module area (demo default 1.8 m²; check your class rules for the limit).' }),
-  num({ name: 'moduleEfficiency', label: 'Module efficiency', unit: '', min: 0.01, max: 0.5, step: 0.005, default: 0.22, group: 'Array', help: 'Efficiency at STC (1000 W/m², 25 °C cell, AM1.5) from the datasheet, as a fraction.' }),
-  num({ name: 'irradiance_Wm2', label: 'Irradiance G', unit: 'W/m²', min: 0, max: 1500, step: 10, default: 800, group: 'Conditions', help: 'Plane-of-array irradiance. 800 W/m² is NOCT conditions; a clear summer noon is about 1000 W/m².' }),
-  num({ name: 'ambient_C', label: 'Air temperature T_a', unit: '°C', min: -30, max: 60, step: 0.5, default: 25, group: 'Conditions', help: 'Ambient air temperature.' }),
   num({
-    name: 'noct_C', label: 'NOCT', unit: '°C', min: 20, max: 100, step: 0.5, default: 45, group: 'Array',
+    name: 'area_m2',
+    label: 'Array area',
+    unit: 'm²',
+    min: 0.01,
+    max: 50,
+    step: 0.05,
+    default: 1.8,
+    group: 'Array',
+    help: 'Total module area (demo default 1.8 m²; check your class rules for the limit).',
+  }),
+  num({
+    name: 'moduleEfficiency',
+    label: 'Module efficiency',
+    unit: '',
+    min: 0.01,
+    max: 0.5,
+    step: 0.005,
+    default: 0.22,
+    group: 'Array',
+    help: 'Efficiency at STC (1000 W/m², 25 °C cell, AM1.5) from the datasheet, as a fraction.',
+  }),
+  num({
+    name: 'irradiance_Wm2',
+    label: 'Irradiance G',
+    unit: 'W/m²',
+    min: 0,
+    max: 1500,
+    step: 10,
+    default: 800,
+    group: 'Conditions',
+    help: 'Plane-of-array irradiance. 800 W/m² is NOCT conditions; a clear summer noon is about 1000 W/m².',
+  }),
+  num({
+    name: 'ambient_C',
+    label: 'Air temperature T_a',
+    unit: '°C',
+    min: -30,
+    max: 60,
+    step: 0.5,
+    default: 25,
+    group: 'Conditions',
+    help: 'Ambient air temperature.',
+  }),
+  num({
+    name: 'noct_C',
+    label: 'NOCT',
+    unit: '°C',
+    min: 20,
+    max: 100,
+    step: 0.5,
+    default: 45,
+    group: 'Array',
     help: 'Nominal operating cell temperature from the datasheet (open rack, 800 W/m², 20 °C air, 1 m/s wind). Deck-mounted panels run hotter: raise it for flush mounting.',
   }),
-  num({ name: 'tempCoefficient_perK', label: 'Power temperature coefficient γ', unit: '1/K', min: -0.02, max: 0, step: 0.0001, default: -0.0035, group: 'Array', help: 'Relative change of power per kelvin, e.g. −0.0035 for −0.35 %/K.' }),
-  num({ name: 'otherLosses', label: 'Other losses', unit: '', min: 0, max: 0.9, step: 0.01, default: 0.1, group: 'Array', help: 'Fraction lost to soiling, mismatch, wiring and MPPT (demo default 0.10).' }),
+  num({
+    name: 'tempCoefficient_perK',
+    label: 'Power temperature coefficient γ',
+    unit: '1/K',
+    min: -0.02,
+    max: 0,
+    step: 0.0001,
+    default: -0.0035,
+    group: 'Array',
+    help: 'Relative change of power per kelvin, e.g. −0.0035 for −0.35 %/K.',
+  }),
+  num({
+    name: 'otherLosses',
+    label: 'Other losses',
+    unit: '',
+    min: 0,
+    max: 0.9,
+    step: 0.01,
+    default: 0.1,
+    group: 'Array',
+    help: 'Fraction lost to soiling, mismatch, wiring and MPPT (demo default 0.10).',
+  }),
 ];
 
 /** Ross (1981): T_c = T_a + (NOCT − 20)/800 · G. */
@@ -42,7 +109,8 @@ export function pvwattsDc(G: number, Tc: number, pStc: number, gamma: number): n
 export const solarCalculator: Calculator<SolarInput, SolarOutput> = {
   kind: 'solar',
   title: 'Solar array output',
-  summary: 'Cell temperature from the NOCT model and array DC power from irradiance, area, efficiency and temperature coefficient.',
+  summary:
+    'Cell temperature from the NOCT model and array DC power from irradiance, area, efficiency and temperature coefficient.',
   engineVersion: '1.0.0',
   inputSchema: objectSchema(inputs) as unknown as z.ZodType<SolarInput>,
   inputs,
@@ -60,7 +128,8 @@ export const solarCalculator: Calculator<SolarInput, SolarOutput> = {
     const warnings = [
       'Deck-mounted panels are not in the open-rack condition NOCT is measured in: with little air behind them they run hotter than NOCT predicts, so raise NOCT (or measure the cell temperature) for a flush-mounted array.',
     ];
-    if (input.irradiance_Wm2 > 1100) warnings.push('Irradiance above 1100 W/m² is unusual outside brief cloud-edge peaks; check the value.');
+    if (input.irradiance_Wm2 > 1100)
+      warnings.push('Irradiance above 1100 W/m² is unusual outside brief cloud-edge peaks; check the value.');
     return {
       outputs: { cellTemperature_C: Tc, power_W: pDc * (1 - input.otherLosses), ratedPower_W: pStc },
       warnings,

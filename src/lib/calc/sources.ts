@@ -38,7 +38,8 @@ export const SRC_BERNITSAS: Source = {
   use: 'Independent transcription of the B-series coefficients.',
 };
 export const SRC_HELMA: Source = {
-  citation: 'S. Helma (2020), "Surprising behaviour of the Wageningen B-screw series polynomials", J. Mar. Sci. Eng. 8(3), 211.',
+  citation:
+    'S. Helma (2020), "Surprising behaviour of the Wageningen B-screw series polynomials", J. Mar. Sci. Eng. 8(3), 211.',
   use: 'Behaviour of the polynomials near and beyond their range.',
 };
 export const SRC_ITTC57: Source = {
@@ -47,11 +48,13 @@ export const SRC_ITTC57: Source = {
   use: 'Frictional resistance coefficient C_F = 0.075/(log₁₀Re − 2)².',
 };
 export const SRC_ITTC78: Source = {
-  citation: '15th ITTC (1978), ITTC-1978 performance prediction method (form-factor approach, viscous resistance (1+k)·R_F).',
+  citation:
+    '15th ITTC (1978), ITTC-1978 performance prediction method (form-factor approach, viscous resistance (1+k)·R_F).',
   use: 'Form factor applied to the frictional resistance.',
 };
 export const SRC_ROSS: Source = {
-  citation: 'R.G. Ross Jr. (1981), "Design techniques for flat-plate photovoltaic arrays", Proc. 15th IEEE Photovoltaic Specialists Conference, 811–817.',
+  citation:
+    'R.G. Ross Jr. (1981), "Design techniques for flat-plate photovoltaic arrays", Proc. 15th IEEE Photovoltaic Specialists Conference, 811–817.',
   use: 'Cell temperature from NOCT: T_c = T_a + (NOCT − 20)/800 · G.',
 };
 export const SRC_PVWATTS: Source = {
@@ -59,7 +62,8 @@ export const SRC_PVWATTS: Source = {
   use: 'DC power with a linear temperature coefficient: P = P_STC · G/1000 · (1 + γ(T_c − 25)).',
 };
 export const SRC_PVLIB: Source = {
-  citation: 'pvlib-python test suite: test_temperature.py::test_ross and test_pvsystem.py::test_pvwatts_dc_scalars (W.F. Holmgren, C.W. Hansen & M.A. Mikofski (2018), J. Open Source Software 3(29), 884).',
+  citation:
+    'pvlib-python test suite: test_temperature.py::test_ross and test_pvsystem.py::test_pvwatts_dc_scalars (W.F. Holmgren, C.W. Hansen & M.A. Mikofski (2018), J. Open Source Software 3(29), 884).',
   use: 'Published test vectors for the cell-temperature and power models.',
 };
 export const SRC_COPPER: Source = {
@@ -72,11 +76,13 @@ export const SRC_FLOYD: Source = {
   use: 'Check values for conductor resistance.',
 };
 export const SRC_COLEBROOK: Source = {
-  citation: 'C.F. Colebrook (1939), "Turbulent flow in pipes, with particular reference to the transition region between the smooth and rough pipe laws", J. Inst. Civil Engineers 11(4), 133–156.',
+  citation:
+    'C.F. Colebrook (1939), "Turbulent flow in pipes, with particular reference to the transition region between the smooth and rough pipe laws", J. Inst. Civil Engineers 11(4), 133–156.',
   use: 'Darcy friction factor in turbulent pipe flow (solved iteratively).',
 };
 export const SRC_FLUIDS: Source = {
-  citation: 'C. Bell et al., "fluids" Python library documentation, fluids.friction (friction_factor, Colebrook, Haaland, Swamee_Jain examples).',
+  citation:
+    'C. Bell et al., "fluids" Python library documentation, fluids.friction (friction_factor, Colebrook, Haaland, Swamee_Jain examples).',
   use: 'Reference values for the friction-factor correlations.',
 };
 export const SRC_ASHRAE_EG: Source = {
@@ -85,10 +91,12 @@ export const SRC_ASHRAE_EG: Source = {
   use: 'Density of a 50 % (by volume) ethylene-glycol coolant.',
 };
 export const SRC_ETB_EG: Source = {
-  citation: 'The Engineering ToolBox, "Ethylene Glycol Heat-Transfer Fluid", table of dynamic viscosity of ethylene glycol solutions (% by volume).',
+  citation:
+    'The Engineering ToolBox, "Ethylene Glycol Heat-Transfer Fluid", table of dynamic viscosity of ethylene glycol solutions (% by volume).',
   use: 'Viscosity of a 50 % (by volume) ethylene-glycol coolant for the pipe Reynolds number.',
 };
 export const SRC_RANKINE_FROUDE: Source = {
-  citation: 'W.J.M. Rankine (1865), Trans. Inst. Naval Architects 6, 13–39; R.E. Froude (1889), Trans. Inst. Naval Architects 30, 390–405 (actuator-disk momentum theory).',
+  citation:
+    'W.J.M. Rankine (1865), Trans. Inst. Naval Architects 6, 13–39; R.E. Froude (1889), Trans. Inst. Naval Architects 30, 390–405 (actuator-disk momentum theory).',
   use: 'Ideal propulsive efficiency η_ideal = 2/(1 + √(1 + C_T)), an upper bound for any propeller.',
 };

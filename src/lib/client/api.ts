@@ -29,7 +29,12 @@ export async function apiFetch<T>(url: string, init: RequestInit & { json?: unkn
   const headers = new Headers(rest.headers);
   if (json !== undefined) headers.set('content-type', 'application/json');
   headers.set('accept', 'application/json');
-  const res = await fetch(url, { ...rest, headers, body: json !== undefined ? JSON.stringify(json) : rest.body, credentials: 'same-origin' });
+  const res = await fetch(url, {
+    ...rest,
+    headers,
+    body: json !== undefined ? JSON.stringify(json) : rest.body,
+    credentials: 'same-origin',
+  });
   if (res.status === 204) return undefined as T;
   const text = await res.text();
   let body: unknown = null;
@@ -43,4 +48,4 @@ export async function apiFetch<T>(url: string, init: RequestInit & { json?: unkn
 }
 
 /** SWR's fetcher. */
-export const fetcher = <T,>(url: string) => apiFetch<T>(url);
+export const fetcher = <T>(url: string) => apiFetch<T>(url);

@@ -1,7 +1,17 @@
 import { z } from 'zod';
 
-const slug = z.string().trim().min(1).max(64).regex(/^[a-z0-9-]+$/, 'Use a subsystem slug.');
-const id = z.string().trim().min(1).max(64).regex(/^[A-Za-z0-9_-]+$/, 'Not a valid id.');
+const slug = z
+  .string()
+  .trim()
+  .min(1)
+  .max(64)
+  .regex(/^[a-z0-9-]+$/, 'Use a subsystem slug.');
+const id = z
+  .string()
+  .trim()
+  .min(1)
+  .max(64)
+  .regex(/^[A-Za-z0-9_-]+$/, 'Not a valid id.');
 
 /** Raw calculator inputs: a flat object of numbers and short strings; each calculator's own schema checks the rest. */
 export const rawInputsSchema = z

@@ -2,7 +2,12 @@ import { z } from 'zod';
 
 export const onboardingItemRefSchema = z.object({
   kind: z.enum(['guide', 'record', 'calculation']),
-  ref: z.string().trim().min(1).max(120).regex(/^[A-Za-z0-9_-]+$/, 'Not a valid reference.'),
+  ref: z
+    .string()
+    .trim()
+    .min(1)
+    .max(120)
+    .regex(/^[A-Za-z0-9_-]+$/, 'Not a valid reference.'),
 });
 
 export const onboardingRouteSchema = z.object({

@@ -9,4 +9,7 @@ export const newPasswordSchema = z
   .string({ error: 'Choose a password.' })
   .min(MIN_PASSWORD_LENGTH, `Use at least ${MIN_PASSWORD_LENGTH} characters; a few unrelated words work well.`)
   .max(MAX_PASSWORD_LENGTH, `Use at most ${MAX_PASSWORD_LENGTH} characters.`)
-  .refine((p) => !isCommonPassword(p), 'That password is on a list of common passwords that attackers try first; choose another.');
+  .refine(
+    (p) => !isCommonPassword(p),
+    'That password is on a list of common passwords that attackers try first; choose another.',
+  );

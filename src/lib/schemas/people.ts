@@ -1,10 +1,19 @@
 import { z } from 'zod';
 
 export const ROLE_VALUES = ['lead', 'advisor', 'member', 'alumni'] as const;
-const subsystemSlugs = z.array(z.string().regex(/^[a-z0-9-]{1,64}$/, 'Not a subsystem.')).max(20).transform((s) => [...new Set(s)]);
+const subsystemSlugs = z
+  .array(z.string().regex(/^[a-z0-9-]{1,64}$/, 'Not a subsystem.'))
+  .max(20)
+  .transform((s) => [...new Set(s)]);
 
 export const invitationInputSchema = z.object({
-  email: z.string().trim().min(1, 'Enter an e-mail address.').max(254).pipe(z.email('Enter a valid e-mail address.')).transform((e) => e.toLowerCase()),
+  email: z
+    .string()
+    .trim()
+    .min(1, 'Enter an e-mail address.')
+    .max(254)
+    .pipe(z.email('Enter a valid e-mail address.'))
+    .transform((e) => e.toLowerCase()),
   name: z.string().trim().min(2, 'Enter their name (at least 2 characters).').max(120),
   role: z.enum(ROLE_VALUES, { error: 'Choose lead, advisor, member or alumni.' }),
   subsystems: subsystemSlugs.optional().default([]),
@@ -17,14 +26,20 @@ export const personPatchSchema = z
     /** The subsystems this person owns in the current season (replaces the list). */
     subsystems: subsystemSlugs.optional(),
   })
-  .refine((p) => p.role !== undefined || p.subsystems !== undefined, { message: 'Send a role, subsystems or both.', path: ['role'] });
+  .refine((p) => p.role !== undefined || p.subsystems !== undefined, {
+    message: 'Send a role, subsystems or both.',
+    path: ['role'],
+  });
 export type PersonPatch = z.infer<typeof personPatchSchema>;
 
 export const PEOPLE_SORTS = ['name', 'role', 'lastSignIn', 'email'] as const;
 
 export const peopleQuerySchema = z.object({
   q: z.string().trim().max(120).optional(),
-  role: z.enum(ROLE_VALUES).optional().or(z.literal('').transform(() => undefined)),
+  role: z
+    .enum(ROLE_VALUES)
+    .optional()
+    .or(z.literal('').transform(() => undefined)),
   season: z.string().max(64).optional(),
   subsystem: z.string().max(64).optional(),
   sort: z.enum(PEOPLE_SORTS).default('name'),

@@ -1,12 +1,30 @@
 import { z } from 'zod';
 
-const id = z.string().trim().min(1).max(64).regex(/^[A-Za-z0-9_-]+$/, 'Not a valid id.');
-const slug = z.string().trim().min(1).max(64).regex(/^[a-z0-9-]+$/, 'Use a subsystem slug.');
+const id = z
+  .string()
+  .trim()
+  .min(1)
+  .max(64)
+  .regex(/^[A-Za-z0-9_-]+$/, 'Not a valid id.');
+const slug = z
+  .string()
+  .trim()
+  .min(1)
+  .max(64)
+  .regex(/^[a-z0-9-]+$/, 'Use a subsystem slug.');
 const ids = z.array(id).max(50).default([]);
 
 export const recordKindSchema = z.enum(['decision', 'lesson']);
 export const lessonSourceSchema = z.enum(['testing', 'building', 'racing', 'organising']);
-export const recordStatusSchema = z.enum(['draft', 'proposed', 'accepted', 'superseded', 'withdrawn', 'open', 'addressed']);
+export const recordStatusSchema = z.enum([
+  'draft',
+  'proposed',
+  'accepted',
+  'superseded',
+  'withdrawn',
+  'open',
+  'addressed',
+]);
 
 /** The editor document is checked against the editor's schema on the server (records/body.ts). */
 const body = z.record(z.string(), z.unknown());

@@ -6,7 +6,11 @@ export * from '../search-types';
 export const MAX_QUERY_LENGTH = 500;
 export const MAX_OFFSET = 200;
 
-const slug = z.string().trim().max(64).regex(/^[a-z0-9-]*$/, 'Use a subsystem slug.');
+const slug = z
+  .string()
+  .trim()
+  .max(64)
+  .regex(/^[a-z0-9-]*$/, 'Use a subsystem slug.');
 
 /** GET /api/search. `season` is a season's id or its name ("2025–26"). */
 export const searchQuerySchema = z.object({

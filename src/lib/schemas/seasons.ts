@@ -31,9 +31,16 @@ export const rolloverSchema = z.object({
 });
 
 export const subsystemCreateSchema = z.object({
-  slug: z.string().trim().min(2).max(40).regex(/^[a-z0-9-]+$/, 'Lower-case letters, digits and dashes.'),
+  slug: z
+    .string()
+    .trim()
+    .min(2)
+    .max(40)
+    .regex(/^[a-z0-9-]+$/, 'Lower-case letters, digits and dashes.'),
   name: z.string().trim().min(2).max(80),
   summary: z.string().trim().max(400).default(''),
 });
 
-export const subsystemPatchSchema = z.object({ name: z.string().trim().min(2).max(80).optional(), summary: z.string().trim().max(400).optional() }).strict();
+export const subsystemPatchSchema = z
+  .object({ name: z.string().trim().min(2).max(80).optional(), summary: z.string().trim().max(400).optional() })
+  .strict();

@@ -9,7 +9,13 @@ export function digestOptInOf(userId: string): boolean {
 
 export function setDigestOptIn(actor: { id: string; email: string }, optIn: boolean): boolean {
   db().update(users).set({ digestOptIn: optIn }).where(eq(users.id, actor.id)).run();
-  recordAudit({ actor, action: 'account.digest', targetType: 'user', targetId: actor.id, detail: { digestOptIn: optIn } });
+  recordAudit({
+    actor,
+    action: 'account.digest',
+    targetType: 'user',
+    targetId: actor.id,
+    detail: { digestOptIn: optIn },
+  });
   return optIn;
 }
 

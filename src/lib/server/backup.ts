@@ -9,7 +9,9 @@ import { db } from './db/client';
  * and writers carry on while it runs, and the copy is one point in time. The copy is written to a temporary file,
  * streamed back, and deleted when the stream ends or is cancelled.
  */
-export async function databaseBackup(now = new Date()): Promise<{ stream: ReadableStream<Uint8Array>; size: number; fileName: string }> {
+export async function databaseBackup(
+  now = new Date(),
+): Promise<{ stream: ReadableStream<Uint8Array>; size: number; fileName: string }> {
   const dir = mkdtempSync(join(tmpdir(), 'wakebook-backup-'));
   const file = join(dir, 'wakebook.db');
   const cleanup = () => rmSync(dir, { recursive: true, force: true });
@@ -23,5 +25,9 @@ export async function databaseBackup(now = new Date()): Promise<{ stream: Readab
   const reader = createReadStream(file);
   reader.on('close', cleanup);
   const stamp = now.toISOString().slice(0, 16).replace(/[-:]/g, '').replace('T', '-');
-  return { stream: Readable.toWeb(reader) as ReadableStream<Uint8Array>, size, fileName: `wakebook-backup-${stamp}.db` };
+  return {
+    stream: Readable.toWeb(reader) as ReadableStream<Uint8Array>,
+    size,
+    fileName: `wakebook-backup-${stamp}.db`,
+  };
 }

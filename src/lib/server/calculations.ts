@@ -54,7 +54,8 @@ export function computeOrThrow(kind: string, rawInputs: unknown) {
   if (!calc) throw notFound('That calculator');
   const run = runCalculator(kind, rawInputs);
   if (run.ok) return run;
-  if (run.error === 'invalid_input') throw invalidInput(run.issues.map((i) => ({ path: i.path ? `inputs.${i.path}` : 'inputs', message: i.message })));
+  if (run.error === 'invalid_input')
+    throw invalidInput(run.issues.map((i) => ({ path: i.path ? `inputs.${i.path}` : 'inputs', message: i.message })));
   throw new OutOfRangeError(run.input, run.message);
 }
 
@@ -62,23 +63,49 @@ export function createCalculation(input: CalculationInput, actor: Actor): Calcul
   const run = computeOrThrow(input.kind, input.inputs);
   if (!findSubsystem(input.subsystem)) throw invalidInput([{ path: 'subsystem', message: 'No such subsystem.' }]);
   const season = input.seasonId ? findSeason(input.seasonId) : currentSeason();
-  if (!season) throw invalidInput([{ path: 'seasonId', message: input.seasonId ? 'No such season.' : 'No season is current; choose one.' }]);
+  if (!season)
+    throw invalidInput([
+      { path: 'seasonId', message: input.seasonId ? 'No such season.' : 'No season is current; choose one.' },
+    ]);
   const id = newId();
   const now = new Date();
   db().transaction((tx) => {
     tx.insert(calculations)
-      .values({ id, kind: input.kind, title: input.title, subsystemSlug: input.subsystem, seasonId: season.id, authorId: actor.id, notes: input.notes, inputs: run.inputs, createdAt: now, updatedAt: now })
+      .values({
+        id,
+        kind: input.kind,
+        title: input.title,
+        subsystemSlug: input.subsystem,
+        seasonId: season.id,
+        authorId: actor.id,
+        notes: input.notes,
+        inputs: run.inputs,
+        createdAt: now,
+        updatedAt: now,
+      })
       .run();
     insertResult(tx, id, run, actor.id, now);
   });
-  recordAudit({ actor, action: 'calculation.create', targetType: 'calculation', targetId: id, detail: { kind: input.kind, title: input.title } });
+  recordAudit({
+    actor,
+    action: 'calculation.create',
+    targetType: 'calculation',
+    targetId: id,
+    detail: { kind: input.kind, title: input.title },
+  });
   onCalculationChanged(id);
   return getCalculation(id)!;
 }
 
 type Tx = Parameters<Parameters<ReturnType<typeof db>['transaction']>[0]>[0];
 
-function insertResult(tx: Tx, calculationId: string, run: ReturnType<typeof computeOrThrow>, actorId: string | null, at: Date) {
+function insertResult(
+  tx: Tx,
+  calculationId: string,
+  run: ReturnType<typeof computeOrThrow>,
+  actorId: string | null,
+  at: Date,
+) {
   tx.insert(calculationResults)
     .values({
       id: newId(),
@@ -103,7 +130,13 @@ export function recomputeCalculation(id: string, actor: Actor) {
     insertResult(tx, id, run, actor.id, now);
     tx.update(calculations).set({ updatedAt: now }).where(eq(calculations.id, id)).run();
   });
-  recordAudit({ actor, action: 'calculation.recompute', targetType: 'calculation', targetId: id, detail: { from: before.engineVersion, to: run.engineVersion } });
+  recordAudit({
+    actor,
+    action: 'calculation.recompute',
+    targetType: 'calculation',
+    targetId: id,
+    detail: { from: before.engineVersion, to: run.engineVersion },
+  });
   onCalculationChanged(id);
   const after = getCalculation(id)!;
   return { calculation: after, previous: before.results[0], changes: diffOutputs(before.outputs, after.outputs) };
@@ -117,13 +150,20 @@ export function diffOutputs(a: Outputs, b: Outputs) {
 }
 
 function sameValue(x: unknown, y: unknown): boolean {
-  if (typeof x === 'number' && typeof y === 'number') return x === y || Math.abs(x - y) <= 1e-12 * Math.max(1, Math.abs(x), Math.abs(y));
+  if (typeof x === 'number' && typeof y === 'number')
+    return x === y || Math.abs(x - y) <= 1e-12 * Math.max(1, Math.abs(x), Math.abs(y));
   return x === y;
 }
 
 export function getCalculation(id: string): CalculationView | null {
   const row = db()
-    .select({ c: calculations, subsystemName: subsystems.name, season: seasons.name, seasonIsCurrent: seasons.isCurrent, author: users.name })
+    .select({
+      c: calculations,
+      subsystemName: subsystems.name,
+      season: seasons.name,
+      seasonIsCurrent: seasons.isCurrent,
+      author: users.name,
+    })
     .from(calculations)
     .innerJoin(subsystems, eq(subsystems.slug, calculations.subsystemSlug))
     .innerJoin(seasons, eq(seasons.id, calculations.seasonId))
@@ -144,7 +184,10 @@ export function getCalculation(id: string): CalculationView | null {
     .innerJoin(records, eq(records.id, recordCalculations.recordId))
     .where(and(eq(recordCalculations.calculationId, id), isNull(records.deletedAt)))
     .all();
-  const stored = (latest?.series ?? null) as { series?: CalculationView['series']; grid?: CalculationView['grid'] } | null;
+  const stored = (latest?.series ?? null) as {
+    series?: CalculationView['series'];
+    grid?: CalculationView['grid'];
+  } | null;
   const c = row.c;
   return {
     id: c.id,
@@ -167,7 +210,13 @@ export function getCalculation(id: string): CalculationView | null {
     currentEngineVersion: getCalculator(c.kind)?.engineVersion ?? null,
     computedAt: (latest?.computedAt ?? c.createdAt).toISOString(),
     createdAt: c.createdAt.toISOString(),
-    results: results.map((r) => ({ id: r.id, engineVersion: r.engineVersion, computedAt: r.computedAt.toISOString(), outputs: r.outputs as Outputs, warnings: r.warnings })),
+    results: results.map((r) => ({
+      id: r.id,
+      engineVersion: r.engineVersion,
+      computedAt: r.computedAt.toISOString(),
+      outputs: r.outputs as Outputs,
+      warnings: r.warnings,
+    })),
     records: linked,
     url: `/calculations/${c.id}`,
   };
@@ -186,7 +235,13 @@ export interface CalculationListItem {
   url: string;
 }
 
-export function listCalculations(q: { subsystem?: string; season?: string; kind?: string; limit: number; cursor?: string }) {
+export function listCalculations(q: {
+  subsystem?: string;
+  season?: string;
+  kind?: string;
+  limit: number;
+  cursor?: string;
+}) {
   const where: (SQL | undefined)[] = [isNull(calculations.deletedAt)];
   if (q.subsystem) where.push(eq(calculations.subsystemSlug, q.subsystem));
   if (q.season) where.push(eq(calculations.seasonId, q.season));
@@ -216,9 +271,14 @@ export function listCalculations(q: { subsystem?: string; season?: string; kind?
     .orderBy(desc(calculations.createdAt), desc(calculations.id))
     .limit(q.limit + 1)
     .all();
-  const page: CalculationListItem[] = rows.slice(0, q.limit).map((r) => ({ ...r, createdAt: r.createdAt.toISOString(), url: `/calculations/${r.id}` }));
+  const page: CalculationListItem[] = rows
+    .slice(0, q.limit)
+    .map((r) => ({ ...r, createdAt: r.createdAt.toISOString(), url: `/calculations/${r.id}` }));
   const last = page[page.length - 1];
-  return { calculations: page, nextCursor: rows.length > q.limit && last ? encodeCursor(last.createdAt, last.id) : null };
+  return {
+    calculations: page,
+    nextCursor: rows.length > q.limit && last ? encodeCursor(last.createdAt, last.id) : null,
+  };
 }
 
 /** Two saved calculations side by side: every input and output with both values and whether they differ. */
@@ -227,7 +287,12 @@ export function compareCalculations(aId: string, bId: string) {
   const b = getCalculation(bId);
   if (!a || !b) throw notFound('One of those calculations');
   const rows = (x: Record<string, unknown>, y: Record<string, unknown>) =>
-    [...new Set([...Object.keys(x), ...Object.keys(y)])].map((name) => ({ name, a: x[name] ?? null, b: y[name] ?? null, differs: !sameValue(x[name] ?? null, y[name] ?? null) }));
+    [...new Set([...Object.keys(x), ...Object.keys(y)])].map((name) => ({
+      name,
+      a: x[name] ?? null,
+      b: y[name] ?? null,
+      differs: !sameValue(x[name] ?? null, y[name] ?? null),
+    }));
   return { a, b, sameKind: a.kind === b.kind, inputs: rows(a.inputs, b.inputs), outputs: rows(a.outputs, b.outputs) };
 }
 
@@ -242,4 +307,3 @@ export function existingCalculationIds(ids: string[]): Set<string> {
       .map((r) => r.id),
   );
 }
-

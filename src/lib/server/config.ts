@@ -26,13 +26,16 @@ export const settingsSchema = z.object({
   WAKEBOOK_SECURE_COOKIES: z
     .enum(['1', '0', 'auto', ''])
     .optional()
-    .transform((v) => (v === '1' ? true : v === '0' ? false : 'auto' as const)),
+    .transform((v) => (v === '1' ? true : v === '0' ? false : ('auto' as const))),
   /** The sender of Wakebook's e-mail; defaults to an address at PUBLIC_URL's host. */
   MAIL_FROM: z
     .string()
     .optional()
     .transform((v) => (v ? v.trim() : undefined))
-    .refine((v) => v === undefined || /^[^\r\n]{3,200}$/.test(v) && /@/.test(v), 'must be an address like "Wakebook <team@example.org>"'),
+    .refine(
+      (v) => v === undefined || (/^[^\r\n]{3,200}$/.test(v) && /@/.test(v)),
+      'must be an address like "Wakebook <team@example.org>"',
+    ),
   /** A shared secret that lets a scheduler call POST /api/digest/send over loopback (`npm run digest`). */
   WAKEBOOK_CRON_TOKEN: z
     .string()

@@ -5,10 +5,13 @@ export type Sniffed = { contentType: string; kind: 'image' | 'pdf' | 'csv' | 'te
 const startsWith = (b: Uint8Array, sig: number[], offset = 0) => sig.every((v, i) => b[offset + i] === v);
 
 export function sniffType(bytes: Uint8Array, fileName: string): Sniffed {
-  if (startsWith(bytes, [0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a])) return { contentType: 'image/png', kind: 'image' };
+  if (startsWith(bytes, [0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]))
+    return { contentType: 'image/png', kind: 'image' };
   if (startsWith(bytes, [0xff, 0xd8, 0xff])) return { contentType: 'image/jpeg', kind: 'image' };
-  if (startsWith(bytes, [0x47, 0x49, 0x46, 0x38]) && (bytes[4] === 0x37 || bytes[4] === 0x39) && bytes[5] === 0x61) return { contentType: 'image/gif', kind: 'image' };
-  if (startsWith(bytes, [0x52, 0x49, 0x46, 0x46]) && startsWith(bytes, [0x57, 0x45, 0x42, 0x50], 8)) return { contentType: 'image/webp', kind: 'image' };
+  if (startsWith(bytes, [0x47, 0x49, 0x46, 0x38]) && (bytes[4] === 0x37 || bytes[4] === 0x39) && bytes[5] === 0x61)
+    return { contentType: 'image/gif', kind: 'image' };
+  if (startsWith(bytes, [0x52, 0x49, 0x46, 0x46]) && startsWith(bytes, [0x57, 0x45, 0x42, 0x50], 8))
+    return { contentType: 'image/webp', kind: 'image' };
   if (startsWith(bytes, [0x25, 0x50, 0x44, 0x46, 0x2d])) return { contentType: 'application/pdf', kind: 'pdf' };
   if (isPlainText(bytes)) {
     return /\.csv$/i.test(fileName) || looksLikeCsv(bytes)

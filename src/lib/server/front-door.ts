@@ -5,7 +5,12 @@ import type { IncomingMessage, ServerResponse } from 'node:http';
 import { checkSessionCookie, type SessionCheck } from './auth/lucia';
 import { cachedEntry } from './response-cache';
 
-type AstroHandler = (req: IncomingMessage, res: ServerResponse, next?: undefined, locals?: Partial<App.Locals>) => Promise<void>;
+type AstroHandler = (
+  req: IncomingMessage,
+  res: ServerResponse,
+  next?: undefined,
+  locals?: Partial<App.Locals>,
+) => Promise<void>;
 
 export async function frontDoor(req: IncomingMessage, res: ServerResponse, astro: AstroHandler): Promise<void> {
   let check: SessionCheck;

@@ -46,7 +46,12 @@ export function json(data: unknown, status = 200, headers: Record<string, string
   });
 }
 
-export function errorBody(code: ErrorCode, message: string, issues: FieldIssue[] = [], extra: Record<string, unknown> = {}) {
+export function errorBody(
+  code: ErrorCode,
+  message: string,
+  issues: FieldIssue[] = [],
+  extra: Record<string, unknown> = {},
+) {
   return { error: { code, message, issues, ...extra } };
 }
 
@@ -71,9 +76,14 @@ export function parseWith<T extends z.ZodType>(schema: T, value: unknown): z.inf
 export const DEFAULT_JSON_LIMIT = 256 * 1024;
 
 /** Reads a JSON body within a size limit and validates it. */
-export async function readJson<T extends z.ZodType>(request: Request, schema: T, maxBytes = DEFAULT_JSON_LIMIT): Promise<z.infer<T>> {
+export async function readJson<T extends z.ZodType>(
+  request: Request,
+  schema: T,
+  maxBytes = DEFAULT_JSON_LIMIT,
+): Promise<z.infer<T>> {
   const declared = Number(request.headers.get('content-length') ?? '0');
-  if (declared > maxBytes) throw new HttpError(413, 'too_large', `The request body is over ${Math.round(maxBytes / 1024)} kB.`);
+  if (declared > maxBytes)
+    throw new HttpError(413, 'too_large', `The request body is over ${Math.round(maxBytes / 1024)} kB.`);
   let text: string;
   try {
     text = await readLimited(request, maxBytes);
@@ -142,8 +152,13 @@ export function toErrorResponse(e: unknown, context?: Pick<APIContext, 'request'
   if (e instanceof HttpError) return errorResponse(e);
   if (e instanceof z.ZodError) return errorResponse(invalidInput(zodIssues(e)));
   if (e instanceof OutOfRangeError) {
-    return errorResponse(new HttpError(422, 'out_of_range', e.message, [{ path: e.input, message: e.message }], { input: e.input }));
+    return errorResponse(
+      new HttpError(422, 'out_of_range', e.message, [{ path: e.input, message: e.message }], { input: e.input }),
+    );
   }
-  console.error(`[wakebook] ${context?.request.method ?? ''} ${context ? new URL(context.request.url).pathname : ''} failed:`, e);
+  console.error(
+    `[wakebook] ${context?.request.method ?? ''} ${context ? new URL(context.request.url).pathname : ''} failed:`,
+    e,
+  );
   return json(errorBody('internal', 'Something went wrong on our side. Nothing you sent was lost; try again.'), 500);
 }

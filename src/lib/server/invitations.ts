@@ -73,7 +73,14 @@ export function listInvitations(): InvitationView[] {
     .select({ i: invitations, inviter: users.name })
     .from(invitations)
     .leftJoin(users, eq(users.id, invitations.invitedById))
-    .where(or(and(isNull(invitations.acceptedAt), isNull(invitations.revokedAt)), gt(invitations.createdAt, since), gt(invitations.acceptedAt, since), gt(invitations.revokedAt, since)))
+    .where(
+      or(
+        and(isNull(invitations.acceptedAt), isNull(invitations.revokedAt)),
+        gt(invitations.createdAt, since),
+        gt(invitations.acceptedAt, since),
+        gt(invitations.revokedAt, since),
+      ),
+    )
     .orderBy(desc(invitations.createdAt))
     .all();
   const mail = latestMailTo([...new Set(rows.map((r) => r.i.email))]);
@@ -81,16 +88,29 @@ export function listInvitations(): InvitationView[] {
 }
 
 export function getInvitation(id: string): InvitationView | null {
-  const row = db().select({ i: invitations, inviter: users.name }).from(invitations).leftJoin(users, eq(users.id, invitations.invitedById)).where(eq(invitations.id, id)).get();
+  const row = db()
+    .select({ i: invitations, inviter: users.name })
+    .from(invitations)
+    .leftJoin(users, eq(users.id, invitations.invitedById))
+    .where(eq(invitations.id, id))
+    .get();
   if (!row) return null;
   return toView(row.i, row.inviter, latestMailTo([row.i.email]).get(row.i.email) ?? null);
 }
 
 function checkSubsystems(slugs: string[]): void {
   if (slugs.length === 0) return;
-  const known = new Set(db().select({ slug: subsystems.slug }).from(subsystems).where(inArray(subsystems.slug, slugs)).all().map((s) => s.slug));
+  const known = new Set(
+    db()
+      .select({ slug: subsystems.slug })
+      .from(subsystems)
+      .where(inArray(subsystems.slug, slugs))
+      .all()
+      .map((s) => s.slug),
+  );
   const unknown = slugs.filter((s) => !known.has(s));
-  if (unknown.length) throw invalidInput([{ path: 'subsystems', message: `No such subsystem: ${unknown.join(', ')}.` }]);
+  if (unknown.length)
+    throw invalidInput([{ path: 'subsystems', message: `No such subsystem: ${unknown.join(', ')}.` }]);
 }
 
 function inviteLink(base: string, token: string): string {
@@ -99,24 +119,55 @@ function inviteLink(base: string, token: string): string {
 
 async function mailInvitation(r: InvitationRow, token: string, inviterName: string, base: string): Promise<MailResult> {
   const names = r.subsystems.length
-    ? db().select({ slug: subsystems.slug, name: subsystems.name }).from(subsystems).where(inArray(subsystems.slug, r.subsystems)).all().map((s) => s.name)
+    ? db()
+        .select({ slug: subsystems.slug, name: subsystems.name })
+        .from(subsystems)
+        .where(inArray(subsystems.slug, r.subsystems))
+        .all()
+        .map((s) => s.name)
     : [];
-  return sendMail(r.email, invitationEmail({ name: r.name, inviterName, role: r.role, subsystems: names, url: inviteLink(base, token), expiresAt: r.expiresAt }));
+  return sendMail(
+    r.email,
+    invitationEmail({
+      name: r.name,
+      inviterName,
+      role: r.role,
+      subsystems: names,
+      url: inviteLink(base, token),
+      expiresAt: r.expiresAt,
+    }),
+  );
 }
 
 /** Saves the invitation first, then mails it: a mail failure leaves the invitation in place to be resent. */
-export async function createInvitation(input: InvitationInput, actor: Actor, base: string): Promise<{ invitation: InvitationView; mail: MailResult }> {
+export async function createInvitation(
+  input: InvitationInput,
+  actor: Actor,
+  base: string,
+): Promise<{ invitation: InvitationView; mail: MailResult }> {
   const email = normaliseEmail(input.email);
   checkSubsystems(input.subsystems);
   if (db().select({ id: users.id }).from(users).where(eq(users.email, email)).get()) {
-    throw conflict('Someone with that e-mail address already has an account. Change their role on the people page instead.');
+    throw conflict(
+      'Someone with that e-mail address already has an account. Change their role on the people page instead.',
+    );
   }
   const open = db()
     .select()
     .from(invitations)
-    .where(and(eq(invitations.email, email), isNull(invitations.acceptedAt), isNull(invitations.revokedAt), gt(invitations.expiresAt, new Date())))
+    .where(
+      and(
+        eq(invitations.email, email),
+        isNull(invitations.acceptedAt),
+        isNull(invitations.revokedAt),
+        gt(invitations.expiresAt, new Date()),
+      ),
+    )
     .get();
-  if (open) throw conflict('That address already has a pending invitation. Resend it or revoke it first.', { invitationId: open.id });
+  if (open)
+    throw conflict('That address already has a pending invitation. Resend it or revoke it first.', {
+      invitationId: open.id,
+    });
   const token = newToken();
   const now = new Date();
   const row: InvitationRow = {
@@ -134,21 +185,42 @@ export async function createInvitation(input: InvitationInput, actor: Actor, bas
     revokedAt: null,
   };
   db().insert(invitations).values(row).run();
-  recordAudit({ actor, action: 'invitation.create', targetType: 'invitation', targetId: row.id, detail: { email, role: input.role, subsystems: input.subsystems } });
+  recordAudit({
+    actor,
+    action: 'invitation.create',
+    targetType: 'invitation',
+    targetId: row.id,
+    detail: { email, role: input.role, subsystems: input.subsystems },
+  });
   const mail = await mailInvitation(row, token, actor.name, base);
   return { invitation: getInvitation(row.id)!, mail };
 }
 
 /** A fresh link and seven fresh days; the previous link stops working. Accepted or revoked ones cannot be resent. */
-export async function resendInvitation(id: string, actor: Actor, base: string): Promise<{ invitation: InvitationView; mail: MailResult }> {
+export async function resendInvitation(
+  id: string,
+  actor: Actor,
+  base: string,
+): Promise<{ invitation: InvitationView; mail: MailResult }> {
   const row = db().select().from(invitations).where(eq(invitations.id, id)).get();
   if (!row) throw notFound('That invitation');
   const status = statusOf(row);
-  if (status === 'accepted' || status === 'revoked') throw conflict(`That invitation was ${status}; it cannot be sent again. Invite the person anew if needed.`);
+  if (status === 'accepted' || status === 'revoked')
+    throw conflict(`That invitation was ${status}; it cannot be sent again. Invite the person anew if needed.`);
   const token = newToken();
   const expiresAt = new Date(Date.now() + INVITATION_DAYS * DAY_MS);
-  db().update(invitations).set({ tokenHash: hashToken(token), expiresAt }).where(eq(invitations.id, id)).run();
-  recordAudit({ actor, action: 'invitation.resend', targetType: 'invitation', targetId: id, detail: { email: row.email } });
+  db()
+    .update(invitations)
+    .set({ tokenHash: hashToken(token), expiresAt })
+    .where(eq(invitations.id, id))
+    .run();
+  recordAudit({
+    actor,
+    action: 'invitation.resend',
+    targetType: 'invitation',
+    targetId: id,
+    detail: { email: row.email },
+  });
   const mail = await mailInvitation({ ...row, expiresAt }, token, actor.name, base);
   return { invitation: getInvitation(id)!, mail };
 }
@@ -156,10 +228,17 @@ export async function resendInvitation(id: string, actor: Actor, base: string): 
 export function revokeInvitation(id: string, actor: Actor): InvitationView {
   const row = db().select().from(invitations).where(eq(invitations.id, id)).get();
   if (!row) throw notFound('That invitation');
-  if (row.acceptedAt) throw conflict('That invitation was already accepted; change the person’s role on the people page instead.');
+  if (row.acceptedAt)
+    throw conflict('That invitation was already accepted; change the person’s role on the people page instead.');
   if (!row.revokedAt) {
     db().update(invitations).set({ revokedAt: new Date() }).where(eq(invitations.id, id)).run();
-    recordAudit({ actor, action: 'invitation.revoke', targetType: 'invitation', targetId: id, detail: { email: row.email } });
+    recordAudit({
+      actor,
+      action: 'invitation.revoke',
+      targetType: 'invitation',
+      targetId: id,
+      detail: { email: row.email },
+    });
   }
   return getInvitation(id)!;
 }
@@ -168,7 +247,11 @@ export type TokenCheck = { state: 'valid'; invitation: InvitationRow } | { state
 
 /** What an invitation link leads to, for the accept page and the API. */
 export function checkInvitationToken(token: string): TokenCheck {
-  const row = db().select().from(invitations).where(eq(invitations.tokenHash, hashToken(token))).get();
+  const row = db()
+    .select()
+    .from(invitations)
+    .where(eq(invitations.tokenHash, hashToken(token)))
+    .get();
   if (!row) return { state: 'unknown' };
   const status = statusOf(row);
   if (status === 'accepted') return { state: 'used' };
@@ -180,7 +263,11 @@ export function checkInvitationToken(token: string): TokenCheck {
  * Creates the account, a membership in the current season with the invited subsystems, marks the invitation used
  * and signs the person in. The invitation is claimed inside the transaction, so two clicks cannot make two accounts.
  */
-export async function acceptInvitation(input: AcceptInvitationInput, cookies: AstroCookies, ip: string): Promise<PublicUser> {
+export async function acceptInvitation(
+  input: AcceptInvitationInput,
+  cookies: AstroCookies,
+  ip: string,
+): Promise<PublicUser> {
   const check = checkInvitationToken(input.token);
   if (check.state !== 'valid') throw linkError(check.state);
   const inv = check.invitation;
@@ -190,14 +277,35 @@ export async function acceptInvitation(input: AcceptInvitationInput, cookies: As
   const season = currentSeason();
   db().transaction((tx) => {
     if (tx.select({ id: users.id }).from(users).where(eq(users.email, inv.email)).get()) {
-      throw conflict('An account with this e-mail address already exists. Sign in instead, or ask for a password reset.');
+      throw conflict(
+        'An account with this e-mail address already exists. Sign in instead, or ask for a password reset.',
+      );
     }
-    tx.insert(users).values({ id: userId, email: inv.email, name: input.name ?? inv.name, role: inv.role, passwordHash, createdAt: now, lastSignInAt: now, digestOptIn: false }).run();
+    tx.insert(users)
+      .values({
+        id: userId,
+        email: inv.email,
+        name: input.name ?? inv.name,
+        role: inv.role,
+        passwordHash,
+        createdAt: now,
+        lastSignInAt: now,
+        digestOptIn: false,
+      })
+      .run();
     // Claimed only if still open and still this link (a resend replaces the hash); otherwise everything rolls back.
     const claimed = tx
       .update(invitations)
       .set({ acceptedAt: now, acceptedUserId: userId })
-      .where(and(eq(invitations.id, inv.id), eq(invitations.tokenHash, inv.tokenHash), isNull(invitations.acceptedAt), isNull(invitations.revokedAt), gt(invitations.expiresAt, now)))
+      .where(
+        and(
+          eq(invitations.id, inv.id),
+          eq(invitations.tokenHash, inv.tokenHash),
+          isNull(invitations.acceptedAt),
+          isNull(invitations.revokedAt),
+          gt(invitations.expiresAt, now),
+        ),
+      )
       .run();
     if (claimed.changes !== 1) throw linkError('used');
     if (season) {
@@ -211,6 +319,13 @@ export async function acceptInvitation(input: AcceptInvitationInput, cookies: As
   });
   await startSession(userId, cookies);
   const actor = { id: userId, email: inv.email };
-  recordAudit({ actor, action: 'invitation.accept', targetType: 'invitation', targetId: inv.id, detail: { role: inv.role, subsystems: inv.subsystems, season: season?.name ?? null }, ip });
+  recordAudit({
+    actor,
+    action: 'invitation.accept',
+    targetType: 'invitation',
+    targetId: inv.id,
+    detail: { role: inv.role, subsystems: inv.subsystems, season: season?.name ?? null },
+    ip,
+  });
   return toPublicUser({ id: userId, email: inv.email, name: input.name ?? inv.name, role: inv.role });
 }

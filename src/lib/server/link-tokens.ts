@@ -16,6 +16,9 @@ export function linkMessage(reason: SpentReason | 'unknown'): string {
 
 /** 404 for a token we never issued, 400 (with the reason) for one that was used, expired or revoked (API.md). */
 export function linkError(reason: SpentReason | 'unknown'): HttpError {
-  if (reason === 'unknown') return new HttpError(404, 'not_found', MESSAGES.unknown, [{ path: 'token', message: MESSAGES.unknown }]);
-  return new HttpError(400, 'invalid_input', MESSAGES[reason], [{ path: 'token', message: MESSAGES[reason] }], { reason });
+  if (reason === 'unknown')
+    return new HttpError(404, 'not_found', MESSAGES.unknown, [{ path: 'token', message: MESSAGES.unknown }]);
+  return new HttpError(400, 'invalid_input', MESSAGES[reason], [{ path: 'token', message: MESSAGES[reason] }], {
+    reason,
+  });
 }

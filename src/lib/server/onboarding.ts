@@ -1,7 +1,15 @@
 import { and, asc, eq, inArray, isNull, sql } from 'drizzle-orm';
 import { db, prepared } from './db/client';
 import { memoUntilWrite } from './memo';
-import { calculations, onboardingItems, onboardingProgress, records, seasonMemberships, seasons, users } from './db/schema';
+import {
+  calculations,
+  onboardingItems,
+  onboardingProgress,
+  records,
+  seasonMemberships,
+  seasons,
+  users,
+} from './db/schema';
 import { invalidInput, notFound } from './http';
 import { newId } from './ids';
 import { recordAudit } from './audit';
@@ -48,12 +56,23 @@ async function resolve(refs: { kind: ItemKind; ref: string }[]): Promise<Map<str
   }
   if (of('record').length) {
     for (const r of db()
-      .select({ id: records.id, title: records.title, kind: records.kind, seasonId: records.seasonId, season: seasons.name })
+      .select({
+        id: records.id,
+        title: records.title,
+        kind: records.kind,
+        seasonId: records.seasonId,
+        season: seasons.name,
+      })
       .from(records)
       .innerJoin(seasons, eq(seasons.id, records.seasonId))
       .where(and(inArray(records.id, of('record')), isNull(records.deletedAt)))
       .all()) {
-      out.set(`record:${r.id}`, { title: r.title, detail: `${r.kind === 'decision' ? 'Decision record' : 'Lesson'} · ${r.season}`, url: `/records/${r.id}`, seasonId: r.seasonId });
+      out.set(`record:${r.id}`, {
+        title: r.title,
+        detail: `${r.kind === 'decision' ? 'Decision record' : 'Lesson'} · ${r.season}`,
+        url: `/records/${r.id}`,
+        seasonId: r.seasonId,
+      });
     }
   }
   if (of('calculation').length) {
@@ -63,7 +82,12 @@ async function resolve(refs: { kind: ItemKind; ref: string }[]): Promise<Map<str
       .innerJoin(seasons, eq(seasons.id, calculations.seasonId))
       .where(and(inArray(calculations.id, of('calculation')), isNull(calculations.deletedAt)))
       .all()) {
-      out.set(`calculation:${c.id}`, { title: c.title, detail: `Saved calculation · ${c.season}`, url: `/calculations/${c.id}`, seasonId: c.seasonId });
+      out.set(`calculation:${c.id}`, {
+        title: c.title,
+        detail: `Saved calculation · ${c.season}`,
+        url: `/calculations/${c.id}`,
+        seasonId: c.seasonId,
+      });
     }
   }
   return out;
@@ -72,7 +96,12 @@ async function resolve(refs: { kind: ItemKind; ref: string }[]): Promise<Map<str
 /** A subsystem's route with each item resolved, shared by everyone until the next write. */
 function routeItems(slug: string): Promise<Omit<RouteItem, 'done'>[]> {
   return memoUntilWrite(`onboarding.route:${slug}`, async () => {
-    const rows = db().select().from(onboardingItems).where(eq(onboardingItems.subsystemSlug, slug)).orderBy(asc(onboardingItems.position)).all();
+    const rows = db()
+      .select()
+      .from(onboardingItems)
+      .where(eq(onboardingItems.subsystemSlug, slug))
+      .orderBy(asc(onboardingItems.position))
+      .all();
     const resolved = await resolve(rows.map((r) => ({ kind: r.kind, ref: r.ref })));
     return rows.map((r) => {
       const x = resolved.get(`${r.kind}:${r.ref}`);
@@ -92,12 +121,20 @@ function routeItems(slug: string): Promise<Omit<RouteItem, 'done'>[]> {
 
 /** The ids of every onboarding item a person has ticked. */
 function ticked(userId: string): Set<string> {
-  return memoUntilWrite(`onboarding.ticked:${userId}`, () =>
-    new Set(
-      prepared('onboarding.ticked', (d) => d.select({ itemId: onboardingProgress.itemId }).from(onboardingProgress).where(eq(onboardingProgress.userId, sql.placeholder('user'))).prepare())
-        .all({ user: userId })
-        .map((p) => p.itemId),
-    ),
+  return memoUntilWrite(
+    `onboarding.ticked:${userId}`,
+    () =>
+      new Set(
+        prepared('onboarding.ticked', (d) =>
+          d
+            .select({ itemId: onboardingProgress.itemId })
+            .from(onboardingProgress)
+            .where(eq(onboardingProgress.userId, sql.placeholder('user')))
+            .prepare(),
+        )
+          .all({ user: userId })
+          .map((p) => p.itemId),
+      ),
   );
 }
 
@@ -110,7 +147,11 @@ export async function getRoute(slug: string, userId: string | null): Promise<Rou
 }
 
 /** Replaces a route. Items that stay keep their ids, so people's ticks survive a reorder. */
-export async function replaceRoute(slug: string, items: { kind: ItemKind; ref: string }[], actor: { id: string; email: string }): Promise<RouteView> {
+export async function replaceRoute(
+  slug: string,
+  items: { kind: ItemKind; ref: string }[],
+  actor: { id: string; email: string },
+): Promise<RouteView> {
   if (!findSubsystem(slug)) throw notFound('That subsystem');
   const seen = new Set<string>();
   const issues: { path: string; message: string }[] = [];
@@ -121,7 +162,8 @@ export async function replaceRoute(slug: string, items: { kind: ItemKind; ref: s
   });
   const resolved = await resolve(items);
   items.forEach((it, i) => {
-    if (!resolved.has(`${it.kind}:${it.ref}`)) issues.push({ path: `items.${i}.ref`, message: `No ${it.kind} “${it.ref}” exists.` });
+    if (!resolved.has(`${it.kind}:${it.ref}`))
+      issues.push({ path: `items.${i}.ref`, message: `No ${it.kind} “${it.ref}” exists.` });
   });
   if (issues.length) throw invalidInput(issues, 'Some route items do not exist.');
   const now = new Date();
@@ -129,22 +171,48 @@ export async function replaceRoute(slug: string, items: { kind: ItemKind; ref: s
     const existing = tx.select().from(onboardingItems).where(eq(onboardingItems.subsystemSlug, slug)).all();
     const byKey = new Map(existing.map((e) => [`${e.kind}:${e.ref}`, e]));
     const keep = new Set(items.map((it) => `${it.kind}:${it.ref}`));
-    for (const e of existing) if (!keep.has(`${e.kind}:${e.ref}`)) tx.delete(onboardingItems).where(eq(onboardingItems.id, e.id)).run();
+    for (const e of existing)
+      if (!keep.has(`${e.kind}:${e.ref}`)) tx.delete(onboardingItems).where(eq(onboardingItems.id, e.id)).run();
     items.forEach((it, position) => {
       const e = byKey.get(`${it.kind}:${it.ref}`);
       if (e) tx.update(onboardingItems).set({ position }).where(eq(onboardingItems.id, e.id)).run();
-      else tx.insert(onboardingItems).values({ id: newId(), subsystemSlug: slug, position, kind: it.kind, ref: it.ref, addedById: actor.id, createdAt: now }).run();
+      else
+        tx.insert(onboardingItems)
+          .values({
+            id: newId(),
+            subsystemSlug: slug,
+            position,
+            kind: it.kind,
+            ref: it.ref,
+            addedById: actor.id,
+            createdAt: now,
+          })
+          .run();
     });
   });
-  recordAudit({ actor, action: 'onboarding.route', targetType: 'subsystem', targetId: slug, detail: { items: items.length } });
+  recordAudit({
+    actor,
+    action: 'onboarding.route',
+    targetType: 'subsystem',
+    targetId: slug,
+    detail: { items: items.length },
+  });
   return getRoute(slug, actor.id);
 }
 
 export function setProgress(slug: string, userId: string, itemId: string, done: boolean): void {
-  const item = db().select().from(onboardingItems).where(and(eq(onboardingItems.id, itemId), eq(onboardingItems.subsystemSlug, slug))).get();
+  const item = db()
+    .select()
+    .from(onboardingItems)
+    .where(and(eq(onboardingItems.id, itemId), eq(onboardingItems.subsystemSlug, slug)))
+    .get();
   if (!item) throw notFound('That onboarding item');
   if (done) db().insert(onboardingProgress).values({ userId, itemId, doneAt: new Date() }).onConflictDoNothing().run();
-  else db().delete(onboardingProgress).where(and(eq(onboardingProgress.userId, userId), eq(onboardingProgress.itemId, itemId))).run();
+  else
+    db()
+      .delete(onboardingProgress)
+      .where(and(eq(onboardingProgress.userId, userId), eq(onboardingProgress.itemId, itemId)))
+      .run();
 }
 
 /** Route progress of one person across all subsystems that have a route. */

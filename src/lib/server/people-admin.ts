@@ -40,7 +40,13 @@ export function queryPeople(q: PeopleQuery): PeoplePage {
   });
   const pages = Math.max(1, Math.ceil(filtered.length / q.perPage));
   const page = Math.min(q.page, pages);
-  return { people: filtered.slice((page - 1) * q.perPage, page * q.perPage), total: filtered.length, page, pages, perPage: q.perPage };
+  return {
+    people: filtered.slice((page - 1) * q.perPage, page * q.perPage),
+    total: filtered.length,
+    page,
+    pages,
+    perPage: q.perPage,
+  };
 }
 
 export function getPerson(id: string): PersonView | null {
@@ -58,11 +64,22 @@ export function updatePerson(id: string, patch: PersonPatch, actor: Actor): Pers
   if (!user) throw notFound('That person');
   const season = currentSeason();
   if (patch.subsystems !== undefined) {
-    if (!season) throw invalidInput([{ path: 'subsystems', message: 'No season is current, so there is nothing to assign in.' }]);
+    if (!season)
+      throw invalidInput([{ path: 'subsystems', message: 'No season is current, so there is nothing to assign in.' }]);
     const slugs = patch.subsystems;
-    const known = new Set(slugs.length ? db().select({ slug: subsystems.slug }).from(subsystems).where(inArray(subsystems.slug, slugs)).all().map((s) => s.slug) : []);
+    const known = new Set(
+      slugs.length
+        ? db()
+            .select({ slug: subsystems.slug })
+            .from(subsystems)
+            .where(inArray(subsystems.slug, slugs))
+            .all()
+            .map((s) => s.slug)
+        : [],
+    );
     const unknown = slugs.filter((s) => !known.has(s));
-    if (unknown.length) throw invalidInput([{ path: 'subsystems', message: `No such subsystem: ${unknown.join(', ')}.` }]);
+    if (unknown.length)
+      throw invalidInput([{ path: 'subsystems', message: `No such subsystem: ${unknown.join(', ')}.` }]);
   }
   const newRole = patch.role ?? user.role;
   const roleChanged = newRole !== user.role;
@@ -70,7 +87,8 @@ export function updatePerson(id: string, patch: PersonPatch, actor: Actor): Pers
   db().transaction((tx) => {
     if (roleChanged && user.role === 'lead') {
       const [{ n }] = tx.select({ n: count() }).from(users).where(eq(users.role, 'lead')).all();
-      if (n <= 1) throw conflict('This is the team’s last lead. Make someone else a lead first, then change this role.');
+      if (n <= 1)
+        throw conflict('This is the team’s last lead. Make someone else a lead first, then change this role.');
     }
     if (roleChanged) tx.update(users).set({ role: newRole }).where(eq(users.id, id)).run();
     if (!season) return;
@@ -84,7 +102,8 @@ export function updatePerson(id: string, patch: PersonPatch, actor: Actor): Pers
       tx.insert(seasonMemberships).values(membership).run();
     }
     if (!membership) return;
-    if (roleChanged) tx.update(seasonMemberships).set({ role: newRole }).where(eq(seasonMemberships.id, membership.id)).run();
+    if (roleChanged)
+      tx.update(seasonMemberships).set({ role: newRole }).where(eq(seasonMemberships.id, membership.id)).run();
     if (patch.subsystems !== undefined) {
       previousSubsystems = tx
         .select({ slug: membershipSubsystems.subsystemSlug })
@@ -93,14 +112,27 @@ export function updatePerson(id: string, patch: PersonPatch, actor: Actor): Pers
         .all()
         .map((r) => r.slug);
       tx.delete(membershipSubsystems).where(eq(membershipSubsystems.membershipId, membership.id)).run();
-      for (const slug of patch.subsystems) tx.insert(membershipSubsystems).values({ membershipId: membership.id, subsystemSlug: slug }).run();
+      for (const slug of patch.subsystems)
+        tx.insert(membershipSubsystems).values({ membershipId: membership.id, subsystemSlug: slug }).run();
     }
   });
   if (roleChanged) {
-    recordAudit({ actor, action: 'person.role-change', targetType: 'user', targetId: id, detail: { email: user.email, from: user.role, to: newRole } });
+    recordAudit({
+      actor,
+      action: 'person.role-change',
+      targetType: 'user',
+      targetId: id,
+      detail: { email: user.email, from: user.role, to: newRole },
+    });
   }
   if (patch.subsystems !== undefined) {
-    recordAudit({ actor, action: 'person.subsystems', targetType: 'user', targetId: id, detail: { email: user.email, season: season?.name, from: previousSubsystems, to: patch.subsystems } });
+    recordAudit({
+      actor,
+      action: 'person.subsystems',
+      targetType: 'user',
+      targetId: id,
+      detail: { email: user.email, season: season?.name, from: previousSubsystems, to: patch.subsystems },
+    });
   }
   return getPerson(id)!;
 }

@@ -45,17 +45,31 @@ export function listPeople(): PersonView[] {
     .orderBy(asc(subsystems.position))
     .all();
   const byMembership = new Map<string, { slug: string; name: string }[]>();
-  for (const o of owned) byMembership.set(o.membershipId, [...(byMembership.get(o.membershipId) ?? []), { slug: o.slug, name: o.name }]);
+  for (const o of owned)
+    byMembership.set(o.membershipId, [...(byMembership.get(o.membershipId) ?? []), { slug: o.slug, name: o.name }]);
 
   const people = new Map<string, PersonView & { starts: Map<string, string> }>();
   for (const r of rows) {
     let p = people.get(r.userId);
     if (!p) {
-      p = { id: r.userId, name: r.name, email: r.email, role: r.role, lastSignInAt: r.lastSignInAt?.toISOString() ?? null, seasons: [], starts: new Map() };
+      p = {
+        id: r.userId,
+        name: r.name,
+        email: r.email,
+        role: r.role,
+        lastSignInAt: r.lastSignInAt?.toISOString() ?? null,
+        seasons: [],
+        starts: new Map(),
+      };
       people.set(r.userId, p);
     }
     if (r.membershipId && r.seasonId && r.season && r.seasonRole) {
-      p.seasons.push({ seasonId: r.seasonId, season: r.season, role: r.seasonRole, subsystems: byMembership.get(r.membershipId) ?? [] });
+      p.seasons.push({
+        seasonId: r.seasonId,
+        season: r.season,
+        role: r.seasonRole,
+        subsystems: byMembership.get(r.membershipId) ?? [],
+      });
       p.starts.set(r.seasonId, r.startsOn ?? '');
     }
   }

@@ -35,7 +35,16 @@ async function score(season: NonNullable<ReturnType<typeof findSeason>>, now: Da
     const accepted = recs.filter((r) => r.kind === 'decision' && r.status === 'accepted');
     const calcCounts = new Map<string, number>();
     if (accepted.length) {
-      for (const l of db().select().from(recordCalculations).where(inArray(recordCalculations.recordId, accepted.map((a) => a.id))).all()) {
+      for (const l of db()
+        .select()
+        .from(recordCalculations)
+        .where(
+          inArray(
+            recordCalculations.recordId,
+            accepted.map((a) => a.id),
+          ),
+        )
+        .all()) {
         calcCounts.set(l.recordId, (calcCounts.get(l.recordId) ?? 0) + 1);
       }
     }
@@ -43,10 +52,23 @@ async function score(season: NonNullable<ReturnType<typeof findSeason>>, now: Da
     const onRoute = new Set(route.items.filter((i) => i.kind === 'record').map((i) => i.ref));
     const result = scoreReadiness(
       {
-        acceptedDecisions: accepted.map((d) => ({ id: d.id, title: d.title, reasoningWords: d.words, calculations: calcCounts.get(d.id) ?? 0 })),
-        lessons: recs.filter((r) => r.kind === 'lesson').map((l) => ({ id: l.id, title: l.title, status: l.status, onRoute: onRoute.has(l.id) })),
-        route: { items: route.items.length, itemsFromSeason: route.items.filter((i) => i.seasonId === season.id).length, missingItems: route.items.filter((i) => !i.exists).length },
-        guides: guides.filter((g) => g.subsystem === s.slug).map((g) => ({ slug: g.slug, title: g.title, reviewedOn: g.reviewedOn })),
+        acceptedDecisions: accepted.map((d) => ({
+          id: d.id,
+          title: d.title,
+          reasoningWords: d.words,
+          calculations: calcCounts.get(d.id) ?? 0,
+        })),
+        lessons: recs
+          .filter((r) => r.kind === 'lesson')
+          .map((l) => ({ id: l.id, title: l.title, status: l.status, onRoute: onRoute.has(l.id) })),
+        route: {
+          items: route.items.length,
+          itemsFromSeason: route.items.filter((i) => i.seasonId === season.id).length,
+          missingItems: route.items.filter((i) => !i.exists).length,
+        },
+        guides: guides
+          .filter((g) => g.subsystem === s.slug)
+          .map((g) => ({ slug: g.slug, title: g.title, reviewedOn: g.reviewedOn })),
       },
       now,
     );

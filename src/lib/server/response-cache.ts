@@ -70,7 +70,11 @@ export async function store(key: string, deps: Dependencies, response: Response,
   const body = new Uint8Array(await response.arrayBuffer());
   // Cookies belong to the request that set them; Astro's own markers are removed from every answer anyway.
   const headers = [...response.headers].filter(([name]) => name !== 'set-cookie' && !name.startsWith('x-astro-'));
-  const out = new Response(body, { status: response.status, statusText: response.statusText, headers: response.headers });
+  const out = new Response(body, {
+    status: response.status,
+    statusText: response.statusText,
+    headers: response.headers,
+  });
   if (response.status !== 200 || body.byteLength > capacity() / 8) return out;
   drop(key);
   const raw = [...headers.flat(), 'content-length', String(body.byteLength)];

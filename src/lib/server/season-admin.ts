@@ -8,34 +8,74 @@ import { currentSeason, findSeason, type SeasonView } from './seasons';
 
 type Actor = { id: string; email: string };
 
-export function createSeason(input: { name: string; startsOn: string; endsOn: string; phase: string; boat?: string }, actor: Actor): SeasonView {
+export function createSeason(
+  input: { name: string; startsOn: string; endsOn: string; phase: string; boat?: string },
+  actor: Actor,
+): SeasonView {
   if (db().select({ id: seasons.id }).from(seasons).where(eq(seasons.name, input.name)).get()) {
     throw conflict(`A season named “${input.name}” already exists.`);
   }
   const id = newId();
   const first = !currentSeason();
-  db().insert(seasons).values({ id, name: input.name, startsOn: input.startsOn, endsOn: input.endsOn, phase: input.phase, isCurrent: first, boat: input.boat ?? null, createdAt: new Date() }).run();
+  db()
+    .insert(seasons)
+    .values({
+      id,
+      name: input.name,
+      startsOn: input.startsOn,
+      endsOn: input.endsOn,
+      phase: input.phase,
+      isCurrent: first,
+      boat: input.boat ?? null,
+      createdAt: new Date(),
+    })
+    .run();
   recordAudit({ actor, action: 'season.create', targetType: 'season', targetId: id, detail: { name: input.name } });
   return findSeason(id)!;
 }
 
-export function updateSeason(id: string, patch: { name?: string; startsOn?: string; endsOn?: string; phase?: string; boat?: string | null; current?: true }, actor: Actor): SeasonView {
+export function updateSeason(
+  id: string,
+  patch: { name?: string; startsOn?: string; endsOn?: string; phase?: string; boat?: string | null; current?: true },
+  actor: Actor,
+): SeasonView {
   const s = findSeason(id);
   if (!s) throw notFound('That season');
   const startsOn = patch.startsOn ?? s.startsOn;
   const endsOn = patch.endsOn ?? s.endsOn;
   if (endsOn <= startsOn) throw invalidInput([{ path: 'endsOn', message: 'The season must end after it starts.' }]);
-  if (patch.name && patch.name !== s.name && db().select({ id: seasons.id }).from(seasons).where(and(eq(seasons.name, patch.name), ne(seasons.id, id))).get()) {
+  if (
+    patch.name &&
+    patch.name !== s.name &&
+    db()
+      .select({ id: seasons.id })
+      .from(seasons)
+      .where(and(eq(seasons.name, patch.name), ne(seasons.id, id)))
+      .get()
+  ) {
     throw conflict(`A season named “${patch.name}” already exists.`);
   }
   db().transaction((tx) => {
     if (patch.current) tx.update(seasons).set({ isCurrent: false }).where(eq(seasons.isCurrent, true)).run();
     tx.update(seasons)
-      .set({ name: patch.name ?? s.name, startsOn, endsOn, phase: patch.phase ?? s.phase, boat: patch.boat === undefined ? s.boat : patch.boat, ...(patch.current ? { isCurrent: true } : {}) })
+      .set({
+        name: patch.name ?? s.name,
+        startsOn,
+        endsOn,
+        phase: patch.phase ?? s.phase,
+        boat: patch.boat === undefined ? s.boat : patch.boat,
+        ...(patch.current ? { isCurrent: true } : {}),
+      })
       .where(eq(seasons.id, id))
       .run();
   });
-  recordAudit({ actor, action: patch.current ? 'season.make-current' : 'season.update', targetType: 'season', targetId: id, detail: patch });
+  recordAudit({
+    actor,
+    action: patch.current ? 'season.make-current' : 'season.update',
+    targetType: 'season',
+    targetId: id,
+    detail: patch,
+  });
   return findSeason(id)!;
 }
 
@@ -58,20 +98,36 @@ export function rollover(toId: string, continuing: string[], confirm: boolean, a
   if (!from) throw conflict('No season is current, so there is nothing to roll over from.');
   if (from.id === to.id) throw conflict('That season is already the current one.');
   const members = db()
-    .select({ membershipId: seasonMemberships.id, userId: users.id, name: users.name, role: users.role, seasonRole: seasonMemberships.role })
+    .select({
+      membershipId: seasonMemberships.id,
+      userId: users.id,
+      name: users.name,
+      role: users.role,
+      seasonRole: seasonMemberships.role,
+    })
     .from(seasonMemberships)
     .innerJoin(users, eq(users.id, seasonMemberships.userId))
     .where(eq(seasonMemberships.seasonId, from.id))
     .all()
     .filter((m) => m.role === 'member');
   const unknown = continuing.filter((id) => !members.some((m) => m.userId === id));
-  if (unknown.length) throw invalidInput(unknown.map((u) => ({ path: 'continuing', message: `${u} is not a member of ${from.name}.` })));
+  if (unknown.length)
+    throw invalidInput(unknown.map((u) => ({ path: 'continuing', message: `${u} is not a member of ${from.name}.` })));
   const owned = members.length
     ? db()
-        .select({ membershipId: membershipSubsystems.membershipId, slug: membershipSubsystems.subsystemSlug, name: subsystems.name })
+        .select({
+          membershipId: membershipSubsystems.membershipId,
+          slug: membershipSubsystems.subsystemSlug,
+          name: subsystems.name,
+        })
         .from(membershipSubsystems)
         .innerJoin(subsystems, eq(subsystems.slug, membershipSubsystems.subsystemSlug))
-        .where(inArray(membershipSubsystems.membershipId, members.map((m) => m.membershipId)))
+        .where(
+          inArray(
+            membershipSubsystems.membershipId,
+            members.map((m) => m.membershipId),
+          ),
+        )
         .all()
     : [];
   const changes: RolloverChange[] = members.map((m) => ({
@@ -86,15 +142,33 @@ export function rollover(toId: string, continuing: string[], confirm: boolean, a
     for (const c of changes) {
       if (c.change === 'to-alumni') tx.update(users).set({ role: 'alumni' }).where(eq(users.id, c.userId)).run();
       else {
-        const exists = tx.select({ id: seasonMemberships.id }).from(seasonMemberships).where(and(eq(seasonMemberships.seasonId, to.id), eq(seasonMemberships.userId, c.userId))).get();
+        const exists = tx
+          .select({ id: seasonMemberships.id })
+          .from(seasonMemberships)
+          .where(and(eq(seasonMemberships.seasonId, to.id), eq(seasonMemberships.userId, c.userId)))
+          .get();
         const membershipId = exists?.id ?? newId();
-        if (!exists) tx.insert(seasonMemberships).values({ id: membershipId, seasonId: to.id, userId: c.userId, role: 'member' }).run();
-        for (const slug of c.subsystems) tx.insert(membershipSubsystems).values({ membershipId, subsystemSlug: slug }).onConflictDoNothing().run();
+        if (!exists)
+          tx.insert(seasonMemberships)
+            .values({ id: membershipId, seasonId: to.id, userId: c.userId, role: 'member' })
+            .run();
+        for (const slug of c.subsystems)
+          tx.insert(membershipSubsystems).values({ membershipId, subsystemSlug: slug }).onConflictDoNothing().run();
       }
     }
     tx.update(seasons).set({ isCurrent: false }).where(eq(seasons.isCurrent, true)).run();
     tx.update(seasons).set({ isCurrent: true }).where(eq(seasons.id, to.id)).run();
   });
-  recordAudit({ actor, action: 'season.rollover', targetType: 'season', targetId: to.id, detail: { from: from.name, toAlumni: changes.filter((c) => c.change === 'to-alumni').length, continuing: continuing.length } });
+  recordAudit({
+    actor,
+    action: 'season.rollover',
+    targetType: 'season',
+    targetId: to.id,
+    detail: {
+      from: from.name,
+      toAlumni: changes.filter((c) => c.change === 'to-alumni').length,
+      continuing: continuing.length,
+    },
+  });
   return { applied: true, ...summary };
 }

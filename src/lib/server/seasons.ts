@@ -13,21 +13,39 @@ export interface SeasonView {
 }
 
 function toView(s: typeof seasons.$inferSelect): SeasonView {
-  return { id: s.id, name: s.name, startsOn: s.startsOn, endsOn: s.endsOn, phase: s.phase, current: s.isCurrent, boat: s.boat };
+  return {
+    id: s.id,
+    name: s.name,
+    startsOn: s.startsOn,
+    endsOn: s.endsOn,
+    phase: s.phase,
+    current: s.isCurrent,
+    boat: s.boat,
+  };
 }
 
 /** Newest season first. */
 export function listSeasons(): SeasonView[] {
-  return prepared('listSeasons', (d) => d.select().from(seasons).orderBy(desc(seasons.startsOn)).prepare()).all().map(toView);
+  return prepared('listSeasons', (d) => d.select().from(seasons).orderBy(desc(seasons.startsOn)).prepare())
+    .all()
+    .map(toView);
 }
 
 export function currentSeason(): SeasonView | null {
-  const s = prepared('currentSeason', (d) => d.select().from(seasons).where(eq(seasons.isCurrent, true)).prepare()).get();
+  const s = prepared('currentSeason', (d) =>
+    d.select().from(seasons).where(eq(seasons.isCurrent, true)).prepare(),
+  ).get();
   return s ? toView(s) : null;
 }
 
 export function findSeason(id: string): SeasonView | null {
-  const s = prepared('findSeason', (d) => d.select().from(seasons).where(eq(seasons.id, sql.placeholder('id'))).prepare()).get({ id });
+  const s = prepared('findSeason', (d) =>
+    d
+      .select()
+      .from(seasons)
+      .where(eq(seasons.id, sql.placeholder('id')))
+      .prepare(),
+  ).get({ id });
   return s ? toView(s) : null;
 }
 
@@ -39,13 +57,21 @@ export interface SubsystemView {
 
 export function listSubsystems(): SubsystemView[] {
   return prepared('listSubsystems', (d) =>
-    d.select({ slug: subsystems.slug, name: subsystems.name, summary: subsystems.summary }).from(subsystems).orderBy(asc(subsystems.position), asc(subsystems.name)).prepare(),
+    d
+      .select({ slug: subsystems.slug, name: subsystems.name, summary: subsystems.summary })
+      .from(subsystems)
+      .orderBy(asc(subsystems.position), asc(subsystems.name))
+      .prepare(),
   ).all();
 }
 
 export function findSubsystem(slug: string): SubsystemView | null {
   const q = prepared('findSubsystem', (d) =>
-    d.select({ slug: subsystems.slug, name: subsystems.name, summary: subsystems.summary }).from(subsystems).where(eq(subsystems.slug, sql.placeholder('slug'))).prepare(),
+    d
+      .select({ slug: subsystems.slug, name: subsystems.name, summary: subsystems.summary })
+      .from(subsystems)
+      .where(eq(subsystems.slug, sql.placeholder('slug')))
+      .prepare(),
   );
   return q.get({ slug }) ?? null;
 }

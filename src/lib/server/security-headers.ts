@@ -41,7 +41,11 @@ export async function withSecurityHeaders(response: Response): Promise<Response>
     apply(out.headers);
   } catch {
     // Response.redirect() and fetch responses have immutable headers: copy into a new response.
-    out = new Response(response.body, { status: response.status, statusText: response.statusText, headers: new Headers(response.headers) });
+    out = new Response(response.body, {
+      status: response.status,
+      statusText: response.statusText,
+      headers: new Headers(response.headers),
+    });
     apply(out.headers);
   }
   return out;

@@ -8,7 +8,14 @@ import { clientIp } from '~/lib/server/request';
 export const GET: APIRoute = handle(async (context) => {
   const actor = requirePermission(context.locals, 'export:run');
   const backup = await databaseBackup();
-  recordAudit({ actor, action: 'backup.run', targetType: 'database', targetId: backup.fileName, detail: { bytes: backup.size }, ip: clientIp(context) });
+  recordAudit({
+    actor,
+    action: 'backup.run',
+    targetType: 'database',
+    targetId: backup.fileName,
+    detail: { bytes: backup.size },
+    ip: clientIp(context),
+  });
   return new Response(backup.stream, {
     status: 200,
     headers: {

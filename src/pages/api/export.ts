@@ -8,7 +8,14 @@ import { clientIp } from '~/lib/server/request';
 export const GET: APIRoute = handle(async (context) => {
   const actor = requirePermission(context.locals, 'export:run');
   const bundle = await handoverBundle();
-  recordAudit({ actor, action: 'export.run', targetType: 'bundle', targetId: bundle.fileName, detail: { ...bundle.counts }, ip: clientIp(context) });
+  recordAudit({
+    actor,
+    action: 'export.run',
+    targetType: 'bundle',
+    targetId: bundle.fileName,
+    detail: { ...bundle.counts },
+    ip: clientIp(context),
+  });
   return new Response(bundle.stream, {
     status: 200,
     headers: {

@@ -7,5 +7,7 @@ import { mailMode } from '~/lib/server/mail/transport';
 export const GET: APIRoute = handle(({ locals }) => {
   requirePermission(locals, 'outbox:read');
   if (mailMode() !== 'capture') throw notFound('The outbox (mail goes to the SMTP server)');
-  return json({ messages: listOutbox().map(({ to, subject, text, html, sentAt }) => ({ to, subject, text, html, sentAt })) });
+  return json({
+    messages: listOutbox().map(({ to, subject, text, html, sentAt }) => ({ to, subject, text, html, sentAt })),
+  });
 });

@@ -6,7 +6,15 @@ import { calculators, runCalculator } from '../../../src/lib/calc';
 // The demo scenario's saved calculations (invented numbers for the fictional team) must all compute.
 const root = join(__dirname, '..', '..', '..');
 const calcs = JSON.parse(readFileSync(join(root, 'content/demo/calculations.json'), 'utf8')) as {
-  id: string; kind: string; title: string; subsystem: string; season: string; author: string; createdAt: string; notes: string; inputs: Record<string, unknown>;
+  id: string;
+  kind: string;
+  title: string;
+  subsystem: string;
+  season: string;
+  author: string;
+  createdAt: string;
+  notes: string;
+  inputs: Record<string, unknown>;
 }[];
 const team = JSON.parse(readFileSync(join(root, 'content/demo/team.json'), 'utf8')) as {
   seasons: { name: string; startsOn: string; endsOn: string }[];
@@ -34,8 +42,19 @@ const EXPECTED: [string, string, string, string][] = [
 ];
 
 const AUTHORS: Record<string, string[]> = {
-  '2025–26': ['member@wakebook.test', 'lead@wakebook.test', 'tomas.ferreira@wakebook.test', 'hanna.voss@wakebook.test', 'kwame.mensah@wakebook.test'],
-  '2024–25': ['alumni@wakebook.test', 'sofia.marchetti@wakebook.test', 'amara.nwosu@wakebook.test', 'erik.dahl@wakebook.test'],
+  '2025–26': [
+    'member@wakebook.test',
+    'lead@wakebook.test',
+    'tomas.ferreira@wakebook.test',
+    'hanna.voss@wakebook.test',
+    'kwame.mensah@wakebook.test',
+  ],
+  '2024–25': [
+    'alumni@wakebook.test',
+    'sofia.marchetti@wakebook.test',
+    'amara.nwosu@wakebook.test',
+    'erik.dahl@wakebook.test',
+  ],
   '2023–24': ['daniel.osei@wakebook.test', 'erik.dahl@wakebook.test'],
 };
 
@@ -76,7 +95,8 @@ describe('demo saved calculations', () => {
       return r.result.outputs as Record<string, number>;
     };
     const matchPower = (p: Record<string, number>, power: number) => {
-      let lo = 300, hi = 6000;
+      let lo = 300,
+        hi = 6000;
       for (let i = 0; i < 60; i++) {
         const mid = (lo + hi) / 2;
         if (thrustAt(p, mid).shaftPower_W > power) hi = mid;

@@ -34,14 +34,18 @@ describe('warnings where specified', () => {
   };
 
   it('blade area outside the tested coverage for Z warns; inside does not', () => {
-    expect(warnings('propeller', { blades: 3, bladeAreaRatio: 0.95 })).toMatch(/outside the blade areas actually tested for 3 blades/);
+    expect(warnings('propeller', { blades: 3, bladeAreaRatio: 0.95 })).toMatch(
+      /outside the blade areas actually tested for 3 blades/,
+    );
     expect(warnings('propeller', { blades: 2, bladeAreaRatio: 0.5 })).toMatch(/tested for 2 blades/);
     expect(warnings('propeller', { blades: 4, bladeAreaRatio: 0.7 })).not.toMatch(/tested for/);
   });
 
   it('Rn₀.₇₅ below 2·10⁶ warns; a large fast propeller above it does not', () => {
     expect(warnings('propeller', { diameter_m: 0.2, rpm: 1500, speed_mps: 4 })).toMatch(/Rn₀\.₇₅/);
-    expect(warnings('propeller', { blades: 4, bladeAreaRatio: 0.7, diameter_m: 2.5, rpm: 300, speed_mps: 8 })).not.toMatch(/Rn₀\.₇₅/);
+    expect(
+      warnings('propeller', { blades: 4, bladeAreaRatio: 0.7, diameter_m: 2.5, rpm: 300, speed_mps: 8 }),
+    ).not.toMatch(/Rn₀\.₇₅/);
   });
 
   it('negative thrust warns and leaves efficiency empty', () => {
@@ -56,8 +60,12 @@ describe('warnings where specified', () => {
   });
 
   it('cable warns above 3 % drop (common practice) and not below', () => {
-    expect(warnings('cable', { current_A: 150, length_m: 6, crossSection_mm2: 10, systemVoltage_V: 24 })).toMatch(/above the 3 %/);
-    expect(warnings('cable', { current_A: 20, length_m: 1, crossSection_mm2: 16, systemVoltage_V: 48 })).not.toMatch(/3 %/);
+    expect(warnings('cable', { current_A: 150, length_m: 6, crossSection_mm2: 10, systemVoltage_V: 24 })).toMatch(
+      /above the 3 %/,
+    );
+    expect(warnings('cable', { current_A: 20, length_m: 1, crossSection_mm2: 16, systemVoltage_V: 48 })).not.toMatch(
+      /3 %/,
+    );
   });
 
   it('sweep says two propellers are common practice, and flags unmodelled cavitation', () => {

@@ -25,8 +25,10 @@ describe('inputs anywhere inside the schema never break a calculator', () => {
           if (m.kind === 'choice') inputs[m.name] = m.options![Math.floor(rnd() * m.options!.length)].value;
           else {
             // log-uniform for wide ranges so small values are exercised too
-            const lo = m.min!, hi = m.max!;
-            let v = lo > 0 && hi / lo > 100 ? Math.exp(Math.log(lo) + rnd() * Math.log(hi / lo)) : lo + rnd() * (hi - lo);
+            const lo = m.min!,
+              hi = m.max!;
+            let v =
+              lo > 0 && hi / lo > 100 ? Math.exp(Math.log(lo) + rnd() * Math.log(hi / lo)) : lo + rnd() * (hi - lo);
             if (m.kind === 'integer') v = Math.round(v);
             inputs[m.name] = v;
           }
@@ -43,9 +45,13 @@ describe('inputs anywhere inside the schema never break a calculator', () => {
         if (r.ok) {
           ok++;
           for (const [k, v] of Object.entries(r.result.outputs))
-            expect(v === null || typeof v === 'string' || Number.isFinite(v), `${kind}.${k} = ${v} for ${JSON.stringify(inputs)}`).toBe(true);
+            expect(
+              v === null || typeof v === 'string' || Number.isFinite(v),
+              `${kind}.${k} = ${v} for ${JSON.stringify(inputs)}`,
+            ).toBe(true);
           for (const s of Object.values(r.result.series ?? {}))
-            for (const y of [s.x, ...s.y]) expect(y.values.every(Number.isFinite), `${kind} series ${y.name}`).toBe(true);
+            for (const y of [s.x, ...s.y])
+              expect(y.values.every(Number.isFinite), `${kind} series ${y.name}`).toBe(true);
         } else if (r.error === 'invalid_input') {
           // only the cross-field rules may refuse (cooling pipe pair, sweep ranges)
           expect(['cooling', 'propeller-sweep']).toContain(kind);

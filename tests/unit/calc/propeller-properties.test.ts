@@ -56,7 +56,15 @@ describe('B-series open-water properties', () => {
       [1800, 4.5, 0.05],
       [2500, 6, 0.1],
     ]) {
-      const r = runCalculator('propeller', { blades: 3, bladeAreaRatio: 0.5, pitchRatio: 1.1, diameter_m: 0.22, rpm, speed_mps: speed, wakeFraction: w });
+      const r = runCalculator('propeller', {
+        blades: 3,
+        bladeAreaRatio: 0.5,
+        pitchRatio: 1.1,
+        diameter_m: 0.22,
+        rpm,
+        speed_mps: speed,
+        wakeFraction: w,
+      });
       if (!r.ok) throw new Error(JSON.stringify(r));
       const o = r.result.outputs as Record<string, number>;
       const vA = speed * (1 - w);

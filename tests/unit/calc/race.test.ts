@@ -5,9 +5,23 @@ import { waterProperties } from '../../../src/lib/calc/properties/water';
 import { hullResistance } from '../../../src/lib/calc/resistance';
 
 const BOAT = {
-  length_m: 5.5, wettedArea_m2: 3.1, formFactor: 1.12, appendageDragArea_m2: 0.003, temperature_C: 18, water: 'fresh',
-  blades: 3, bladeAreaRatio: 0.45, pitchRatio: 1.2, diameter_m: 0.2, wakeFraction: 0.04, thrustDeduction: 0.03,
-  batteryEnergy_Wh: 1800, usableFraction: 0.9, raceDuration_h: 2, solarPower_W: 280, drivetrainEfficiency: 0.86,
+  length_m: 5.5,
+  wettedArea_m2: 3.1,
+  formFactor: 1.12,
+  appendageDragArea_m2: 0.003,
+  temperature_C: 18,
+  water: 'fresh',
+  blades: 3,
+  bladeAreaRatio: 0.45,
+  pitchRatio: 1.2,
+  diameter_m: 0.2,
+  wakeFraction: 0.04,
+  thrustDeduction: 0.03,
+  batteryEnergy_Wh: 1800,
+  usableFraction: 0.9,
+  raceDuration_h: 2,
+  solarPower_W: 280,
+  drivetrainEfficiency: 0.86,
 };
 
 describe('race operating point', () => {
@@ -68,7 +82,11 @@ describe('propeller sweep', () => {
     const all = g.z.values.flat().filter((v): v is number => v !== null);
     expect(Math.max(...all)).toBe(o.bestEnduranceSpeed_mps);
     // the best endurance propeller's race solve gives the same speed
-    const race = runCalculator('race', { ...BOAT, pitchRatio: o.bestEndurancePitchRatio, bladeAreaRatio: o.bestEnduranceBladeAreaRatio });
+    const race = runCalculator('race', {
+      ...BOAT,
+      pitchRatio: o.bestEndurancePitchRatio,
+      bladeAreaRatio: o.bestEnduranceBladeAreaRatio,
+    });
     if (!race.ok) throw new Error(JSON.stringify(race));
     expect((race.result.outputs as Record<string, number>).speed_mps).toBeCloseTo(o.bestEnduranceSpeed_mps, 6);
     // blade areas default to the tested coverage for three blades (0.35–0.80)
@@ -85,8 +103,20 @@ describe('propeller sweep', () => {
   });
 
   it('pitch range beyond the series → out_of_range naming the bound', () => {
-    expect(runCalculator('propeller-sweep', { pitchRatioMax: 1.6 })).toMatchObject({ ok: false, error: 'out_of_range', input: 'pitchRatioMax' });
-    expect(runCalculator('propeller-sweep', { pitchRatioMin: 0.4 })).toMatchObject({ ok: false, error: 'out_of_range', input: 'pitchRatioMin' });
-    expect(runCalculator('propeller-sweep', { blades: 9 })).toMatchObject({ ok: false, error: 'out_of_range', input: 'blades' });
+    expect(runCalculator('propeller-sweep', { pitchRatioMax: 1.6 })).toMatchObject({
+      ok: false,
+      error: 'out_of_range',
+      input: 'pitchRatioMax',
+    });
+    expect(runCalculator('propeller-sweep', { pitchRatioMin: 0.4 })).toMatchObject({
+      ok: false,
+      error: 'out_of_range',
+      input: 'pitchRatioMin',
+    });
+    expect(runCalculator('propeller-sweep', { blades: 9 })).toMatchObject({
+      ok: false,
+      error: 'out_of_range',
+      input: 'blades',
+    });
   });
 });

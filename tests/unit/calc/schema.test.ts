@@ -5,7 +5,17 @@ const kinds = calculatorKinds;
 
 describe('every calculator', () => {
   it('is registered under its own kind', () => {
-    expect([...kinds].sort()).toEqual(['cable', 'cooling', 'energy', 'propeller', 'propeller-sweep', 'race', 'resistance', 'solar', 'water']);
+    expect([...kinds].sort()).toEqual([
+      'cable',
+      'cooling',
+      'energy',
+      'propeller',
+      'propeller-sweep',
+      'race',
+      'resistance',
+      'solar',
+      'water',
+    ]);
     for (const k of kinds) expect(getCalculator(k)?.kind).toBe(k);
     expect(getCalculator('nope')).toBeUndefined();
     expect(getCalculator('toString')).toBeUndefined();
@@ -103,7 +113,11 @@ describe('every calculator', () => {
   });
 
   it('an unknown kind is invalid input on the path kind', () => {
-    expect(runCalculator('warp-drive', {})).toMatchObject({ ok: false, error: 'invalid_input', issues: [{ path: 'kind' }] });
+    expect(runCalculator('warp-drive', {})).toMatchObject({
+      ok: false,
+      error: 'invalid_input',
+      issues: [{ path: 'kind' }],
+    });
   });
 
   it('cautions are present where people can get hurt', () => {

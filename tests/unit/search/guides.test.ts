@@ -25,8 +25,21 @@ describe('mdxToText', () => {
   });
 
   it('puts summary, text and tags into the searchable text', () => {
-    const doc = toGuideDoc({ slug: 's', title: 'T', subsystem: 'hull', summary: 'A summary.', tags: ['drag', 'wetted-area'], body: 'Body words.' });
-    expect(doc).toEqual({ slug: 's', title: 'T', subsystem: 'hull', audience: 'everyone', text: 'A summary.\n\nBody words.\ndrag wetted-area' });
+    const doc = toGuideDoc({
+      slug: 's',
+      title: 'T',
+      subsystem: 'hull',
+      summary: 'A summary.',
+      tags: ['drag', 'wetted-area'],
+      body: 'Body words.',
+    });
+    expect(doc).toEqual({
+      slug: 's',
+      title: 'T',
+      subsystem: 'hull',
+      audience: 'everyone',
+      text: 'A summary.\n\nBody words.\ndrag wetted-area',
+    });
   });
 });
 

@@ -13,7 +13,9 @@ describe('highlightHtml', () => {
 
   it('escapes stored text: markup in a title or body stays text, only our <mark> is added', () => {
     const out = highlightHtml('<script>alert("x")</script> & <b onmouseover=1>seal</b>', h(['seal', 'script']));
-    expect(out).toBe('&lt;<mark>script</mark>&gt;alert(&quot;x&quot;)&lt;/<mark>script</mark>&gt; &amp; &lt;b onmouseover=1&gt;<mark>seal</mark>&lt;/b&gt;');
+    expect(out).toBe(
+      '&lt;<mark>script</mark>&gt;alert(&quot;x&quot;)&lt;/<mark>script</mark>&gt; &amp; &lt;b onmouseover=1&gt;<mark>seal</mark>&lt;/b&gt;',
+    );
     expect(out.replace(/<\/?mark>/g, '')).not.toMatch(/[<>]/);
   });
 
@@ -35,7 +37,13 @@ describe('snippetHtml', () => {
     expect(out).toContain('<mark>shaft</mark> <mark>seal</mark>');
     expect(out.startsWith('…')).toBe(true);
     expect(out.endsWith('…')).toBe(true);
-    expect(out.replace(/<\/?mark>/g, '').replace(/…/g, '').trim().split(' ')).toHaveLength(10);
+    expect(
+      out
+        .replace(/<\/?mark>/g, '')
+        .replace(/…/g, '')
+        .trim()
+        .split(' '),
+    ).toHaveLength(10);
   });
 
   it('starts at the beginning, without an ellipsis, when nothing in the body matched', () => {

@@ -8,7 +8,16 @@ function vocab(entries: [string, number][]) {
 }
 
 describe('Vocabulary', () => {
-  const v = vocab([['propeller', 20], ['propellers', 5], ['propulsion', 9], ['ventilation', 7], ['vent', 1], ['seal', 12], ['sail', 3], ['shaft', 8]]);
+  const v = vocab([
+    ['propeller', 20],
+    ['propellers', 5],
+    ['propulsion', 9],
+    ['ventilation', 7],
+    ['vent', 1],
+    ['seal', 12],
+    ['sail', 3],
+    ['shaft', 8],
+  ]);
 
   it('knows words and prefixes', () => {
     expect(v.has('propeller')).toBe(true);
@@ -31,7 +40,11 @@ describe('Vocabulary', () => {
     expect(editDistance('seal', 'sale')).toBe(2);
     expect(editDistance('kitten', 'sitting')).toBe(3);
     expect(editDistance('', 'abc')).toBe(3);
-    const w = vocab([['charge', 50], ['curage', 1], ['shaft', 3]]);
+    const w = vocab([
+      ['charge', 50],
+      ['curage', 1],
+      ['shaft', 3],
+    ]);
     // One edit from both, by a swap and by a replacement: the common word wins.
     expect(w.corrections('chrage')).toEqual(['charge', 'curage']);
     expect(w.corrections('shfat')).toEqual(['shaft']);

@@ -10,7 +10,10 @@ export const RHOC = 322; // kg/m³
 export const R_SPECIFIC = 461.51805; // J/(kg·K)
 
 // Terms 1–7: n δ^d τ^t
-const P_N = [0.12533547935523e-1, 0.78957634722828e1, -0.87803203303561e1, 0.31802509345418, -0.26145533859358, -0.78199751687981e-2, 0.88089493102134e-2];
+const P_N = [
+  0.12533547935523e-1, 0.78957634722828e1, -0.87803203303561e1, 0.31802509345418, -0.26145533859358,
+  -0.78199751687981e-2, 0.88089493102134e-2,
+];
 const P_D = [1, 1, 1, 2, 2, 3, 4];
 const P_T = [-0.5, 0.875, 1, 0.5, 0.75, 0.375, 1];
 
@@ -26,9 +29,18 @@ const E_N = [
   0.22446277332006e-1, -0.62689710414685e-4, -0.55711118565645e-9, -0.19905718354408, 0.31777497330738,
   -0.11841182425981,
 ];
-const E_C = [1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 2, 2, 2, 2, 2, 2, 2, 2, 2, 2, 2, 2, 2, 2, 2, 2, 2, 2, 2, 2, 3, 3, 3, 3, 4, 6, 6, 6, 6];
-const E_D = [1, 1, 1, 2, 2, 3, 4, 4, 5, 7, 9, 10, 11, 13, 15, 1, 2, 2, 2, 3, 4, 4, 4, 5, 6, 6, 7, 9, 9, 9, 9, 9, 10, 10, 12, 3, 4, 4, 5, 14, 3, 6, 6, 6];
-const E_T = [4, 6, 12, 1, 5, 4, 2, 13, 9, 3, 4, 11, 4, 13, 1, 7, 1, 9, 10, 10, 3, 7, 10, 10, 6, 10, 10, 1, 2, 3, 4, 8, 6, 9, 8, 16, 22, 23, 23, 10, 50, 44, 46, 50];
+const E_C = [
+  1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 2, 2, 2, 2, 2, 2, 2, 2, 2, 2, 2, 2, 2, 2, 2, 2, 2, 2, 2, 2, 3, 3, 3, 3,
+  4, 6, 6, 6, 6,
+];
+const E_D = [
+  1, 1, 1, 2, 2, 3, 4, 4, 5, 7, 9, 10, 11, 13, 15, 1, 2, 2, 2, 3, 4, 4, 4, 5, 6, 6, 7, 9, 9, 9, 9, 9, 10, 10, 12, 3, 4,
+  4, 5, 14, 3, 6, 6, 6,
+];
+const E_T = [
+  4, 6, 12, 1, 5, 4, 2, 13, 9, 3, 4, 11, 4, 13, 1, 7, 1, 9, 10, 10, 3, 7, 10, 10, 6, 10, 10, 1, 2, 3, 4, 8, 6, 9, 8, 16,
+  22, 23, 23, 10, 50, 44, 46, 50,
+];
 
 // Terms 52–54: n δ^d τ^t exp(−α(δ−ε)² − β(τ−γ)²)
 const G_N = [-0.31306260323435e2, 0.31546140237781e2, -0.25213154341695e4];
@@ -52,9 +64,14 @@ export interface ResidualDerivs {
 }
 
 export function residual(delta: number, tau: number): ResidualDerivs {
-  let d = 0, dd = 0, tt = 0, dt = 0;
+  let d = 0,
+    dd = 0,
+    tt = 0,
+    dt = 0;
   for (let i = 0; i < P_N.length; i++) {
-    const n = P_N[i], di = P_D[i], ti = P_T[i];
+    const n = P_N[i],
+      di = P_D[i],
+      ti = P_T[i];
     const base = n * delta ** di * tau ** ti;
     d += (base * di) / delta;
     dd += (base * di * (di - 1)) / (delta * delta);
@@ -62,7 +79,10 @@ export function residual(delta: number, tau: number): ResidualDerivs {
     dt += (base * di * ti) / (delta * tau);
   }
   for (let i = 0; i < E_N.length; i++) {
-    const n = E_N[i], c = E_C[i], di = E_D[i], ti = E_T[i];
+    const n = E_N[i],
+      c = E_C[i],
+      di = E_D[i],
+      ti = E_T[i];
     const dc = delta ** c;
     const base = n * delta ** di * tau ** ti * Math.exp(-dc);
     const k = di - c * dc;
@@ -72,7 +92,13 @@ export function residual(delta: number, tau: number): ResidualDerivs {
     dt += (base * k * ti) / (delta * tau);
   }
   for (let i = 0; i < G_N.length; i++) {
-    const n = G_N[i], di = G_D[i], ti = G_T[i], a = G_ALPHA[i], b = G_BETA[i], g = G_GAMMA[i], e = G_EPS[i];
+    const n = G_N[i],
+      di = G_D[i],
+      ti = G_T[i],
+      a = G_ALPHA[i],
+      b = G_BETA[i],
+      g = G_GAMMA[i],
+      e = G_EPS[i];
     const base = n * delta ** di * tau ** ti * Math.exp(-a * (delta - e) ** 2 - b * (tau - g) ** 2);
     const kd = di / delta - 2 * a * (delta - e);
     const kt = ti / tau - 2 * b * (tau - g);
@@ -117,7 +143,8 @@ export function liquidDensity(T: number, p: number): number {
 
 /** Isochoric and isobaric specific heat capacities, J/(kg·K). */
 export function heatCapacities(T: number, rho: number): { cv: number; cp: number } {
-  const delta = rho / RHOC, tau = TC / T;
+  const delta = rho / RHOC,
+    tau = TC / T;
   const r = residual(delta, tau);
   const cv = -tau * tau * (idealTauTau(tau) + r.tt) * R_SPECIFIC;
   const num = (1 + delta * r.d - delta * tau * r.dt) ** 2;

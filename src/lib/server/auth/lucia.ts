@@ -23,7 +23,8 @@ class PreparedSessionAdapter extends DrizzleSQLiteAdapter {
   );
 
   override async getSessionAndUser(sessionId: string): Promise<[DatabaseSession | null, DatabaseUser | null]> {
-    const row = this.lookup.get(sessionId) as { sid: string; uid: string; exp: number; email: string; name: string; role: Role } | undefined;
+    const row = this.lookup.get(sessionId) as
+      { sid: string; uid: string; exp: number; email: string; name: string; role: Role } | undefined;
     if (!row) return [null, null];
     return [
       { id: row.sid, userId: row.uid, expiresAt: new Date(row.exp * 1000), attributes: {} },
@@ -88,7 +89,10 @@ export async function checkSessionCookie(cookieHeader: string | undefined): Prom
  * Reads the session cookie (or takes the check the front door already made); refreshes the cookie when Lucia
  * extended the session and clears it when it is invalid.
  */
-export async function readSession(cookies: AstroCookies, checked?: SessionCheck): Promise<{ user: User | null; session: Session | null }> {
+export async function readSession(
+  cookies: AstroCookies,
+  checked?: SessionCheck,
+): Promise<{ user: User | null; session: Session | null }> {
   const id = checked ? checked.id : (cookies.get(SESSION_COOKIE)?.value ?? null);
   if (!id) return { user: null, session: null };
   const { session, user } = checked ?? (await lucia().validateSession(id));

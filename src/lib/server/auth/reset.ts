@@ -31,21 +31,39 @@ export function requestPasswordReset(rawEmail: string, ip: string, base: string)
   resetByAddress.fail(ip);
   const user = db().select().from(users).where(eq(users.email, email)).get();
   if (!user) {
-    recordAudit({ actor: null, action: 'auth.reset-request', targetType: 'user', targetId: email, detail: { account: false }, ip });
+    recordAudit({
+      actor: null,
+      action: 'auth.reset-request',
+      targetType: 'user',
+      targetId: email,
+      detail: { account: false },
+      ip,
+    });
     return { ok: true };
   }
   const token = newToken();
   const now = new Date();
   const expiresAt = new Date(now.getTime() + RESET_MINUTES * 60_000);
-  db().insert(passwordResets).values({ tokenHash: hashToken(token), userId: user.id, createdAt: now, expiresAt }).run();
-  recordAudit({ actor: null, action: 'auth.reset-request', targetType: 'user', targetId: user.id, detail: { account: true }, ip });
+  db()
+    .insert(passwordResets)
+    .values({ tokenHash: hashToken(token), userId: user.id, createdAt: now, expiresAt })
+    .run();
+  recordAudit({
+    actor: null,
+    action: 'auth.reset-request',
+    targetType: 'user',
+    targetId: user.id,
+    detail: { account: true },
+    ip,
+  });
   void sendMail(user.email, resetEmail({ name: user.name, url: `${base}/reset/${token}`, expiresAt })).catch((e) => {
     console.error('[wakebook] could not record the reset e-mail:', e);
   });
   return { ok: true };
 }
 
-export type ResetTokenCheck = { state: 'valid'; userId: string; tokenHash: string } | { state: Exclude<SpentReason, 'revoked'> | 'unknown' };
+export type ResetTokenCheck =
+  { state: 'valid'; userId: string; tokenHash: string } | { state: Exclude<SpentReason, 'revoked'> | 'unknown' };
 
 export function checkResetToken(token: string): ResetTokenCheck {
   const tokenHash = hashToken(token);
@@ -69,12 +87,22 @@ export async function resetPassword(token: string, password: string, ip: string)
       .where(and(eq(passwordResets.tokenHash, check.tokenHash), isNull(passwordResets.usedAt)))
       .run();
     if (spent.changes !== 1) throw linkError('used');
-    tx.update(passwordResets).set({ usedAt: now }).where(and(eq(passwordResets.userId, check.userId), isNull(passwordResets.usedAt))).run();
+    tx.update(passwordResets)
+      .set({ usedAt: now })
+      .where(and(eq(passwordResets.userId, check.userId), isNull(passwordResets.usedAt)))
+      .run();
     tx.update(users).set({ passwordHash }).where(eq(users.id, check.userId)).run();
   });
   await endAllSessions(check.userId);
   const user = db().select({ id: users.id, email: users.email }).from(users).where(eq(users.id, check.userId)).get();
   // The owner proved control of the mailbox; earlier wrong guesses no longer lock them out.
   if (user) signInByAccount.clear(user.email);
-  recordAudit({ actor: user ?? null, action: 'auth.password-reset', targetType: 'user', targetId: check.userId, detail: { sessionsEnded: true }, ip });
+  recordAudit({
+    actor: user ?? null,
+    action: 'auth.password-reset',
+    targetType: 'user',
+    targetId: check.userId,
+    detail: { sessionsEnded: true },
+    ip,
+  });
 }

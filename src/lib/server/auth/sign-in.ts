@@ -42,6 +42,12 @@ export async function attemptSignIn(
   await startSession(user.id, cookies);
   const now = new Date();
   db().update(users).set({ lastSignInAt: now }).where(eq(users.id, user.id)).run();
-  recordAudit({ actor: { id: user.id, email: user.email }, action: 'auth.sign-in', targetType: 'user', targetId: user.id, ip });
+  recordAudit({
+    actor: { id: user.id, email: user.email },
+    action: 'auth.sign-in',
+    targetType: 'user',
+    targetId: user.id,
+    ip,
+  });
   return { ok: true, user: toPublicUser(user) };
 }

@@ -40,8 +40,10 @@ interface Instrumented {
 }
 
 const WORD = /[A-Za-z_][A-Za-z0-9_]*/g;
-const WRITE = /^\s*(?:insert(?:\s+or\s+\w+)?\s+into|replace\s+into|update(?:\s+or\s+\w+)?|delete\s+from)\s+[`"[]?(\w+)/i;
-const HARMLESS = /^\s*(?:select|with(?![\s\S]*\b(?:insert|update|delete|replace)\b)|pragma\s+(?:data_version|table_info|index_list|foreign_key_list|integrity_check|quick_check|journal_mode|page_count|page_size|freelist_count)|begin|commit|end|rollback|savepoint|release|explain)\b/i;
+const WRITE =
+  /^\s*(?:insert(?:\s+or\s+\w+)?\s+into|replace\s+into|update(?:\s+or\s+\w+)?|delete\s+from)\s+[`"[]?(\w+)/i;
+const HARMLESS =
+  /^\s*(?:select|with(?![\s\S]*\b(?:insert|update|delete|replace)\b)|pragma\s+(?:data_version|table_info|index_list|foreign_key_list|integrity_check|quick_check|journal_mode|page_count|page_size|freelist_count)|begin|commit|end|rollback|savepoint|release|explain)\b/i;
 
 function namesIn(sql: string, tables: Set<string>): string[] {
   const out = new Set<string>();
@@ -60,14 +62,21 @@ export function bumpAll(): void {
 
 /** Wraps a connection's prepare() and exec() so reads and writes are seen. Call once per opened connection. */
 export function instrumentConnection(sqlite: Database.Database): void {
-  const tables = new Set<string>(sqlite.prepare("select name from sqlite_master where type in ('table', 'view')").pluck().all() as string[]);
+  const tables = new Set<string>(
+    sqlite.prepare("select name from sqlite_master where type in ('table', 'view')").pluck().all() as string[],
+  );
   const aliases = new Map<string, string>();
-  for (const row of sqlite.prepare("select name, sql from sqlite_master where type = 'table' and sql like 'CREATE VIRTUAL TABLE%'").all() as { name: string; sql: string }[]) {
+  for (const row of sqlite
+    .prepare("select name, sql from sqlite_master where type = 'table' and sql like 'CREATE VIRTUAL TABLE%'")
+    .all() as { name: string; sql: string }[]) {
     const m = /using\s+fts5vocab\s*\(\s*[`"']?(\w+)/i.exec(row.sql);
     if (m) aliases.set(row.name, m[1]);
   }
   const direct = new Map<string, Set<string>>();
-  for (const row of sqlite.prepare("select tbl_name, sql from sqlite_master where type = 'trigger'").all() as { tbl_name: string; sql: string }[]) {
+  for (const row of sqlite.prepare("select tbl_name, sql from sqlite_master where type = 'trigger'").all() as {
+    tbl_name: string;
+    sql: string;
+  }[]) {
     const set = direct.get(row.tbl_name) ?? new Set<string>();
     for (const name of namesIn(row.sql, tables)) set.add(name);
     direct.set(row.tbl_name, set);
@@ -76,12 +85,22 @@ export function instrumentConnection(sqlite: Database.Database): void {
   for (const table of tables) {
     const seen = new Set<string>([table]);
     const todo = [table];
-    while (todo.length) for (const next of direct.get(todo.pop()!) ?? []) if (!seen.has(next)) seen.add(next), todo.push(next);
+    while (todo.length)
+      for (const next of direct.get(todo.pop()!) ?? []) if (!seen.has(next)) (seen.add(next), todo.push(next));
     writes.set(table, seen);
   }
   const totalChanges = sqlite.prepare('select total_changes()').pluck();
   const dataVersion = sqlite.prepare('pragma data_version').pluck();
-  const c: Instrumented = { sqlite, tables, writes, aliases, totalChanges, dataVersion, expectedTotal: 0, expectedDataVersion: 0 };
+  const c: Instrumented = {
+    sqlite,
+    tables,
+    writes,
+    aliases,
+    totalChanges,
+    dataVersion,
+    expectedTotal: 0,
+    expectedDataVersion: 0,
+  };
   c.expectedTotal = totalChanges.get() as number;
   c.expectedDataVersion = dataVersion.get() as number;
   connection = c;

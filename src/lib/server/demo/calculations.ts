@@ -34,7 +34,18 @@ export function seedCalculations(tx: Tx, ids: SeedIds, list: ReturnType<typeof l
     const at = new Date(c.createdAt);
     const authorId = ids.userIdByEmail.get(c.author) ?? null;
     tx.insert(calculations)
-      .values({ id: c.id, kind: c.kind, title: c.title, subsystemSlug: c.subsystem, seasonId, authorId, notes: c.notes, inputs: run.inputs, createdAt: at, updatedAt: at })
+      .values({
+        id: c.id,
+        kind: c.kind,
+        title: c.title,
+        subsystemSlug: c.subsystem,
+        seasonId,
+        authorId,
+        notes: c.notes,
+        inputs: run.inputs,
+        createdAt: at,
+        updatedAt: at,
+      })
       .run();
     tx.insert(calculationResults)
       .values({

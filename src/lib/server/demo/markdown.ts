@@ -37,14 +37,20 @@ function inline(tokens: Token[] | undefined, marks: Mark[] = []): JSONContent[] 
         out.push({ type: 'hardBreak' });
         break;
       default:
-        if ('text' in t && typeof t.text === 'string' && t.text) out.push({ type: 'text', text: decode(t.text), ...(marks.length ? { marks } : {}) });
+        if ('text' in t && typeof t.text === 'string' && t.text)
+          out.push({ type: 'text', text: decode(t.text), ...(marks.length ? { marks } : {}) });
     }
   }
   return out;
 }
 
 function decode(s: string): string {
-  return s.replace(/&amp;/g, '&').replace(/&lt;/g, '<').replace(/&gt;/g, '>').replace(/&quot;/g, '"').replace(/&#39;/g, "'");
+  return s
+    .replace(/&amp;/g, '&')
+    .replace(/&lt;/g, '<')
+    .replace(/&gt;/g, '>')
+    .replace(/&quot;/g, '"')
+    .replace(/&#39;/g, "'");
 }
 
 function paragraph(tokens: Token[] | undefined): JSONContent {
@@ -84,7 +90,11 @@ function blocks(tokens: Token[]): JSONContent[] {
           content: l.items.map((item) => {
             const content = blocks(item.tokens.filter((x) => x.type !== 'checkbox'));
             return task
-              ? { type: 'taskItem', attrs: { checked: !!item.checked }, content: content.length ? content : [{ type: 'paragraph' }] }
+              ? {
+                  type: 'taskItem',
+                  attrs: { checked: !!item.checked },
+                  content: content.length ? content : [{ type: 'paragraph' }],
+                }
               : { type: 'listItem', content: content.length ? content : [{ type: 'paragraph' }] };
           }),
         });

@@ -6,7 +6,10 @@ import { newId } from '../ids';
 import type { SeedIds, Tx } from './seed-types';
 
 const schema = z.object({
-  routes: z.record(z.string(), z.array(z.object({ kind: z.enum(['guide', 'record', 'calculation']), ref: z.string() }))),
+  routes: z.record(
+    z.string(),
+    z.array(z.object({ kind: z.enum(['guide', 'record', 'calculation']), ref: z.string() })),
+  ),
   progress: z.record(z.email(), z.record(z.string(), z.array(z.string()))).default({}),
 });
 
@@ -23,7 +26,9 @@ export function seedOnboarding(tx: Tx, ids: SeedIds, data: ReturnType<typeof loa
     items.forEach((it, position) => {
       const id = newId();
       itemId.set(`${slug}:${it.ref}`, id);
-      tx.insert(onboardingItems).values({ id, subsystemSlug: slug, position, kind: it.kind, ref: it.ref, createdAt: now }).run();
+      tx.insert(onboardingItems)
+        .values({ id, subsystemSlug: slug, position, kind: it.kind, ref: it.ref, createdAt: now })
+        .run();
     });
   }
   for (const [email, bySubsystem] of Object.entries(data.progress)) {

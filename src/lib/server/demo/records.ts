@@ -57,10 +57,18 @@ function linkMentions(markdown: string, titles: Map<string, { title: string; url
 }
 
 function plainMentions(text: string, titles: Map<string, { title: string }>): string {
-  return text.replace(/\b(demo-(?:rec|calc)-[a-z0-9-]*[a-z0-9])\b/g, (id) => (titles.has(id) ? `“${titles.get(id)!.title}”` : id));
+  return text.replace(/\b(demo-(?:rec|calc)-[a-z0-9-]*[a-z0-9])\b/g, (id) =>
+    titles.has(id) ? `“${titles.get(id)!.title}”` : id,
+  );
 }
 
-export function seedRecords(tx: Tx, ids: SeedIds, dir: string, list: DemoRecord[], calcTitles: Map<string, string>): void {
+export function seedRecords(
+  tx: Tx,
+  ids: SeedIds,
+  dir: string,
+  list: DemoRecord[],
+  calcTitles: Map<string, string>,
+): void {
   const titles = new Map<string, { title: string; url: string }>();
   for (const r of list) titles.set(r.id, { title: r.title, url: `/records/${r.id}` });
   for (const [id, title] of calcTitles) titles.set(id, { title, url: `/calculations/${id}` });
@@ -77,28 +85,80 @@ export function seedRecords(tx: Tx, ids: SeedIds, dir: string, list: DemoRecord[
     const lastComment = r.comments.reduce((t, c) => Math.max(t, c.at.getTime()), r.createdAt.getTime());
     tx.insert(records)
       .values({
-        id: r.id, kind: r.kind, title: r.title, subsystemSlug: r.subsystem, seasonId, status: r.status as RecordStatus, source: r.source ?? null,
-        authorId, body: body.doc, bodyHtml: body.html, bodyText: body.text, version: 1, createdAt: r.createdAt, updatedAt: new Date(lastComment),
-        updatedById: authorId, reviewedById: r.reviewedBy ? user(r.reviewedBy) : null, reviewedAt: r.reviewedOn ?? null, reviewedVersion: r.reviewedBy ? 1 : null,
+        id: r.id,
+        kind: r.kind,
+        title: r.title,
+        subsystemSlug: r.subsystem,
+        seasonId,
+        status: r.status as RecordStatus,
+        source: r.source ?? null,
+        authorId,
+        body: body.doc,
+        bodyHtml: body.html,
+        bodyText: body.text,
+        version: 1,
+        createdAt: r.createdAt,
+        updatedAt: new Date(lastComment),
+        updatedById: authorId,
+        reviewedById: r.reviewedBy ? user(r.reviewedBy) : null,
+        reviewedAt: r.reviewedOn ?? null,
+        reviewedVersion: r.reviewedBy ? 1 : null,
       })
       .run();
     tx.insert(recordRevisions)
-      .values({ id: newId(), recordId: r.id, version: 1, title: r.title, status: r.status, body: body.doc, bodyText: body.text, editorId: authorId, note: 'Created', createdAt: r.createdAt })
+      .values({
+        id: newId(),
+        recordId: r.id,
+        version: 1,
+        title: r.title,
+        status: r.status,
+        body: body.doc,
+        bodyText: body.text,
+        editorId: authorId,
+        note: 'Created',
+        createdAt: r.createdAt,
+      })
       .run();
     for (const c of r.comments) {
-      tx.insert(comments).values({ id: newId(), recordId: r.id, authorId: user(c.author), body: plainMentions(c.body, titles), createdAt: c.at }).run();
+      tx.insert(comments)
+        .values({
+          id: newId(),
+          recordId: r.id,
+          authorId: user(c.author),
+          body: plainMentions(c.body, titles),
+          createdAt: c.at,
+        })
+        .run();
     }
     for (const name of r.attachments) {
       const bytes = new Uint8Array(readFileSync(resolve(dir, 'attachments', name)));
       const type = sniffType(bytes, name);
       if (!type) throw new Error(`demo attachment ${name}: type not allowed`);
       const stored = storeBytes(bytes);
-      tx.insert(attachments).values({ id: newId(), recordId: r.id, fileName: name, contentType: type.contentType, size: stored.size, sha256: stored.sha256, uploadedById: authorId, createdAt: r.createdAt }).run();
+      tx.insert(attachments)
+        .values({
+          id: newId(),
+          recordId: r.id,
+          fileName: name,
+          contentType: type.contentType,
+          size: stored.size,
+          sha256: stored.sha256,
+          uploadedById: authorId,
+          createdAt: r.createdAt,
+        })
+        .run();
     }
   }
   for (const r of list) {
     for (const c of r.calculations) tx.insert(recordCalculations).values({ recordId: r.id, calculationId: c }).run();
-    for (const rel of r.related) tx.insert(recordLinks).values({ fromRecordId: r.id, toRecordId: rel, kind: 'related', createdAt: r.createdAt }).onConflictDoNothing().run();
-    if (r.supersedes) tx.insert(recordLinks).values({ fromRecordId: r.id, toRecordId: r.supersedes, kind: 'supersedes', createdAt: r.createdAt }).run();
+    for (const rel of r.related)
+      tx.insert(recordLinks)
+        .values({ fromRecordId: r.id, toRecordId: rel, kind: 'related', createdAt: r.createdAt })
+        .onConflictDoNothing()
+        .run();
+    if (r.supersedes)
+      tx.insert(recordLinks)
+        .values({ fromRecordId: r.id, toRecordId: r.supersedes, kind: 'supersedes', createdAt: r.createdAt })
+        .run();
   }
 }

@@ -40,7 +40,16 @@ function seedTeam(tx: Tx, team: DemoTeam, passwordHash: string): SeedIds {
     const id = newId();
     seasonIdByName.set(s.name, id);
     tx.insert(seasons)
-      .values({ id, name: s.name, startsOn: s.startsOn, endsOn: s.endsOn, phase: s.phase, isCurrent: s.current, boat: s.boat ?? null, createdAt: now })
+      .values({
+        id,
+        name: s.name,
+        startsOn: s.startsOn,
+        endsOn: s.endsOn,
+        phase: s.phase,
+        isCurrent: s.current,
+        boat: s.boat ?? null,
+        createdAt: now,
+      })
       .run();
   }
   team.subsystems.forEach((s, position) => {
@@ -50,13 +59,16 @@ function seedTeam(tx: Tx, team: DemoTeam, passwordHash: string): SeedIds {
   for (const p of team.people) {
     const id = newId();
     userIdByEmail.set(p.email, id);
-    tx.insert(users).values({ id, email: p.email, name: p.name, role: p.role, passwordHash, createdAt: now, digestOptIn: false }).run();
+    tx.insert(users)
+      .values({ id, email: p.email, name: p.name, role: p.role, passwordHash, createdAt: now, digestOptIn: false })
+      .run();
     for (const m of p.seasons) {
       const seasonId = seasonIdByName.get(m.season);
       if (!seasonId) throw new Error(`demo person ${p.email}: unknown season ${m.season}`);
       const membershipId = newId();
       tx.insert(seasonMemberships).values({ id: membershipId, seasonId, userId: id, role: m.role }).run();
-      for (const slug of m.subsystems) tx.insert(membershipSubsystems).values({ membershipId, subsystemSlug: slug }).run();
+      for (const slug of m.subsystems)
+        tx.insert(membershipSubsystems).values({ membershipId, subsystemSlug: slug }).run();
     }
   }
   return { seasonIdByName, userIdByEmail };

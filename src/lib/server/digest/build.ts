@@ -1,7 +1,16 @@
 import { and, desc, eq, gte, inArray, isNull, ne, notInArray, or } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/sqlite-core';
 import { db } from '../db/client';
-import { calculations, comments, onboardingItems, onboardingProgress, records, seasons, subsystems, users } from '../db/schema';
+import {
+  calculations,
+  comments,
+  onboardingItems,
+  onboardingProgress,
+  records,
+  seasons,
+  subsystems,
+  users,
+} from '../db/schema';
 import { currentSeason } from '../seasons';
 import { subsystemsOf } from '../memberships';
 import { listGuides } from '../guides';
@@ -17,7 +26,13 @@ export interface Digest {
 
 function newRecords(kind: 'decision' | 'lesson', since: Date, base: string) {
   return db()
-    .select({ id: records.id, title: records.title, status: records.status, subsystem: subsystems.name, season: seasons.name })
+    .select({
+      id: records.id,
+      title: records.title,
+      status: records.status,
+      subsystem: subsystems.name,
+      season: seasons.name,
+    })
     .from(records)
     .innerJoin(subsystems, eq(subsystems.slug, records.subsystemSlug))
     .innerJoin(seasons, eq(seasons.id, records.seasonId))
@@ -37,7 +52,14 @@ function commentsOnTheirRecords(userId: string, since: Date, base: string) {
     .from(comments)
     .innerJoin(records, eq(records.id, comments.recordId))
     .leftJoin(commenter, eq(commenter.id, comments.authorId))
-    .where(and(eq(records.authorId, userId), or(isNull(comments.authorId), ne(comments.authorId, userId)), gte(comments.createdAt, since), isNull(records.deletedAt)))
+    .where(
+      and(
+        eq(records.authorId, userId),
+        or(isNull(comments.authorId), ne(comments.authorId, userId)),
+        gte(comments.createdAt, since),
+        isNull(records.deletedAt),
+      ),
+    )
     .orderBy(desc(comments.createdAt))
     .limit(LIMIT)
     .all()
@@ -54,23 +76,61 @@ async function unfinishedOnboarding(userId: string, base: string) {
   if (!season) return [];
   const owned = subsystemsOf(userId, season.id).map((s) => s.slug);
   if (owned.length === 0) return [];
-  const done = db().select({ id: onboardingProgress.itemId }).from(onboardingProgress).where(eq(onboardingProgress.userId, userId)).all().map((d) => d.id);
+  const done = db()
+    .select({ id: onboardingProgress.itemId })
+    .from(onboardingProgress)
+    .where(eq(onboardingProgress.userId, userId))
+    .all()
+    .map((d) => d.id);
   const items = db()
-    .select({ id: onboardingItems.id, kind: onboardingItems.kind, ref: onboardingItems.ref, subsystem: subsystems.name, slug: subsystems.slug })
+    .select({
+      id: onboardingItems.id,
+      kind: onboardingItems.kind,
+      ref: onboardingItems.ref,
+      subsystem: subsystems.name,
+      slug: subsystems.slug,
+    })
     .from(onboardingItems)
     .innerJoin(subsystems, eq(subsystems.slug, onboardingItems.subsystemSlug))
-    .where(and(inArray(onboardingItems.subsystemSlug, owned), done.length ? notInArray(onboardingItems.id, done) : undefined))
+    .where(
+      and(
+        inArray(onboardingItems.subsystemSlug, owned),
+        done.length ? notInArray(onboardingItems.id, done) : undefined,
+      ),
+    )
     .orderBy(onboardingItems.subsystemSlug, onboardingItems.position)
     .limit(LIMIT)
     .all();
   if (items.length === 0) return [];
-  const guideTitles = items.some((i) => i.kind === 'guide') ? new Map((await listGuides()).map((g) => [g.slug, g.title])) : new Map<string, string>();
+  const guideTitles = items.some((i) => i.kind === 'guide')
+    ? new Map((await listGuides()).map((g) => [g.slug, g.title]))
+    : new Map<string, string>();
   const ids = (kind: string) => items.filter((i) => i.kind === kind).map((i) => i.ref);
-  const recordTitles = new Map(ids('record').length ? db().select({ id: records.id, title: records.title }).from(records).where(inArray(records.id, ids('record'))).all().map((r) => [r.id, r.title]) : []);
-  const calcTitles = new Map(ids('calculation').length ? db().select({ id: calculations.id, title: calculations.title }).from(calculations).where(inArray(calculations.id, ids('calculation'))).all().map((c) => [c.id, c.title]) : []);
+  const recordTitles = new Map(
+    ids('record').length
+      ? db()
+          .select({ id: records.id, title: records.title })
+          .from(records)
+          .where(inArray(records.id, ids('record')))
+          .all()
+          .map((r) => [r.id, r.title])
+      : [],
+  );
+  const calcTitles = new Map(
+    ids('calculation').length
+      ? db()
+          .select({ id: calculations.id, title: calculations.title })
+          .from(calculations)
+          .where(inArray(calculations.id, ids('calculation')))
+          .all()
+          .map((c) => [c.id, c.title])
+      : [],
+  );
   return items.map((i) => {
-    const title = (i.kind === 'guide' ? guideTitles : i.kind === 'record' ? recordTitles : calcTitles).get(i.ref) ?? i.ref;
-    const path = i.kind === 'guide' ? `/guides/${i.ref}` : i.kind === 'record' ? `/records/${i.ref}` : `/calculations/${i.ref}`;
+    const title =
+      (i.kind === 'guide' ? guideTitles : i.kind === 'record' ? recordTitles : calcTitles).get(i.ref) ?? i.ref;
+    const path =
+      i.kind === 'guide' ? `/guides/${i.ref}` : i.kind === 'record' ? `/records/${i.ref}` : `/calculations/${i.ref}`;
     return { title, url: `${base}${path}`, note: `${i.subsystem} onboarding, ${i.kind}` };
   });
 }
@@ -86,5 +146,13 @@ export async function buildDigest(userId: string, since: Date, base: string): Pr
     { heading: 'Questions and answers on your records', items: qa },
     { heading: 'Your unfinished onboarding steps', items: onboarding },
   ].filter((s) => s.items.length > 0);
-  return { sections, counts: { decisions: decisions.length, lessons: lessons.length, comments: qa.length, onboarding: onboarding.length } };
+  return {
+    sections,
+    counts: {
+      decisions: decisions.length,
+      lessons: lessons.length,
+      comments: qa.length,
+      onboarding: onboarding.length,
+    },
+  };
 }

@@ -8,7 +8,15 @@ import { asc, eq, isNull } from 'drizzle-orm';
 import { db } from '../db/client';
 import { attachments, records } from '../db/schema';
 import { pathForHash } from '../storage';
-import { attachmentFolder, attachmentNames, calculationEntries, calculationJson, indexMarkdown, recordEntries, recordMarkdown } from './content';
+import {
+  attachmentFolder,
+  attachmentNames,
+  calculationEntries,
+  calculationJson,
+  indexMarkdown,
+  recordEntries,
+  recordMarkdown,
+} from './content';
 import { guideFiles } from './guides';
 import { escapeHtml } from '../mail/layout';
 
@@ -22,7 +30,9 @@ export interface BundleCounts {
 // Already-compressed formats are stored as they are; deflating them again costs time and saves nothing.
 const STORED_TYPES = /^(image\/(jpeg|png|gif|webp)|application\/pdf)$/;
 
-export async function handoverBundle(now = new Date()): Promise<{ stream: ReadableStream<Uint8Array>; fileName: string; counts: BundleCounts }> {
+export async function handoverBundle(
+  now = new Date(),
+): Promise<{ stream: ReadableStream<Uint8Array>; fileName: string; counts: BundleCounts }> {
   const root = `wakebook-handover-${now.toISOString().slice(0, 10)}`;
   const recs = recordEntries();
   const calcs = calculationEntries();
@@ -45,7 +55,13 @@ export async function handoverBundle(now = new Date()): Promise<{ stream: Readab
       }
     });
 
-  const indexMd = indexMarkdown({ exportedAt: now, records: recs, calculations: calcs, guides, attachmentCount: files.length });
+  const indexMd = indexMarkdown({
+    exportedAt: now,
+    records: recs,
+    calculations: calcs,
+    guides,
+    attachmentCount: files.length,
+  });
   text('index.md', () => indexMd);
   text('index.html', () => indexHtml(indexMd));
   const recordPaths = new Map(recs.map((r) => [r.id, r.path]));
@@ -63,10 +79,18 @@ export async function handoverBundle(now = new Date()): Promise<{ stream: Readab
       const name = `${folder}/${names.get(a.id)}`;
       const path = pathForHash(a.sha256);
       if (!existsSync(path)) {
-        text(`${name}.missing.txt`, () => `The file "${a.fileName}" (${a.size} bytes, sha256 ${a.sha256}) was not found in the upload folder when this bundle was made.\n`);
+        text(
+          `${name}.missing.txt`,
+          () =>
+            `The file "${a.fileName}" (${a.size} bytes, sha256 ${a.sha256}) was not found in the upload folder when this bundle was made.\n`,
+        );
         continue;
       }
-      zip.addReadStreamLazy(`${root}/${name}`, { mtime: a.createdAt, compress: !STORED_TYPES.test(a.contentType), size: a.size }, (cb) => cb(null, createReadStream(path)));
+      zip.addReadStreamLazy(
+        `${root}/${name}`,
+        { mtime: a.createdAt, compress: !STORED_TYPES.test(a.contentType), size: a.size },
+        (cb) => cb(null, createReadStream(path)),
+      );
     }
   }
   // yazl reports a failed entry on the ZipFile, not the output stream; without this an error would end the process.

@@ -33,7 +33,16 @@ export interface CalculationEntry {
 /** Every live record, oldest season first, for the index and the per-record files. */
 export function recordEntries(): RecordEntry[] {
   return db()
-    .select({ id: records.id, title: records.title, kind: records.kind, status: records.status, season: seasons.name, seasonStarts: seasons.startsOn, subsystem: records.subsystemSlug, subsystemName: subsystems.name })
+    .select({
+      id: records.id,
+      title: records.title,
+      kind: records.kind,
+      status: records.status,
+      season: seasons.name,
+      seasonStarts: seasons.startsOn,
+      subsystem: records.subsystemSlug,
+      subsystemName: subsystems.name,
+    })
     .from(records)
     .innerJoin(seasons, eq(seasons.id, records.seasonId))
     .innerJoin(subsystems, eq(subsystems.slug, records.subsystemSlug))
@@ -45,7 +54,13 @@ export function recordEntries(): RecordEntry[] {
 
 export function calculationEntries(): CalculationEntry[] {
   return db()
-    .select({ id: calculations.id, title: calculations.title, kind: calculations.kind, season: seasons.name, subsystem: calculations.subsystemSlug })
+    .select({
+      id: calculations.id,
+      title: calculations.title,
+      kind: calculations.kind,
+      season: seasons.name,
+      subsystem: calculations.subsystemSlug,
+    })
     .from(calculations)
     .innerJoin(seasons, eq(seasons.id, calculations.seasonId))
     .where(isNull(calculations.deletedAt))
@@ -105,7 +120,15 @@ export function recordMarkdown(id: string, paths: Map<string, string>, calcPaths
     const target = m ? (m[1] === 'records' ? paths : calcPaths).get(m[2]) : undefined;
     return target ? `../${target}` : h;
   };
-  const lines: string[] = ['---', stringify(front).trimEnd(), '---', '', `# ${md(r.title)}`, '', docToMarkdown(r.body, { href }).trimEnd()];
+  const lines: string[] = [
+    '---',
+    stringify(front).trimEnd(),
+    '---',
+    '',
+    `# ${md(r.title)}`,
+    '',
+    docToMarkdown(r.body, { href }).trimEnd(),
+  ];
   const links: string[] = [];
   for (const x of r.supersedes) links.push(`- Supersedes: ${relLink(paths, x)} (${x.season})`);
   for (const x of r.supersededBy) links.push(`- Superseded by: ${relLink(paths, x)} (${x.season})`);
@@ -126,7 +149,10 @@ export function recordMarkdown(id: string, paths: Map<string, string>, calcPaths
   const qa = listComments(r.id);
   if (qa.length) {
     lines.push('', '## Questions and answers', '');
-    for (const c of qa) lines.push(`- **${md(c.author)}**, ${c.createdAt.slice(0, 10)}${c.parentId ? ' (answer)' : ''}: ${md(c.body.replace(/\n+/g, ' '))}`);
+    for (const c of qa)
+      lines.push(
+        `- **${md(c.author)}**, ${c.createdAt.slice(0, 10)}${c.parentId ? ' (answer)' : ''}: ${md(c.body.replace(/\n+/g, ' '))}`,
+      );
   }
   return lines.join('\n') + '\n';
 }
@@ -171,11 +197,18 @@ export function peopleMarkdown(): string {
       bySeason.set(s.season, [...(bySeason.get(s.season) ?? []), `- ${p.name}: ${s.role}${owns ? `, ${owns}` : ''}`]);
     }
   }
-  for (const [season, people] of [...bySeason].sort((a, b) => b[0].localeCompare(a[0]))) lines.push(`### ${season}`, '', ...people, '');
+  for (const [season, people] of [...bySeason].sort((a, b) => b[0].localeCompare(a[0])))
+    lines.push(`### ${season}`, '', ...people, '');
   return lines.join('\n');
 }
 
-export function indexMarkdown(p: { exportedAt: Date; records: RecordEntry[]; calculations: CalculationEntry[]; guides: GuideFile[]; attachmentCount: number }): string {
+export function indexMarkdown(p: {
+  exportedAt: Date;
+  records: RecordEntry[];
+  calculations: CalculationEntry[];
+  guides: GuideFile[];
+  attachmentCount: number;
+}): string {
   const lines: string[] = [
     '# Wakebook handover bundle',
     '',
@@ -187,7 +220,9 @@ export function indexMarkdown(p: { exportedAt: Date; records: RecordEntry[]; cal
     '## Records',
     '',
   ];
-  const seasonsSeen = [...new Map(p.records.map((r) => [r.season, r.seasonStarts])).entries()].sort((a, b) => b[1].localeCompare(a[1]));
+  const seasonsSeen = [...new Map(p.records.map((r) => [r.season, r.seasonStarts])).entries()].sort((a, b) =>
+    b[1].localeCompare(a[1]),
+  );
   for (const [season] of seasonsSeen) {
     lines.push(`### Season ${season}`, '');
     for (const r of p.records.filter((x) => x.season === season)) {

@@ -15,7 +15,12 @@ export async function guideFiles(): Promise<GuideFile[]> {
       const content = raw.startsWith('---')
         ? raw
         : `---\n${stringify({ ...e.data, reviewedOn: e.data.reviewedOn.toISOString().slice(0, 10) }).trimEnd()}\n---\n${raw}`;
-      return { path: `guides/${e.data.subsystem}/${e.id}.mdx`, title: e.data.title, subsystem: e.data.subsystem, content };
+      return {
+        path: `guides/${e.data.subsystem}/${e.id}.mdx`,
+        title: e.data.title,
+        subsystem: e.data.subsystem,
+        content,
+      };
     })
     .sort((a, b) => a.path.localeCompare(b.path));
 }

@@ -13,7 +13,10 @@ export function slugify(title: string, max = 60): string {
 
 /** A stored file name made safe inside a zip: no folders, no control characters, never empty. */
 export function safeFileName(name: string): string {
-  const base = (name.split(/[\\/]/).pop() ?? '').replace(/[\u0000-\u001f\u007f<>:"|?*]/g, '_').replace(/^\.+/, '_').trim();
+  const base = (name.split(/[\\/]/).pop() ?? '')
+    .replace(/[\u0000-\u001f\u007f<>:"|?*]/g, '_')
+    .replace(/^\.+/, '_')
+    .trim();
   return base.slice(0, 180) || 'file';
 }
 

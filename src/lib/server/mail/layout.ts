@@ -38,7 +38,12 @@ const LINE = '#d9d0bd';
 const LAKE = '#115e56';
 
 export function escapeHtml(s: string): string {
-  return s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;').replace(/'/g, '&#39;');
+  return s
+    .replace(/&/g, '&amp;')
+    .replace(/</g, '&lt;')
+    .replace(/>/g, '&gt;')
+    .replace(/"/g, '&quot;')
+    .replace(/'/g, '&#39;');
 }
 
 export function renderEmail(c: EmailContent): RenderedEmail {
@@ -62,7 +67,8 @@ function renderText(c: EmailContent): string {
 }
 
 function renderHtml(c: EmailContent): string {
-  const p = (text: string) => `<p style="margin:0 0 14px 0;font-size:16px;line-height:1.55;color:${INK}">${escapeHtml(text)}</p>`;
+  const p = (text: string) =>
+    `<p style="margin:0 0 14px 0;font-size:16px;line-height:1.55;color:${INK}">${escapeHtml(text)}</p>`;
   const button = c.action
     ? `<p style="margin:22px 0"><a href="${escapeHtml(c.action.url)}" style="display:inline-block;background:${LAKE};color:${SURFACE};text-decoration:none;font-weight:bold;padding:11px 20px;border-radius:7px;font-size:16px">${escapeHtml(c.action.label)}</a></p>
 <p style="margin:0 0 14px 0;font-size:13px;line-height:1.5;color:${MUTED}">If the button does not work, copy this address into your browser:<br><a href="${escapeHtml(c.action.url)}" style="color:${LAKE};word-break:break-all">${escapeHtml(c.action.url)}</a></p>`
@@ -72,7 +78,9 @@ function renderHtml(c: EmailContent): string {
       (s) => `<h2 style="margin:24px 0 8px 0;font-size:17px;color:${INK}">${escapeHtml(s.heading)}</h2>
 <ul style="margin:0 0 8px 0;padding-left:20px;color:${INK};font-size:15px;line-height:1.5">${s.items
         .map((i) => {
-          const title = i.url ? `<a href="${escapeHtml(i.url)}" style="color:${LAKE}">${escapeHtml(i.title)}</a>` : escapeHtml(i.title);
+          const title = i.url
+            ? `<a href="${escapeHtml(i.url)}" style="color:${LAKE}">${escapeHtml(i.title)}</a>`
+            : escapeHtml(i.title);
           return `<li style="margin:0 0 6px 0">${title}${i.note ? ` <span style="color:${MUTED}">· ${escapeHtml(i.note)}</span>` : ''}</li>`;
         })
         .join('')}</ul>`,

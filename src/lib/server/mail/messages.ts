@@ -22,7 +22,10 @@ export function invitationEmail(p: {
       `Open the link below and choose a password of at least 12 characters. The link works once, until ${fmtDate(p.expiresAt)} (UTC).`,
     ],
     action: { label: 'Accept the invitation', url: p.url },
-    footer: [`You received this because a team lead entered this address in Wakebook.`, 'If you did not expect it, ignore this message; nothing happens unless the link is opened and a password set.'],
+    footer: [
+      `You received this because a team lead entered this address in Wakebook.`,
+      'If you did not expect it, ignore this message; nothing happens unless the link is opened and a password set.',
+    ],
   });
 }
 
@@ -40,7 +43,12 @@ export function resetEmail(p: { name: string; url: string; expiresAt: Date }): R
   });
 }
 
-export function digestEmail(p: { name: string; since: Date; sections: EmailSection[]; accountUrl: string }): RenderedEmail {
+export function digestEmail(p: {
+  name: string;
+  since: Date;
+  sections: EmailSection[];
+  accountUrl: string;
+}): RenderedEmail {
   return renderEmail({
     subject: `Wakebook: your week since ${fmtDate(p.since)}`,
     preheader: p.sections.map((s) => `${s.items.length} ${s.heading.toLowerCase()}`).join(' · '),

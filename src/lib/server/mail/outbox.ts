@@ -21,19 +21,35 @@ export function listOutbox(limit = 100): OutboxMessage[] {
     .orderBy(desc(mailMessages.sentAt), desc(sql`rowid`)) // rowid: insertion order within one millisecond
     .limit(limit)
     .all()
-    .map((m) => ({ id: m.id, to: m.to, subject: m.subject, text: m.text, html: m.html, status: m.status, sentAt: m.sentAt.toISOString() }));
+    .map((m) => ({
+      id: m.id,
+      to: m.to,
+      subject: m.subject,
+      text: m.text,
+      html: m.html,
+      status: m.status,
+      sentAt: m.sentAt.toISOString(),
+    }));
 }
 
 /** The latest message to each address (for showing whether an invitation's e-mail went out). */
-export function latestMailTo(addresses: string[]): Map<string, { status: string; error: string | null; sentAt: string }> {
+export function latestMailTo(
+  addresses: string[],
+): Map<string, { status: string; error: string | null; sentAt: string }> {
   const out = new Map<string, { status: string; error: string | null; sentAt: string }>();
   if (addresses.length === 0) return out;
   const rows = db()
-    .select({ to: mailMessages.to, status: mailMessages.status, error: mailMessages.error, sentAt: mailMessages.sentAt })
+    .select({
+      to: mailMessages.to,
+      status: mailMessages.status,
+      error: mailMessages.error,
+      sentAt: mailMessages.sentAt,
+    })
     .from(mailMessages)
     .where(inArray(mailMessages.to, addresses))
     .orderBy(desc(mailMessages.sentAt), desc(sql`rowid`))
     .all();
-  for (const r of rows) if (!out.has(r.to)) out.set(r.to, { status: r.status, error: r.error, sentAt: r.sentAt.toISOString() });
+  for (const r of rows)
+    if (!out.has(r.to)) out.set(r.to, { status: r.status, error: r.error, sentAt: r.sentAt.toISOString() });
   return out;
 }

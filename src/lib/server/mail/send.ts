@@ -19,17 +19,34 @@ export async function sendMail(to: string, mail: RenderedEmail): Promise<MailRes
   const id = newId();
   const base = { id, to, subject: mail.subject, text: mail.text, html: mail.html };
   if (mailMode() === 'capture') {
-    db().insert(mailMessages).values({ ...base, transport: 'capture', status: 'captured', sentAt: new Date() }).run();
+    db()
+      .insert(mailMessages)
+      .values({ ...base, transport: 'capture', status: 'captured', sentAt: new Date() })
+      .run();
     return { id, status: 'captured', error: null };
   }
   try {
-    await smtpTransport().sendMail({ from: senderAddress(), to, subject: mail.subject, text: mail.text, html: mail.html });
-    db().insert(mailMessages).values({ ...base, transport: 'smtp', status: 'sent', sentAt: new Date() }).run();
+    await smtpTransport().sendMail({
+      from: senderAddress(),
+      to,
+      subject: mail.subject,
+      text: mail.text,
+      html: mail.html,
+    });
+    db()
+      .insert(mailMessages)
+      .values({ ...base, transport: 'smtp', status: 'sent', sentAt: new Date() })
+      .run();
     return { id, status: 'sent', error: null };
   } catch (e) {
     const error = e instanceof Error ? e.message.slice(0, 500) : String(e);
-    console.error(`[wakebook] mail "${mail.subject}" to ${to} was not sent over SMTP: ${error}. Kept in mail_messages as failed (id ${id}); it can be sent again.`);
-    db().insert(mailMessages).values({ ...base, transport: 'smtp', status: 'failed', error, sentAt: new Date() }).run();
+    console.error(
+      `[wakebook] mail "${mail.subject}" to ${to} was not sent over SMTP: ${error}. Kept in mail_messages as failed (id ${id}); it can be sent again.`,
+    );
+    db()
+      .insert(mailMessages)
+      .values({ ...base, transport: 'smtp', status: 'failed', error, sentAt: new Date() })
+      .run();
     return { id, status: 'failed', error };
   }
 }

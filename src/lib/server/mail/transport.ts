@@ -7,7 +7,12 @@ export function mailMode(): 'smtp' | 'capture' {
 }
 
 // Short limits so a dead or slow server fails a request in seconds, not the library's minutes.
-export const SMTP_TIMEOUTS = { connectionTimeout: 10_000, greetingTimeout: 10_000, socketTimeout: 20_000, dnsTimeout: 5_000 } as const;
+export const SMTP_TIMEOUTS = {
+  connectionTimeout: 10_000,
+  greetingTimeout: 10_000,
+  socketTimeout: 20_000,
+  dnsTimeout: 5_000,
+} as const;
 
 let cached: { url: string; transporter: ReturnType<typeof nodemailer.createTransport> } | undefined;
 

@@ -17,15 +17,23 @@ export function maxUploadBytes(): number {
 
 function cleanName(name: string): string {
   const base = name.split(/[\\/]/).pop() ?? 'file';
-  const cleaned = base.replace(/[\u0000-\u001f\u007f"<>|:*?]/g, '_').trim().slice(0, 180);
+  const cleaned = base
+    .replace(/[\u0000-\u001f\u007f"<>|:*?]/g, '_')
+    .trim()
+    .slice(0, 180);
   return cleaned || 'file';
 }
 
 /** Reads the multipart body within the size limit, checks the type from the bytes and stores the file. */
-export async function uploadAttachment(recordId: string, request: Request, actor: { id: string; email: string; role: Role }): Promise<AttachmentView> {
+export async function uploadAttachment(
+  recordId: string,
+  request: Request,
+  actor: { id: string; email: string; role: Role },
+): Promise<AttachmentView> {
   loadForWrite(recordId, actor, 'attachment:upload');
   const limit = maxUploadBytes();
-  const tooLarge = () => new HttpError(413, 'too_large', `Attachments may be at most ${settings().WAKEBOOK_MAX_UPLOAD_MB} MB.`);
+  const tooLarge = () =>
+    new HttpError(413, 'too_large', `Attachments may be at most ${settings().WAKEBOOK_MAX_UPLOAD_MB} MB.`);
   const declared = Number(request.headers.get('content-length') ?? '0');
   // Multipart framing adds a little; anything well over the limit is refused before reading it.
   if (declared > limit + 64 * 1024) throw tooLarge();
@@ -33,20 +41,45 @@ export async function uploadAttachment(recordId: string, request: Request, actor
   try {
     form = await request.formData();
   } catch {
-    throw new HttpError(400, 'invalid_input', 'Send the file as multipart/form-data in a field named “file”.', [{ path: 'file', message: 'No file was received.' }]);
+    throw new HttpError(400, 'invalid_input', 'Send the file as multipart/form-data in a field named “file”.', [
+      { path: 'file', message: 'No file was received.' },
+    ]);
   }
   const file = form.get('file');
-  if (!file || typeof file === 'string') throw new HttpError(400, 'invalid_input', 'Choose a file to upload.', [{ path: 'file', message: 'No file was received.' }]);
+  if (!file || typeof file === 'string')
+    throw new HttpError(400, 'invalid_input', 'Choose a file to upload.', [
+      { path: 'file', message: 'No file was received.' },
+    ]);
   if (file.size > limit) throw tooLarge();
-  if (file.size === 0) throw new HttpError(400, 'invalid_input', 'That file is empty.', [{ path: 'file', message: 'The file is empty.' }]);
+  if (file.size === 0)
+    throw new HttpError(400, 'invalid_input', 'That file is empty.', [{ path: 'file', message: 'The file is empty.' }]);
   const bytes = new Uint8Array(await file.arrayBuffer());
   const fileName = cleanName(file.name);
   const type = sniffType(bytes, fileName);
-  if (!type) throw new HttpError(415, 'unsupported_type', 'Attach photos (PNG, JPEG, GIF, WebP), PDFs, CSV logs or plain text.');
+  if (!type)
+    throw new HttpError(415, 'unsupported_type', 'Attach photos (PNG, JPEG, GIF, WebP), PDFs, CSV logs or plain text.');
   const { sha256, size } = storeBytes(bytes);
   const id = newId();
-  db().insert(attachments).values({ id, recordId, fileName, contentType: type.contentType, size, sha256, uploadedById: actor.id, createdAt: new Date() }).run();
-  recordAudit({ actor, action: 'record.attachment', targetType: 'record', targetId: recordId, detail: { attachment: id, fileName, size } });
+  db()
+    .insert(attachments)
+    .values({
+      id,
+      recordId,
+      fileName,
+      contentType: type.contentType,
+      size,
+      sha256,
+      uploadedById: actor.id,
+      createdAt: new Date(),
+    })
+    .run();
+  recordAudit({
+    actor,
+    action: 'record.attachment',
+    targetType: 'record',
+    targetId: recordId,
+    detail: { attachment: id, fileName, size },
+  });
   return attachmentView(db().select().from(attachments).where(eq(attachments.id, id)).get()!);
 }
 

@@ -23,7 +23,8 @@ export interface ProcessedBody {
 export function processBody(input: unknown): ProcessedBody {
   const fail = (message: string) => invalidInput([{ path: 'body', message }], 'The record text could not be read.');
   if (!input || typeof input !== 'object' || Array.isArray(input)) throw fail('The body must be an editor document.');
-  if (JSON.stringify(input).length > MAX_BODY_CHARS) throw fail(`The text is too long (over ${MAX_BODY_CHARS / 1000}k characters of document).`);
+  if (JSON.stringify(input).length > MAX_BODY_CHARS)
+    throw fail(`The text is too long (over ${MAX_BODY_CHARS / 1000}k characters of document).`);
   const cleaned = clean(input as JSONContent, 0);
   if (cleaned === 'too-deep') throw fail('The document is nested too deeply.');
   if (cleaned === 'bad-attrs') throw fail('Headings may be level 2 or 3.');
@@ -33,7 +34,9 @@ export function processBody(input: unknown): ProcessedBody {
     node = schema.nodeFromJSON(cleaned);
     node.check();
   } catch (e) {
-    throw fail(`The document does not fit the editor's structure: ${e instanceof Error ? e.message.slice(0, 200) : 'invalid'}.`);
+    throw fail(
+      `The document does not fit the editor's structure: ${e instanceof Error ? e.message.slice(0, 200) : 'invalid'}.`,
+    );
   }
   const doc = node.toJSON() as JSONContent;
   return { doc, html: generateHTML(doc, extensions), text: node.textBetween(0, node.content.size, '\n', ' ').trim() };

@@ -40,7 +40,8 @@ function listQuery(shape: { kind: boolean; subsystem: boolean; season: boolean; 
     if (shape.subsystem) where.push(eq(records.subsystemSlug, p('subsystem')));
     if (shape.season) where.push(eq(records.seasonId, p('season')));
     if (shape.status) where.push(eq(records.status, p('status')));
-    if (shape.cursor) where.push(or(lt(records.updatedAt, p('at')), and(eq(records.updatedAt, p('at')), lt(records.id, p('id')))));
+    if (shape.cursor)
+      where.push(or(lt(records.updatedAt, p('at')), and(eq(records.updatedAt, p('at')), lt(records.id, p('id')))));
     return d
       .select({
         id: records.id,
@@ -80,5 +81,8 @@ export function listRecords(q: RecordListQuery): { records: RecordListItem[]; ne
     limit: q.limit + 1,
   });
   const page = rows.slice(0, q.limit).map((r) => ({ ...r, updatedAt: r.updatedAt.toISOString() }));
-  return { records: page, nextCursor: rows.length > q.limit ? encodeCursor(page[page.length - 1].updatedAt, page[page.length - 1].id) : null };
+  return {
+    records: page,
+    nextCursor: rows.length > q.limit ? encodeCursor(page[page.length - 1].updatedAt, page[page.length - 1].id) : null,
+  };
 }

@@ -22,7 +22,17 @@ export interface TimelineSeason {
 /** A subsystem's records season by season (newest season first), with what each decision replaced and what replaced it. */
 export function subsystemTimeline(slug: string, kind: 'decision' | 'lesson'): TimelineSeason[] {
   const rows = db()
-    .select({ id: records.id, title: records.title, status: records.status, kind: records.kind, createdAt: records.createdAt, seasonId: seasons.id, season: seasons.name, startsOn: seasons.startsOn, current: seasons.isCurrent })
+    .select({
+      id: records.id,
+      title: records.title,
+      status: records.status,
+      kind: records.kind,
+      createdAt: records.createdAt,
+      seasonId: seasons.id,
+      season: seasons.name,
+      startsOn: seasons.startsOn,
+      current: seasons.isCurrent,
+    })
     .from(records)
     .innerJoin(seasons, eq(seasons.id, records.seasonId))
     .where(and(eq(records.subsystemSlug, slug), eq(records.kind, kind), isNull(records.deletedAt)))
@@ -30,12 +40,28 @@ export function subsystemTimeline(slug: string, kind: 'decision' | 'lesson'): Ti
     .all();
   const ids = rows.map((r) => r.id);
   const links = ids.length
-    ? db().select().from(recordLinks).where(and(eq(recordLinks.kind, 'supersedes'), inArray(recordLinks.fromRecordId, ids))).all()
-        .concat(db().select().from(recordLinks).where(and(eq(recordLinks.kind, 'supersedes'), inArray(recordLinks.toRecordId, ids))).all())
+    ? db()
+        .select()
+        .from(recordLinks)
+        .where(and(eq(recordLinks.kind, 'supersedes'), inArray(recordLinks.fromRecordId, ids)))
+        .all()
+        .concat(
+          db()
+            .select()
+            .from(recordLinks)
+            .where(and(eq(recordLinks.kind, 'supersedes'), inArray(recordLinks.toRecordId, ids)))
+            .all(),
+        )
     : [];
   const titleOf = new Map(rows.map((r) => [r.id, r.title]));
   const extra = [...new Set(links.flatMap((l) => [l.fromRecordId, l.toRecordId]).filter((x) => !titleOf.has(x)))];
-  if (extra.length) for (const r of db().select({ id: records.id, title: records.title }).from(records).where(inArray(records.id, extra)).all()) titleOf.set(r.id, r.title);
+  if (extra.length)
+    for (const r of db()
+      .select({ id: records.id, title: records.title })
+      .from(records)
+      .where(inArray(records.id, extra))
+      .all())
+      titleOf.set(r.id, r.title);
   const seasonsOut: TimelineSeason[] = [];
   for (const r of rows) {
     let s = seasonsOut.find((x) => x.seasonId === r.seasonId);

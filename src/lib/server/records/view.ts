@@ -1,7 +1,18 @@
 import { and, asc, count, desc, eq, inArray, isNull, or, sql } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/sqlite-core';
 import { db, prepared } from '../db/client';
-import { attachments, calculations, comments, recordCalculations, recordLinks, recordRevisions, records, seasons, subsystems, users } from '../db/schema';
+import {
+  attachments,
+  calculations,
+  comments,
+  recordCalculations,
+  recordLinks,
+  recordRevisions,
+  records,
+  seasons,
+  subsystems,
+  users,
+} from '../db/schema';
 
 const author = alias(users, 'author');
 const editor = alias(users, 'editor');
@@ -108,7 +119,13 @@ export function getRecordView(id: string): RecordView | null {
   const row = recordRowQuery().get({ id });
   if (!row) return null;
   const r = row.r;
-  const links = prepared('record.links', (d) => d.select().from(recordLinks).where(or(eq(recordLinks.fromRecordId, byId), eq(recordLinks.toRecordId, byId))).prepare()).all({ id });
+  const links = prepared('record.links', (d) =>
+    d
+      .select()
+      .from(recordLinks)
+      .where(or(eq(recordLinks.fromRecordId, byId), eq(recordLinks.toRecordId, byId)))
+      .prepare(),
+  ).all({ id });
   const linked = refs([...new Set(links.flatMap((l) => [l.fromRecordId, l.toRecordId]).filter((x) => x !== id))]);
   const pick = (pred: (l: (typeof links)[number]) => boolean, other: (l: (typeof links)[number]) => string) =>
     [...new Set(links.filter(pred).map(other))].map((x) => linked.get(x)).filter((x): x is RecordRef => !!x);
@@ -121,8 +138,13 @@ export function getRecordView(id: string): RecordView | null {
       .orderBy(asc(calculations.title))
       .prepare(),
   ).all({ id });
-  const files = prepared('record.files', (d) => d.select().from(attachments).where(eq(attachments.recordId, byId)).orderBy(asc(attachments.createdAt)).prepare()).all({ id });
-  const commentCount = prepared('record.commentCount', (d) => d.select({ n: count() }).from(comments).where(eq(comments.recordId, byId)).prepare()).get({ id })?.n ?? 0;
+  const files = prepared('record.files', (d) =>
+    d.select().from(attachments).where(eq(attachments.recordId, byId)).orderBy(asc(attachments.createdAt)).prepare(),
+  ).all({ id });
+  const commentCount =
+    prepared('record.commentCount', (d) =>
+      d.select({ n: count() }).from(comments).where(eq(comments.recordId, byId)).prepare(),
+    ).get({ id })?.n ?? 0;
   return {
     id: r.id,
     kind: r.kind,
@@ -143,12 +165,27 @@ export function getRecordView(id: string): RecordView | null {
     updatedAt: r.updatedAt.toISOString(),
     reviewed:
       r.reviewedAt && row.reviewerName
-        ? { by: row.reviewerName, at: r.reviewedAt.toISOString(), version: r.reviewedVersion ?? 0, note: r.reviewNote, current: r.reviewedVersion === r.version }
+        ? {
+            by: row.reviewerName,
+            at: r.reviewedAt.toISOString(),
+            version: r.reviewedVersion ?? 0,
+            note: r.reviewNote,
+            current: r.reviewedVersion === r.version,
+          }
         : null,
     calculations: calcs.map((c) => ({ ...c, url: `/calculations/${c.id}` })),
-    related: pick((l) => l.kind === 'related', (l) => (l.fromRecordId === id ? l.toRecordId : l.fromRecordId)),
-    supersedes: pick((l) => l.kind === 'supersedes' && l.fromRecordId === id, (l) => l.toRecordId),
-    supersededBy: pick((l) => l.kind === 'supersedes' && l.toRecordId === id, (l) => l.fromRecordId),
+    related: pick(
+      (l) => l.kind === 'related',
+      (l) => (l.fromRecordId === id ? l.toRecordId : l.fromRecordId),
+    ),
+    supersedes: pick(
+      (l) => l.kind === 'supersedes' && l.fromRecordId === id,
+      (l) => l.toRecordId,
+    ),
+    supersededBy: pick(
+      (l) => l.kind === 'supersedes' && l.toRecordId === id,
+      (l) => l.fromRecordId,
+    ),
     attachments: files.map(attachmentView),
     commentCount,
     url: `/records/${r.id}`,
@@ -157,7 +194,17 @@ export function getRecordView(id: string): RecordView | null {
 
 export function listRevisions(recordId: string) {
   return db()
-    .select({ id: recordRevisions.id, version: recordRevisions.version, title: recordRevisions.title, status: recordRevisions.status, note: recordRevisions.note, createdAt: recordRevisions.createdAt, editor: users.name, body: recordRevisions.body, bodyText: recordRevisions.bodyText })
+    .select({
+      id: recordRevisions.id,
+      version: recordRevisions.version,
+      title: recordRevisions.title,
+      status: recordRevisions.status,
+      note: recordRevisions.note,
+      createdAt: recordRevisions.createdAt,
+      editor: users.name,
+      body: recordRevisions.body,
+      bodyText: recordRevisions.bodyText,
+    })
     .from(recordRevisions)
     .leftJoin(users, eq(users.id, recordRevisions.editorId))
     .where(eq(recordRevisions.recordId, recordId))
@@ -169,7 +216,11 @@ export function listRevisions(recordId: string) {
 /** Whether a record exists (and is not deleted), without loading it. */
 export function recordExists(id: string): boolean {
   return !!prepared('record.exists', (d) =>
-    d.select({ id: records.id }).from(records).where(and(eq(records.id, byId), isNull(records.deletedAt))).prepare(),
+    d
+      .select({ id: records.id })
+      .from(records)
+      .where(and(eq(records.id, byId), isNull(records.deletedAt)))
+      .prepare(),
   ).get({ id });
 }
 
@@ -177,7 +228,15 @@ export function recordExists(id: string): boolean {
 export function getComment(commentId: string) {
   const c = prepared('record.comment', (d) =>
     d
-      .select({ id: comments.id, body: comments.body, parentId: comments.parentId, createdAt: comments.createdAt, authorId: comments.authorId, author: users.name, authorRole: users.role })
+      .select({
+        id: comments.id,
+        body: comments.body,
+        parentId: comments.parentId,
+        createdAt: comments.createdAt,
+        authorId: comments.authorId,
+        author: users.name,
+        authorRole: users.role,
+      })
       .from(comments)
       .leftJoin(users, eq(users.id, comments.authorId))
       .where(eq(comments.id, byId))
@@ -189,7 +248,15 @@ export function getComment(commentId: string) {
 export function listComments(recordId: string) {
   return prepared('record.comments', (d) =>
     d
-      .select({ id: comments.id, body: comments.body, parentId: comments.parentId, createdAt: comments.createdAt, authorId: comments.authorId, author: users.name, authorRole: users.role })
+      .select({
+        id: comments.id,
+        body: comments.body,
+        parentId: comments.parentId,
+        createdAt: comments.createdAt,
+        authorId: comments.authorId,
+        author: users.name,
+        authorRole: users.role,
+      })
       .from(comments)
       .leftJoin(users, eq(users.id, comments.authorId))
       .where(eq(comments.recordId, byId))
@@ -204,7 +271,14 @@ export function listComments(recordId: string) {
 export function recentComments(limit: number) {
   return prepared('record.recentComments', (d) =>
     d
-      .select({ id: comments.id, body: comments.body, createdAt: comments.createdAt, author: users.name, recordId: records.id, recordTitle: records.title })
+      .select({
+        id: comments.id,
+        body: comments.body,
+        createdAt: comments.createdAt,
+        author: users.name,
+        recordId: records.id,
+        recordTitle: records.title,
+      })
       .from(comments)
       .innerJoin(records, eq(records.id, comments.recordId))
       .leftJoin(users, eq(users.id, comments.authorId))

@@ -28,7 +28,14 @@ function checkIds(ids: string[], existing: Set<string>, path: string) {
 
 function existingRecordIds(ids: string[]): Set<string> {
   if (ids.length === 0) return new Set();
-  return new Set(db().select({ id: records.id }).from(records).where(and(inArray(records.id, ids), isNull(records.deletedAt))).all().map((r) => r.id));
+  return new Set(
+    db()
+      .select({ id: records.id })
+      .from(records)
+      .where(and(inArray(records.id, ids), isNull(records.deletedAt)))
+      .all()
+      .map((r) => r.id),
+  );
 }
 
 function replaceLinks(tx: Tx, recordId: string, calculationIds?: string[], relatedIds?: string[]) {
@@ -38,27 +45,54 @@ function replaceLinks(tx: Tx, recordId: string, calculationIds?: string[], relat
     for (const c of new Set(calculationIds)) tx.insert(recordCalculations).values({ recordId, calculationId: c }).run();
   }
   if (relatedIds) {
-    tx.delete(recordLinks).where(and(eq(recordLinks.fromRecordId, recordId), eq(recordLinks.kind, 'related'))).run();
+    tx.delete(recordLinks)
+      .where(and(eq(recordLinks.fromRecordId, recordId), eq(recordLinks.kind, 'related')))
+      .run();
     for (const r of new Set(relatedIds)) {
-      if (r !== recordId) tx.insert(recordLinks).values({ fromRecordId: recordId, toRecordId: r, kind: 'related', createdAt: now }).run();
+      if (r !== recordId)
+        tx.insert(recordLinks).values({ fromRecordId: recordId, toRecordId: r, kind: 'related', createdAt: now }).run();
     }
   }
 }
 
-function insertRevision(tx: Tx, r: { id: string; version: number; title: string; status: string; body: unknown; bodyText: string }, editorId: string, note: string | null, at: Date) {
-  tx.insert(recordRevisions).values({ id: newId(), recordId: r.id, version: r.version, title: r.title, status: r.status, body: r.body, bodyText: r.bodyText, editorId, note, createdAt: at }).run();
+function insertRevision(
+  tx: Tx,
+  r: { id: string; version: number; title: string; status: string; body: unknown; bodyText: string },
+  editorId: string,
+  note: string | null,
+  at: Date,
+) {
+  tx.insert(recordRevisions)
+    .values({
+      id: newId(),
+      recordId: r.id,
+      version: r.version,
+      title: r.title,
+      status: r.status,
+      body: r.body,
+      bodyText: r.bodyText,
+      editorId,
+      note,
+      createdAt: at,
+    })
+    .run();
 }
 
 export function createRecord(input: RecordCreateInput, actor: Actor): RecordView {
   if (!findSubsystem(input.subsystem)) throw invalidInput([{ path: 'subsystem', message: 'No such subsystem.' }]);
   const season = input.seasonId ? findSeason(input.seasonId) : currentSeason();
-  if (!season) throw invalidInput([{ path: 'seasonId', message: input.seasonId ? 'No such season.' : 'No season is current; choose one.' }]);
-  if (!can(actor, 'record:edit', { seasonIsCurrent: season.current })) throw forbidden('Members write records of the current season only.');
+  if (!season)
+    throw invalidInput([
+      { path: 'seasonId', message: input.seasonId ? 'No such season.' : 'No season is current; choose one.' },
+    ]);
+  if (!can(actor, 'record:edit', { seasonIsCurrent: season.current }))
+    throw forbidden('Members write records of the current season only.');
   const status = input.status ?? INITIAL_STATUS[input.kind];
   if (!isValidStatus(input.kind, status) || needsReplacement(status)) {
     throw invalidInput([{ path: 'status', message: `A new ${input.kind} cannot start as “${status}”.` }]);
   }
-  if (input.kind === 'decision' && input.source) throw invalidInput([{ path: 'source', message: 'Only lessons have a source.' }]);
+  if (input.kind === 'decision' && input.source)
+    throw invalidInput([{ path: 'source', message: 'Only lessons have a source.' }]);
   checkIds(input.calculationIds, existingCalculationIds(input.calculationIds), 'calculationIds');
   checkIds(input.relatedRecordIds, existingRecordIds(input.relatedRecordIds), 'relatedRecordIds');
   const body = processBody(input.body);
@@ -67,25 +101,57 @@ export function createRecord(input: RecordCreateInput, actor: Actor): RecordView
   db().transaction((tx) => {
     tx.insert(records)
       .values({
-        id, kind: input.kind, title: input.title, subsystemSlug: input.subsystem, seasonId: season.id, status: status as RecordStatus,
-        source: input.kind === 'lesson' ? (input.source ?? null) : null, authorId: actor.id, body: body.doc, bodyHtml: body.html, bodyText: body.text,
-        version: 1, createdAt: now, updatedAt: now, updatedById: actor.id,
+        id,
+        kind: input.kind,
+        title: input.title,
+        subsystemSlug: input.subsystem,
+        seasonId: season.id,
+        status: status as RecordStatus,
+        source: input.kind === 'lesson' ? (input.source ?? null) : null,
+        authorId: actor.id,
+        body: body.doc,
+        bodyHtml: body.html,
+        bodyText: body.text,
+        version: 1,
+        createdAt: now,
+        updatedAt: now,
+        updatedById: actor.id,
       })
       .run();
-    insertRevision(tx, { id, version: 1, title: input.title, status, body: body.doc, bodyText: body.text }, actor.id, 'Created', now);
+    insertRevision(
+      tx,
+      { id, version: 1, title: input.title, status, body: body.doc, bodyText: body.text },
+      actor.id,
+      'Created',
+      now,
+    );
     replaceLinks(tx, id, input.calculationIds, input.relatedRecordIds);
   });
-  recordAudit({ actor, action: 'record.create', targetType: 'record', targetId: id, detail: { kind: input.kind, title: input.title } });
+  recordAudit({
+    actor,
+    action: 'record.create',
+    targetType: 'record',
+    targetId: id,
+    detail: { kind: input.kind, title: input.title },
+  });
   onRecordChanged(id);
   return getRecordView(id)!;
 }
 
 /** Loads a record and checks the actor may change it (members: current season only). */
-export function loadForWrite(id: string, actor: Actor, action: 'record:edit' | 'record:status' | 'attachment:upload' = 'record:edit') {
+export function loadForWrite(
+  id: string,
+  actor: Actor,
+  action: 'record:edit' | 'record:status' | 'attachment:upload' = 'record:edit',
+) {
   const current = getRecordView(id);
   if (!current) throw notFound('That record');
   if (!can(actor, action, { seasonIsCurrent: current.seasonIsCurrent })) {
-    throw forbidden(actor.role === 'member' ? 'Records of past seasons are kept as they were; only leads may change them.' : 'Your role may not change records.');
+    throw forbidden(
+      actor.role === 'member'
+        ? 'Records of past seasons are kept as they were; only leads may change them.'
+        : 'Your role may not change records.',
+    );
   }
   return current;
 }
@@ -96,17 +162,22 @@ export function updateRecord(id: string, patch: RecordPatchInput, actor: Actor):
   if (patch.version !== current.version) {
     throw conflict(`Someone saved version ${current.version} while you edited version ${patch.version}.`, { current });
   }
-  if (patch.subsystem && !findSubsystem(patch.subsystem)) throw invalidInput([{ path: 'subsystem', message: 'No such subsystem.' }]);
+  if (patch.subsystem && !findSubsystem(patch.subsystem))
+    throw invalidInput([{ path: 'subsystem', message: 'No such subsystem.' }]);
   let seasonId = current.seasonId;
   if (patch.seasonId && patch.seasonId !== current.seasonId) {
     const season = findSeason(patch.seasonId);
     if (!season) throw invalidInput([{ path: 'seasonId', message: 'No such season.' }]);
-    if (!can(actor, 'record:edit', { seasonIsCurrent: season.current })) throw forbidden('Members may not move a record into a past season.');
+    if (!can(actor, 'record:edit', { seasonIsCurrent: season.current }))
+      throw forbidden('Members may not move a record into a past season.');
     seasonId = season.id;
   }
-  if (current.kind === 'decision' && patch.source) throw invalidInput([{ path: 'source', message: 'Only lessons have a source.' }]);
-  if (patch.calculationIds) checkIds(patch.calculationIds, existingCalculationIds(patch.calculationIds), 'calculationIds');
-  if (patch.relatedRecordIds) checkIds(patch.relatedRecordIds, existingRecordIds(patch.relatedRecordIds), 'relatedRecordIds');
+  if (current.kind === 'decision' && patch.source)
+    throw invalidInput([{ path: 'source', message: 'Only lessons have a source.' }]);
+  if (patch.calculationIds)
+    checkIds(patch.calculationIds, existingCalculationIds(patch.calculationIds), 'calculationIds');
+  if (patch.relatedRecordIds)
+    checkIds(patch.relatedRecordIds, existingRecordIds(patch.relatedRecordIds), 'relatedRecordIds');
   const body = patch.body ? processBody(patch.body) : null;
   const now = new Date();
   const next = current.version + 1;
@@ -128,8 +199,18 @@ export function updateRecord(id: string, patch: RecordPatchInput, actor: Actor):
       .where(and(eq(records.id, id), eq(records.version, patch.version)))
       .run();
     if (result.changes !== 1) throw conflict('Someone saved this record a moment ago.', {});
-    const stored = tx.select({ body: records.body, bodyText: records.bodyText, status: records.status }).from(records).where(eq(records.id, id)).get()!;
-    insertRevision(tx, { id, version: next, title, status: stored.status, body: stored.body, bodyText: stored.bodyText }, actor.id, patch.note ?? null, now);
+    const stored = tx
+      .select({ body: records.body, bodyText: records.bodyText, status: records.status })
+      .from(records)
+      .where(eq(records.id, id))
+      .get()!;
+    insertRevision(
+      tx,
+      { id, version: next, title, status: stored.status, body: stored.body, bodyText: stored.bodyText },
+      actor.id,
+      patch.note ?? null,
+      now,
+    );
     replaceLinks(tx, id, patch.calculationIds, patch.relatedRecordIds);
   });
   recordAudit({ actor, action: 'record.update', targetType: 'record', targetId: id, detail: { version: next } });
@@ -137,25 +218,37 @@ export function updateRecord(id: string, patch: RecordPatchInput, actor: Actor):
   return getRecordView(id)!;
 }
 
-export function changeStatus(id: string, input: { status: string; supersededBy?: string; version?: number }, actor: Actor): RecordView {
+export function changeStatus(
+  id: string,
+  input: { status: string; supersededBy?: string; version?: number },
+  actor: Actor,
+): RecordView {
   const current = loadForWrite(id, actor, 'record:status');
   if (input.version !== undefined && input.version !== current.version) {
-    throw conflict(`Someone saved version ${current.version} while you looked at version ${input.version}.`, { current });
+    throw conflict(`Someone saved version ${current.version} while you looked at version ${input.version}.`, {
+      current,
+    });
   }
   if (!isValidStatus(current.kind, input.status)) {
     throw invalidInput([{ path: 'status', message: `A ${current.kind} has no status “${input.status}”.` }]);
   }
   if (!canMove(current.kind, current.status, input.status)) {
-    throw conflict(`A ${current.kind} cannot move from “${current.status}” to “${input.status}”.`, { current: { status: current.status, version: current.version } });
+    throw conflict(`A ${current.kind} cannot move from “${current.status}” to “${input.status}”.`, {
+      current: { status: current.status, version: current.version },
+    });
   }
   let replacement: RecordView | null = null;
   if (needsReplacement(input.status)) {
-    if (!input.supersededBy) throw invalidInput([{ path: 'supersededBy', message: 'Name the record that supersedes this one.' }]);
-    if (input.supersededBy === id) throw invalidInput([{ path: 'supersededBy', message: 'A record cannot supersede itself.' }]);
+    if (!input.supersededBy)
+      throw invalidInput([{ path: 'supersededBy', message: 'Name the record that supersedes this one.' }]);
+    if (input.supersededBy === id)
+      throw invalidInput([{ path: 'supersededBy', message: 'A record cannot supersede itself.' }]);
     replacement = getRecordView(input.supersededBy);
     if (!replacement) throw invalidInput([{ path: 'supersededBy', message: 'No such record.' }]);
-    if (replacement.kind !== 'decision') throw invalidInput([{ path: 'supersededBy', message: 'Only a decision record can supersede a decision.' }]);
-    if (['superseded', 'withdrawn'].includes(replacement.status)) throw invalidInput([{ path: 'supersededBy', message: 'The replacement is itself superseded or withdrawn.' }]);
+    if (replacement.kind !== 'decision')
+      throw invalidInput([{ path: 'supersededBy', message: 'Only a decision record can supersede a decision.' }]);
+    if (['superseded', 'withdrawn'].includes(replacement.status))
+      throw invalidInput([{ path: 'supersededBy', message: 'The replacement is itself superseded or withdrawn.' }]);
   }
   const now = new Date();
   const next = current.version + 1;
@@ -166,13 +259,32 @@ export function changeStatus(id: string, input: { status: string; supersededBy?:
       .where(and(eq(records.id, id), eq(records.version, current.version)))
       .run();
     if (result.changes !== 1) throw conflict('Someone saved this record a moment ago.', {});
-    const stored = tx.select({ body: records.body, bodyText: records.bodyText, title: records.title }).from(records).where(eq(records.id, id)).get()!;
-    insertRevision(tx, { id, version: next, title: stored.title, status: input.status, body: stored.body, bodyText: stored.bodyText }, actor.id, `Status: ${current.status} → ${input.status}`, now);
+    const stored = tx
+      .select({ body: records.body, bodyText: records.bodyText, title: records.title })
+      .from(records)
+      .where(eq(records.id, id))
+      .get()!;
+    insertRevision(
+      tx,
+      { id, version: next, title: stored.title, status: input.status, body: stored.body, bodyText: stored.bodyText },
+      actor.id,
+      `Status: ${current.status} → ${input.status}`,
+      now,
+    );
     if (replacement) {
-      tx.insert(recordLinks).values({ fromRecordId: replacement.id, toRecordId: id, kind: 'supersedes', createdAt: now }).onConflictDoNothing().run();
+      tx.insert(recordLinks)
+        .values({ fromRecordId: replacement.id, toRecordId: id, kind: 'supersedes', createdAt: now })
+        .onConflictDoNothing()
+        .run();
     }
   });
-  recordAudit({ actor, action: 'record.status', targetType: 'record', targetId: id, detail: { from: current.status, to: input.status, supersededBy: replacement?.id } });
+  recordAudit({
+    actor,
+    action: 'record.status',
+    targetType: 'record',
+    targetId: id,
+    detail: { from: current.status, to: input.status, supersededBy: replacement?.id },
+  });
   onRecordChanged(id);
   if (replacement) onRecordChanged(replacement.id);
   return getRecordView(id)!;
@@ -181,19 +293,43 @@ export function changeStatus(id: string, input: { status: string; supersededBy?:
 export function reviewRecord(id: string, note: string | undefined, actor: Actor): RecordView {
   const current = getRecordView(id);
   if (!current) throw notFound('That record');
-  db().update(records).set({ reviewedById: actor.id, reviewedAt: new Date(), reviewedVersion: current.version, reviewNote: note ?? null }).where(eq(records.id, id)).run();
-  recordAudit({ actor, action: 'record.review', targetType: 'record', targetId: id, detail: { version: current.version } });
+  db()
+    .update(records)
+    .set({ reviewedById: actor.id, reviewedAt: new Date(), reviewedVersion: current.version, reviewNote: note ?? null })
+    .where(eq(records.id, id))
+    .run();
+  recordAudit({
+    actor,
+    action: 'record.review',
+    targetType: 'record',
+    targetId: id,
+    detail: { version: current.version },
+  });
   return getRecordView(id)!;
 }
 
 export function addComment(recordId: string, input: { body: string; parentId?: string }, actor: Actor) {
   if (!recordExists(recordId)) throw notFound('That record');
   if (input.parentId) {
-    const parent = db().select({ id: comments.id }).from(comments).where(and(eq(comments.id, input.parentId), eq(comments.recordId, recordId))).get();
+    const parent = db()
+      .select({ id: comments.id })
+      .from(comments)
+      .where(and(eq(comments.id, input.parentId), eq(comments.recordId, recordId)))
+      .get();
     if (!parent) throw invalidInput([{ path: 'parentId', message: 'That comment is not on this record.' }]);
   }
   const id = newId();
-  db().insert(comments).values({ id, recordId, authorId: actor.id, parentId: input.parentId ?? null, body: input.body, createdAt: new Date() }).run();
+  db()
+    .insert(comments)
+    .values({
+      id,
+      recordId,
+      authorId: actor.id,
+      parentId: input.parentId ?? null,
+      body: input.body,
+      createdAt: new Date(),
+    })
+    .run();
   recordAudit({ actor, action: 'record.comment', targetType: 'record', targetId: recordId, detail: { comment: id } });
   return id;
 }

@@ -141,7 +141,9 @@ export class SearchEngine {
     const row = (
       type === 'record'
         ? this.stmt("SELECT title || ' ' || body_text AS text FROM records WHERE id = ?").get(id)
-        : this.stmt("SELECT title || ' ' || notes || ' ' || kind || ' ' || inputs AS text FROM calculations WHERE id = ?").get(id)
+        : this.stmt(
+            "SELECT title || ' ' || notes || ' ' || kind || ' ' || inputs AS text FROM calculations WHERE id = ?",
+          ).get(id)
     ) as { text: string } | undefined;
     if (row) this.noteText(row.text);
   }
@@ -152,9 +154,14 @@ export class SearchEngine {
    * FTS5, which reads every listed word's document list. A "no" from the saved list is confirmed with FTS5 before
    * the word is corrected, so a word the list missed can never hide a document.
    */
-  private lookup(term: string, withCompletions: boolean): { exact: boolean; anyCompletion: boolean; completions: string[] | null } {
+  private lookup(
+    term: string,
+    withCompletions: boolean,
+  ): { exact: boolean; anyCompletion: boolean; completions: string[] | null } {
     const limit = withCompletions ? MAX_EXPANSION + 1 : 2;
-    const state = this.stmt('SELECT generation, terms_generation AS termsGeneration FROM search_state WHERE id = 1').get() as IndexState;
+    const state = this.stmt(
+      'SELECT generation, terms_generation AS termsGeneration FROM search_state WHERE id = 1',
+    ).get() as IndexState;
     const fromSaved = state.termsGeneration === state.generation;
     const read = (table: 'search_terms' | 'search_vocab') =>
       this.stmt(`SELECT term FROM ${table} WHERE term >= ? ORDER BY term LIMIT ?`).pluck().all(term, limit) as string[];
@@ -262,7 +269,9 @@ export class SearchEngine {
       this.stmt("DELETE FROM search_fts WHERE rowid IN (SELECT id FROM search_docs WHERE type = 'guide')").run();
       this.stmt("DELETE FROM search_titles WHERE rowid IN (SELECT id FROM search_docs WHERE type = 'guide')").run();
       this.stmt("DELETE FROM search_docs WHERE type = 'guide'").run();
-      const doc = this.stmt("INSERT INTO search_docs (type, ref_id, subsystem, season_id, status, kind) VALUES ('guide', ?, ?, NULL, NULL, ?)");
+      const doc = this.stmt(
+        "INSERT INTO search_docs (type, ref_id, subsystem, season_id, status, kind) VALUES ('guide', ?, ?, NULL, NULL, ?)",
+      );
       const words = this.stmt('INSERT INTO search_fts (rowid, title, body) VALUES (?, ?, ?)');
       const title = this.stmt('INSERT INTO search_titles (rowid, title) VALUES (?, ?)');
       for (const g of guides) {
@@ -270,7 +279,9 @@ export class SearchEngine {
         words.run(lastInsertRowid, g.title, g.text);
         title.run(lastInsertRowid, g.title);
       }
-      this.stmt("INSERT INTO search_meta (key, value) VALUES ('guides', ?) ON CONFLICT (key) DO UPDATE SET value = excluded.value").run(fingerprint);
+      this.stmt(
+        "INSERT INTO search_meta (key, value) VALUES ('guides', ?) ON CONFLICT (key) DO UPDATE SET value = excluded.value",
+      ).run(fingerprint);
       this.stmt('UPDATE search_state SET generation = generation + 1 WHERE id = 1').run();
     })();
     this.noteText(guides.map((g) => `${g.title} ${g.text}`).join('\n'));

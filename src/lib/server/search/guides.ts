@@ -39,7 +39,13 @@ interface GuideSource {
 
 export function toGuideDoc(g: GuideSource): GuideDoc {
   const tags = g.tags?.length ? `\n${g.tags.join(' ')}` : '';
-  return { slug: g.slug, title: g.title, subsystem: g.subsystem, audience: g.audience ?? 'everyone', text: `${g.summary}\n\n${mdxToText(g.body)}${tags}` };
+  return {
+    slug: g.slug,
+    title: g.title,
+    subsystem: g.subsystem,
+    audience: g.audience ?? 'everyone',
+    text: `${g.summary}\n\n${mdxToText(g.body)}${tags}`,
+  };
 }
 
 function readGuideFiles(dir: string): GuideSource[] {

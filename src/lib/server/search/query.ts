@@ -58,7 +58,6 @@ export function toMatchExpression(terms: ResolvedTerm[]): string | null {
     .join(' AND ');
 }
 
-
 /** What the snippet marks: the words actually searched for, after prefixes and corrections. */
 export function highlighterFor(terms: ResolvedTerm[]): Highlighter {
   const exact = new Set<string>();

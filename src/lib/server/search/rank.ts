@@ -49,18 +49,25 @@ function filterSql(f: Filters, alias: string): { join: string; where: string; ar
 
 export function rankPage(db: StatementSource, match: string, f: Filters, offset: number, limit: number) {
   const t = filterSql(f, 't');
-  const titleTotal = db.stmt(`SELECT count(*) FROM search_titles t${t.join} WHERE search_titles MATCH ?${t.where}`).pluck().get(match, ...t.args) as number;
+  const titleTotal = db
+    .stmt(`SELECT count(*) FROM search_titles t${t.join} WHERE search_titles MATCH ?${t.where}`)
+    .pluck()
+    .get(match, ...t.args) as number;
   const hits: RankedHit[] = [];
   if (offset < titleTotal) {
     const rows = db
-      .stmt(`SELECT t.rowid AS docId, -t.rank AS score FROM search_titles t${t.join} WHERE search_titles MATCH ?${t.where} ORDER BY t.rank LIMIT ? OFFSET ?`)
+      .stmt(
+        `SELECT t.rowid AS docId, -t.rank AS score FROM search_titles t${t.join} WHERE search_titles MATCH ?${t.where} ORDER BY t.rank LIMIT ? OFFSET ?`,
+      )
       .all(match, ...t.args, limit, offset) as { docId: number; score: number }[];
     for (const h of rows) hits.push({ ...h, titleMatch: true });
   }
 
   const b = filterSql(f, 'f');
   const cutoff = db
-    .stmt(`SELECT f.rowid FROM search_fts f${b.join} WHERE search_fts MATCH ?${b.where} ORDER BY f.rowid DESC LIMIT 1 OFFSET ${BROAD - 1}`)
+    .stmt(
+      `SELECT f.rowid FROM search_fts f${b.join} WHERE search_fts MATCH ?${b.where} ORDER BY f.rowid DESC LIMIT 1 OFFSET ${BROAD - 1}`,
+    )
     .pluck()
     .get(match, ...b.args) as number | undefined;
   const want = offset + limit - titleTotal;
@@ -79,6 +86,9 @@ export function rankPage(db: StatementSource, match: string, f: Filters, offset:
   }
 
   if (cutoff !== undefined) return { hits, total: Math.max(BROAD, titleTotal), totalCapped: true };
-  const total = db.stmt(`SELECT count(*) FROM search_fts f${b.join} WHERE search_fts MATCH ?${b.where}`).pluck().get(match, ...b.args) as number;
+  const total = db
+    .stmt(`SELECT count(*) FROM search_fts f${b.join} WHERE search_fts MATCH ?${b.where}`)
+    .pluck()
+    .get(match, ...b.args) as number;
   return { hits, total, totalCapped: false };
 }

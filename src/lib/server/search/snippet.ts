@@ -50,7 +50,8 @@ function render(text: string, list: Word[], from: number, to: number): string {
   let at = from;
   for (const w of list) {
     if (!w.hit || w.end <= from || w.start >= to) continue;
-    html += escapeHtml(clean(text.slice(at, w.start))) + '<mark>' + escapeHtml(clean(text.slice(w.start, w.end))) + '</mark>';
+    html +=
+      escapeHtml(clean(text.slice(at, w.start))) + '<mark>' + escapeHtml(clean(text.slice(w.start, w.end))) + '</mark>';
     at = w.end;
   }
   return html + escapeHtml(clean(text.slice(at, to)));

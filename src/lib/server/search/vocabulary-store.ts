@@ -41,7 +41,9 @@ export interface IndexState {
 }
 
 export function indexState(sqlite: Database.Database): IndexState {
-  return sqlite.prepare('SELECT generation, terms_generation AS termsGeneration FROM search_state WHERE id = 1').get() as IndexState;
+  return sqlite
+    .prepare('SELECT generation, terms_generation AS termsGeneration FROM search_state WHERE id = 1')
+    .get() as IndexState;
 }
 
 export async function readSaved(sqlite: Database.Database): Promise<Vocabulary> {
@@ -83,6 +85,10 @@ export function saveAdded(sqlite: Database.Database, terms: string[]): void {
   const insert = sqlite.prepare('INSERT INTO search_terms (term, docs) VALUES (?, 1) ON CONFLICT (term) DO NOTHING');
   sqlite.transaction(() => {
     for (const t of terms) insert.run(t);
-    sqlite.prepare('UPDATE search_state SET terms_generation = generation WHERE id = 1 AND terms_generation = generation - 1').run();
+    sqlite
+      .prepare(
+        'UPDATE search_state SET terms_generation = generation WHERE id = 1 AND terms_generation = generation - 1',
+      )
+      .run();
   })();
 }

@@ -10,9 +10,16 @@ export const POST: APIRoute = handle(async (context) => {
   const input = await readJson(context.request, requestResetSchema, 16 * 1024);
   const result = requestPasswordReset(input.email, clientIp(context), publicBase(context.url));
   if (!result.ok) {
-    throw new HttpError(429, 'rate_limited', 'Too many reset requests. Wait a few minutes and try again.', [], { retryAfter: result.retryAfter }, {
-      'retry-after': String(result.retryAfter),
-    });
+    throw new HttpError(
+      429,
+      'rate_limited',
+      'Too many reset requests. Wait a few minutes and try again.',
+      [],
+      { retryAfter: result.retryAfter },
+      {
+        'retry-after': String(result.retryAfter),
+      },
+    );
   }
   return json({ ok: true, message: 'If that address has an account, a reset link is on its way.' }, 202);
 });

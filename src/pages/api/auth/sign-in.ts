@@ -9,9 +9,16 @@ export const POST: APIRoute = handle(async (context) => {
   const result = await attemptSignIn(input, clientIp(context), context.cookies);
   if (result.ok) return json({ user: result.user });
   if (result.reason === 'throttled') {
-    throw new HttpError(429, 'rate_limited', 'Too many attempts. Wait a few minutes and try again.', [], { retryAfter: result.retryAfter }, {
-      'retry-after': String(result.retryAfter),
-    });
+    throw new HttpError(
+      429,
+      'rate_limited',
+      'Too many attempts. Wait a few minutes and try again.',
+      [],
+      { retryAfter: result.retryAfter },
+      {
+        'retry-after': String(result.retryAfter),
+      },
+    );
   }
   throw new HttpError(401, 'invalid_credentials', 'That e-mail and password do not match an account.');
 });

@@ -8,7 +8,15 @@ export const GET: APIRoute = handle(({ locals, url }) => {
   markCacheable(locals);
   requirePermission(locals, 'read');
   const q = parseQuery(url, calculationListQuerySchema);
-  return json(listCalculations({ subsystem: q.subsystem || undefined, season: q.season || undefined, kind: q.kind || undefined, limit: q.limit, cursor: q.cursor }));
+  return json(
+    listCalculations({
+      subsystem: q.subsystem || undefined,
+      season: q.season || undefined,
+      kind: q.kind || undefined,
+      limit: q.limit,
+      cursor: q.cursor,
+    }),
+  );
 });
 
 /** Saves a calculation; outputs are always computed here (any outputs the client sends are ignored). */

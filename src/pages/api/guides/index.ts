@@ -4,7 +4,13 @@ import { handle, json, parseQuery, requirePermission } from '~/lib/server/http';
 import { listGuides } from '~/lib/server/guides';
 import { markCacheable } from '~/lib/server/response-cache';
 
-const querySchema = z.object({ subsystem: z.string().max(64).regex(/^[a-z0-9-]*$/).optional() });
+const querySchema = z.object({
+  subsystem: z
+    .string()
+    .max(64)
+    .regex(/^[a-z0-9-]*$/)
+    .optional(),
+});
 
 export const GET: APIRoute = handle(async ({ locals, url }) => {
   markCacheable(locals);

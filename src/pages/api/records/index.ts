@@ -10,7 +10,14 @@ export const GET: APIRoute = handle(({ locals, url }) => {
   requirePermission(locals, 'read');
   const q = parseQuery(url, recordListQuerySchema);
   return json(
-    listRecords({ kind: q.kind || undefined, subsystem: q.subsystem || undefined, season: q.season || undefined, status: q.status || undefined, limit: q.limit, cursor: q.cursor }),
+    listRecords({
+      kind: q.kind || undefined,
+      subsystem: q.subsystem || undefined,
+      season: q.season || undefined,
+      status: q.status || undefined,
+      limit: q.limit,
+      cursor: q.cursor,
+    }),
   );
 });
 

@@ -12,7 +12,8 @@ export const PATCH: APIRoute = handle(async ({ locals, params, request }) => {
   const slug = params.slug ?? '';
   if (!findSubsystem(slug)) throw notFound('That subsystem');
   const patch = await readJson(request, subsystemPatchSchema, 8 * 1024);
-  if (Object.keys(patch).length === 0) throw invalidInput([{ path: '', message: 'Send a new name or summary.' }], 'Nothing to change.');
+  if (Object.keys(patch).length === 0)
+    throw invalidInput([{ path: '', message: 'Send a new name or summary.' }], 'Nothing to change.');
   db().update(subsystems).set(patch).where(eq(subsystems.slug, slug)).run();
   recordAudit({ actor: user, action: 'subsystem.update', targetType: 'subsystem', targetId: slug });
   return json({ subsystem: findSubsystem(slug) });

@@ -17,7 +17,10 @@ export const POST: APIRoute = handle(async ({ locals, request }) => {
   const user = requirePermission(locals, 'subsystem:manage');
   const input = await readJson(request, subsystemCreateSchema, 8 * 1024);
   if (findSubsystem(input.slug)) throw conflict(`A subsystem “${input.slug}” already exists.`);
-  db().insert(subsystems).values({ ...input, position: listSubsystems().length, createdAt: new Date() }).run();
+  db()
+    .insert(subsystems)
+    .values({ ...input, position: listSubsystems().length, createdAt: new Date() })
+    .run();
   recordAudit({ actor: user, action: 'subsystem.create', targetType: 'subsystem', targetId: input.slug });
   return json({ subsystem: findSubsystem(input.slug) }, 201);
 });

@@ -16,7 +16,10 @@ export const onboardingItems = sqliteTable(
     addedById: text().references(() => users.id, { onDelete: 'set null' }),
     createdAt: timestamp().notNull(),
   },
-  (t) => [uniqueIndex('onboarding_items_ref').on(t.subsystemSlug, t.kind, t.ref), index('onboarding_items_pos_idx').on(t.subsystemSlug, t.position)],
+  (t) => [
+    uniqueIndex('onboarding_items_ref').on(t.subsystemSlug, t.kind, t.ref),
+    index('onboarding_items_pos_idx').on(t.subsystemSlug, t.position),
+  ],
 );
 
 export const onboardingProgress = sqliteTable(

@@ -22,7 +22,10 @@ export const calculations = sqliteTable(
     updatedAt: timestamp().notNull(),
     deletedAt: timestamp(),
   },
-  (t) => [index('calculations_subsystem_season_idx').on(t.subsystemSlug, t.seasonId), index('calculations_kind_idx').on(t.kind)],
+  (t) => [
+    index('calculations_subsystem_season_idx').on(t.subsystemSlug, t.seasonId),
+    index('calculations_kind_idx').on(t.kind),
+  ],
 );
 
 /** Each compute of a saved calculation; recomputing adds a row and keeps the earlier ones. */

@@ -39,7 +39,11 @@ export const seasons = sqliteTable(
     createdAt: timestamp().notNull(),
   },
   // Exactly one season may be current: the database refuses a second one.
-  (t) => [uniqueIndex('seasons_one_current').on(t.isCurrent).where(sql`is_current = 1`)],
+  (t) => [
+    uniqueIndex('seasons_one_current')
+      .on(t.isCurrent)
+      .where(sql`is_current = 1`),
+  ],
 );
 
 export const subsystems = sqliteTable('subsystems', {
@@ -63,7 +67,10 @@ export const seasonMemberships = sqliteTable(
       .references(() => users.id, { onDelete: 'cascade' }),
     role: text().$type<Role>().notNull(),
   },
-  (t) => [uniqueIndex('season_memberships_unique').on(t.seasonId, t.userId), index('season_memberships_user_idx').on(t.userId)],
+  (t) => [
+    uniqueIndex('season_memberships_unique').on(t.seasonId, t.userId),
+    index('season_memberships_user_idx').on(t.userId),
+  ],
 );
 
 export const membershipSubsystems = sqliteTable(
@@ -76,7 +83,10 @@ export const membershipSubsystems = sqliteTable(
       .notNull()
       .references(() => subsystems.slug, { onDelete: 'cascade', onUpdate: 'cascade' }),
   },
-  (t) => [primaryKey({ columns: [t.membershipId, t.subsystemSlug] }), index('membership_subsystems_slug_idx').on(t.subsystemSlug)],
+  (t) => [
+    primaryKey({ columns: [t.membershipId, t.subsystemSlug] }),
+    index('membership_subsystems_slug_idx').on(t.subsystemSlug),
+  ],
 );
 
 export const invitations = sqliteTable(
@@ -86,7 +96,10 @@ export const invitations = sqliteTable(
     email: text().notNull(),
     name: text().notNull(),
     role: text().$type<Role>().notNull(),
-    subsystems: text({ mode: 'json' }).$type<string[]>().notNull().default(sql`'[]'`),
+    subsystems: text({ mode: 'json' })
+      .$type<string[]>()
+      .notNull()
+      .default(sql`'[]'`),
     tokenHash: text().notNull().unique(),
     invitedById: text().references(() => users.id, { onDelete: 'set null' }),
     createdAt: timestamp().notNull(),

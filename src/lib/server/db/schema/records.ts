@@ -73,7 +73,10 @@ export const recordLinks = sqliteTable(
     kind: text().$type<'related' | 'supersedes'>().notNull(),
     createdAt: timestamp().notNull(),
   },
-  (t) => [primaryKey({ columns: [t.fromRecordId, t.toRecordId, t.kind] }), index('record_links_to_idx').on(t.toRecordId)],
+  (t) => [
+    primaryKey({ columns: [t.fromRecordId, t.toRecordId, t.kind] }),
+    index('record_links_to_idx').on(t.toRecordId),
+  ],
 );
 
 export const recordCalculations = sqliteTable(
@@ -86,7 +89,10 @@ export const recordCalculations = sqliteTable(
       .notNull()
       .references(() => calculations.id, { onDelete: 'cascade' }),
   },
-  (t) => [primaryKey({ columns: [t.recordId, t.calculationId] }), index('record_calculations_calc_idx').on(t.calculationId)],
+  (t) => [
+    primaryKey({ columns: [t.recordId, t.calculationId] }),
+    index('record_calculations_calc_idx').on(t.calculationId),
+  ],
 );
 
 export const attachments = sqliteTable(
@@ -122,4 +128,3 @@ export const comments = sqliteTable(
   },
   (t) => [index('comments_record_idx').on(t.recordId, t.createdAt), index('comments_created_idx').on(t.createdAt)],
 );
-

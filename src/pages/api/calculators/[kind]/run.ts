@@ -11,5 +11,12 @@ export const POST: APIRoute = handle(async ({ locals, params, request }) => {
   if (!getCalculator(kind)) throw notFound('That calculator');
   const { inputs } = await readJson(request, runCalculatorInputSchema, 32 * 1024);
   const run = computeOrThrow(kind, inputs);
-  return json({ inputs: run.inputs, outputs: run.result.outputs, series: run.result.series ?? null, grid: run.result.grid ?? null, warnings: run.result.warnings, engineVersion: run.engineVersion });
+  return json({
+    inputs: run.inputs,
+    outputs: run.result.outputs,
+    series: run.result.series ?? null,
+    grid: run.result.grid ?? null,
+    warnings: run.result.warnings,
+    engineVersion: run.engineVersion,
+  });
 });
