@@ -4,7 +4,7 @@ import node from '@astrojs/node';
 import react from '@astrojs/react';
 import mdx from '@astrojs/mdx';
 import tailwindcss from '@tailwindcss/vite';
-import bootAtStart from './integrations/boot-at-start.mjs';
+import prepareBundle from './integrations/prepare-bundle.mjs';
 
 // Astro 5.18 trusts the Host header only for listed domains; without them Astro.url is wrong and the
 // built-in origin check refuses same-site form posts. Extra hosts come from ALLOWED_HOSTS at build time.
@@ -16,13 +16,19 @@ const extraHosts = (process.env.ALLOWED_HOSTS ?? '')
 export default defineConfig({
   output: 'server',
   adapter: node({ mode: 'middleware' }),
-  integrations: [react(), mdx(), bootAtStart()],
+  integrations: [react(), mdx(), prepareBundle()],
   security: {
     checkOrigin: true,
     allowedDomains: ['localhost', '127.0.0.1', ...extraHosts].map((hostname) => ({ hostname })),
   },
   server: { port: 4321, host: '127.0.0.1' },
   devToolbar: { enabled: false },
+  experimental: {
+    // Astro hashes the inline scripts it writes itself (island loaders, small bundled scripts) at build time and
+    // names them in the page's content-security-policy header; src/lib/server/security-headers.ts keeps exactly
+    // those script hashes and adds the rest of our policy. Nothing found in a rendered page is ever trusted.
+    csp: { algorithm: 'SHA-256' },
+  },
   vite: {
     plugins: [tailwindcss()],
   },

@@ -17,10 +17,10 @@ export async function startBuiltServer(
   env: Record<string, string> = {},
   reuseDir?: string,
 ): Promise<RunningServer & { dir: string }> {
-  if (!existsSync('dist/server/entry.mjs')) throw new Error('Build first: npm run build');
+  if (!existsSync('dist/prepare/prepare.mjs')) throw new Error('Build first: npm run build');
   const dir = reuseDir ?? mkdtempSync(join(tmpdir(), 'wakebook-bench-'));
   const t0 = performance.now();
-  const child = spawn(process.execPath, ['dist/server/entry.mjs'], {
+  const child = spawn(process.execPath, ['scripts/start.mjs'], {
     env: {
       ...process.env,
       HOST: '127.0.0.1',
@@ -28,6 +28,7 @@ export async function startBuiltServer(
       WAKEBOOK_DB: join(dir, 'bench.db'),
       WAKEBOOK_UPLOADS: join(dir, 'uploads'),
       WAKEBOOK_DEMO: '1',
+      NODE_ENV: 'production',
       ...env,
     },
     stdio: ['ignore', 'ignore', 'inherit'],

@@ -6,12 +6,12 @@ process.env.HOST ??= '127.0.0.1';
 process.env.PORT ??= '4321';
 process.env.ASTRO_TELEMETRY_DISABLED ??= '1';
 
-if (!existsSync('dist/server/entry.mjs')) {
+if (!existsSync('dist/prepare/prepare.mjs')) {
   console.error('No build found: run `npm run build` first (npm run demo does this for you).');
   process.exit(1);
 }
 
-await import('../dist/server/entry.mjs');
+await import('./start.mjs');
 
 const url = `http://localhost:${process.env.PORT}`;
 console.log(`

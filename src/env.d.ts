@@ -6,7 +6,7 @@ declare namespace App {
     session: import('lucia').Session | null;
     /** Set by markCacheable(): the answer depends only on the person, the URL and the stored data. */
     cacheable?: boolean;
-    /** The session the server's front door already validated for this request, if it did. */
-    sessionCheck?: import('./lib/server/auth/lucia').SessionCheck;
+    /** The peer address of the connection, passed in by the start file (scripts/start.mjs). */
+    socketAddress?: string;
   }
 }

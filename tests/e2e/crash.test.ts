@@ -11,6 +11,7 @@ const PORT = 4900 + Math.floor(Math.random() * 90);
 const dir = mkdtempSync(join(tmpdir(), 'wakebook-crash-'));
 const env = {
   ...process.env,
+  NODE_ENV: 'production',
   HOST: '127.0.0.1',
   PORT: String(PORT),
   WAKEBOOK_DB: join(dir, 'crash.db'),
@@ -20,7 +21,7 @@ const env = {
 const base = `http://127.0.0.1:${PORT}`;
 
 async function start(): Promise<ChildProcess> {
-  const child = spawn(process.execPath, ['dist/server/entry.mjs'], { env, stdio: 'ignore' });
+  const child = spawn(process.execPath, ['scripts/start.mjs'], { env, stdio: 'ignore' });
   for (let i = 0; i < 300; i++) {
     try {
       if ((await fetch(`${base}/api/health`)).ok) return child;

@@ -8,11 +8,11 @@ import type { TestProject } from 'vitest/node';
 let server: ChildProcess | undefined;
 
 export default async function setup(project: TestProject) {
-  if (!existsSync('dist/server/entry.mjs')) throw new Error('Build first: npm run build');
+  if (!existsSync('dist/prepare/prepare.mjs')) throw new Error('Build first: npm run build');
   const dir = mkdtempSync(join(tmpdir(), 'wakebook-e2e-'));
   const port = String(4500 + Math.floor(Math.random() * 400));
   // Spawned as node directly so teardown can stop it by its own PID.
-  server = spawn(process.execPath, ['dist/server/entry.mjs'], {
+  server = spawn(process.execPath, ['scripts/start.mjs'], {
     env: {
       ...process.env,
       HOST: '127.0.0.1',
@@ -20,6 +20,7 @@ export default async function setup(project: TestProject) {
       WAKEBOOK_DB: join(dir, 'e2e.db'),
       WAKEBOOK_UPLOADS: join(dir, 'uploads'),
       WAKEBOOK_DEMO: '1',
+      NODE_ENV: 'production',
       ASTRO_TELEMETRY_DISABLED: '1',
     },
     stdio: ['ignore', 'inherit', 'inherit'],

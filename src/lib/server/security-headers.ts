@@ -1,6 +1,4 @@
-import { createHash } from 'node:crypto';
-
-/** The policy without its script-src, which is built per HTML page from the hashes of its inline scripts. */
+/** Our policy without its script-src, which each page gets from the scripts Astro hashed at build time. */
 const POLICY = [
   "default-src 'self'",
   // Styles: the editor and the charts inject <style> elements and inline style attributes at run time.
@@ -18,24 +16,33 @@ const HEADERS: Record<string, string> = {
   'x-content-type-options': 'nosniff',
   'referrer-policy': 'same-origin',
   'x-frame-options': 'DENY',
-  // Responses that are not HTML pages run no script at all.
-  'content-security-policy': `${POLICY}; script-src 'self'`,
 };
 
+// A source that may stand in our script-src: the site itself or the hash of a script.
+const HASH_SOURCE = /^'sha(?:256|384|512)-[A-Za-z0-9+/]+={0,2}'$/;
+
 /**
- * Adds the headers every response carries, keeping any a route set itself. An HTML page is read whole so its
- * policy can allow exactly the inline scripts it contains (Astro's island loaders) by their SHA-256 hashes,
- * instead of allowing every inline script.
+ * The policy of an HTML page. Astro (experimental.csp in astro.config.mjs) names in the page's own policy header
+ * the hashes of the inline scripts it writes itself, computed at build time from its island loaders and bundled
+ * scripts; only those hashes are kept. Nothing found in the rendered HTML is trusted, so a script that user content
+ * managed to place in a page would not run. The dev server does not compute hashes, so there inline scripts are
+ * allowed.
  */
-export async function withSecurityHeaders(response: Response): Promise<Response> {
-  const html = response.body && (response.headers.get('content-type') ?? '').startsWith('text/html');
-  if (html) {
-    const text = await response.text();
-    const headers = new Headers(response.headers);
-    if (!headers.has('content-security-policy')) headers.set('content-security-policy', policyFor(text));
-    apply(headers);
-    return new Response(text, { status: response.status, statusText: response.statusText, headers });
-  }
+export function pagePolicy(astroPolicy: string | null): string {
+  if (import.meta.env.MODE === 'development') return `${POLICY}; script-src 'self' 'unsafe-inline'`;
+  const declared = astroPolicy ? /(?:^|;)\s*script-src\s+([^;]*)/.exec(astroPolicy)?.[1] : undefined;
+  const hashes = new Set((declared ?? '').split(/\s+/).filter((source) => HASH_SOURCE.test(source)));
+  return `${POLICY}; script-src 'self'${[...hashes].map((h) => ` ${h}`).join('')}`;
+}
+
+/** Responses that are not pages run no script at all. */
+const NON_PAGE_POLICY = `${POLICY}; script-src 'self'`;
+
+/**
+ * Adds the headers every response carries. A route that set its own policy on a non-page answer (attachments are
+ * served sandboxed) keeps it.
+ */
+export function withSecurityHeaders(response: Response): Response {
   let out = response;
   try {
     apply(out.headers);
@@ -52,33 +59,9 @@ export async function withSecurityHeaders(response: Response): Promise<Response>
 }
 
 function apply(headers: Headers): void {
+  const page = (headers.get('content-type') ?? '').startsWith('text/html');
+  const own = headers.get('content-security-policy');
+  if (page) headers.set('content-security-policy', pagePolicy(own));
+  else if (!own) headers.set('content-security-policy', NON_PAGE_POLICY);
   for (const [k, v] of Object.entries(HEADERS)) if (!headers.has(k)) headers.set(k, v);
-}
-
-// An inline script: a <script> element without a src attribute, up to its closing tag.
-const INLINE_SCRIPT = /<script\b((?:[^>"']|"[^"]*"|'[^']*')*)>([\s\S]*?)<\/script\s*>/gi;
-const hashes = new Map<string, string>();
-
-/** The page's content security policy: 'self' plus the hash of each inline script the page carries. */
-export function policyFor(html: string): string {
-  const allowed = new Set<string>();
-  for (const m of html.matchAll(INLINE_SCRIPT)) {
-    if (/\bsrc\s*=/i.test(m[1]) || m[2].length === 0) continue;
-    // Data blocks (JSON) are never run, so they need no hash.
-    const type = /\btype\s*=\s*["']?([^"'\s>]+)/i.exec(m[1])?.[1].toLowerCase();
-    if (type && type !== 'module' && type !== 'text/javascript' && type !== 'application/javascript') continue;
-    allowed.add(scriptHash(m[2]));
-  }
-  return `${POLICY}; script-src 'self'${[...allowed].map((h) => ` '${h}'`).join('')}`;
-}
-
-function scriptHash(source: string): string {
-  let h = hashes.get(source);
-  if (!h) {
-    h = `sha256-${createHash('sha256').update(source, 'utf8').digest('base64')}`;
-    // The same few loader scripts recur on every page; keep the memo small in case a page inlines data.
-    if (hashes.size > 256) hashes.clear();
-    hashes.set(source, h);
-  }
-  return h;
 }

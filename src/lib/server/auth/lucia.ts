@@ -70,32 +70,13 @@ export async function startSession(userId: string, cookies: AstroCookies): Promi
   return session;
 }
 
-/** A session cookie checked before Astro saw the request (src/lib/server/front-door.ts). */
-export interface SessionCheck {
-  id: string | null;
-  user: User | null;
-  session: Session | null;
-}
-
-/** Validates the session named by a raw Cookie header; no cookie gives an empty check. */
-export async function checkSessionCookie(cookieHeader: string | undefined): Promise<SessionCheck> {
-  const id = cookieHeader ? lucia().readSessionCookie(cookieHeader) : null;
-  if (!id) return { id: null, user: null, session: null };
-  const { session, user } = await lucia().validateSession(id);
-  return { id, user, session };
-}
-
 /**
- * Reads the session cookie (or takes the check the front door already made); refreshes the cookie when Lucia
- * extended the session and clears it when it is invalid.
+ * Reads the session cookie; refreshes the cookie when Lucia extended the session and clears it when it is invalid.
  */
-export async function readSession(
-  cookies: AstroCookies,
-  checked?: SessionCheck,
-): Promise<{ user: User | null; session: Session | null }> {
-  const id = checked ? checked.id : (cookies.get(SESSION_COOKIE)?.value ?? null);
+export async function readSession(cookies: AstroCookies): Promise<{ user: User | null; session: Session | null }> {
+  const id = cookies.get(SESSION_COOKIE)?.value ?? null;
   if (!id) return { user: null, session: null };
-  const { session, user } = checked ?? (await lucia().validateSession(id));
+  const { session, user } = await lucia().validateSession(id);
   if (session?.fresh) {
     const cookie = lucia().createSessionCookie(session.id);
     cookies.set(cookie.name, cookie.value, cookie.attributes);

@@ -5,7 +5,6 @@ import { mkdirSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import * as schema from './schema';
 import { settings } from '../config';
-import { instrumentConnection } from './changes';
 
 export type Db = BetterSQLite3Database<typeof schema> & { $client: Database.Database };
 
@@ -32,11 +31,7 @@ export function openDatabase(file: string): Db {
 
 /** The one database of this process, opened on first use from WAKEBOOK_DB. */
 export function db(): Db {
-  if (!instance) {
-    instance = openDatabase(settings().WAKEBOOK_DB);
-    // After the migrations, so every table is known: the response cache learns what each write touches.
-    instrumentConnection(instance.$client);
-  }
+  instance ??= openDatabase(settings().WAKEBOOK_DB);
   return instance;
 }
 
