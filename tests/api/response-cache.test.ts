@@ -105,6 +105,8 @@ describe('response cache', () => {
     expect(again.status).toBe(304);
     expect(again.text).toBe('');
     expect(again.headers.get('etag')).toBe(etag);
+    // A browser keeps the 304's headers for the page it already holds: the policy must be the page's own.
+    expect(again.headers.get('content-security-policy')).toBe(first.headers.get('content-security-policy'));
     // With the cache emptied (or off) the render runs, and the same bytes still give 304.
     clearResponseCache();
     expect((await readRecord('member', { 'if-none-match': `W/${etag}` })).status).toBe(304);

@@ -25,8 +25,9 @@ function answerWith(kept: CachedAnswer, ifNoneMatch: string | null): Response {
   headers.set('etag', kept.etag);
   headers.set('cache-control', 'private, no-cache');
   if (matchesTag(ifNoneMatch, kept.etag)) {
+    // The browser replaces its stored headers with these (RFC 9111 §4.3.4), so the 304 carries the same type and
+    // hence the same page policy as the 200 it revalidates; only the length goes.
     headers.delete('content-length');
-    headers.delete('content-type');
     return new Response(null, { status: 304, headers });
   }
   return new Response(kept.body, { status: kept.status, headers });
