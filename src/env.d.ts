@@ -8,5 +8,7 @@ declare namespace App {
     cacheable?: boolean;
     /** The session the server's front door already validated for this request, if it did. */
     sessionCheck?: import('./lib/server/auth/lucia').SessionCheck;
+    /** The TCP peer's address, passed in by the start file; absent on the dev server and in tests. */
+    socketAddress?: string;
   }
 }
