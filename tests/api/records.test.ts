@@ -196,6 +196,21 @@ describe('creating', () => {
     expect(ghost.body.error.issues[0].path).toBe('calculationIds');
   });
 
+  it.each([
+    ['the editor document', (deep: string) => `{"type":"doc","content":[${deep}]}`],
+    ['a node attribute', (deep: string) => `{"type":"doc","content":[{"type":"paragraph"}],"attrs":${deep}}`],
+  ])('400 invalid_input, not 500, for %s nested 3,000 levels deep', async (_where, bodyJson) => {
+    const deep = '{"type":"blockquote","content":['.repeat(3000) + ']}'.repeat(3000);
+    const rawBody = `{"kind":"decision","title":"Deeply nested","subsystem":"battery","body":${bodyJson(deep)}}`;
+    const res = await call(recordsRoute, 'POST', {
+      session: s.member,
+      rawBody,
+      headers: { 'content-type': 'application/json' },
+    });
+    expect(res.status).toBe(400);
+    expect(res.body.error.code).toBe('invalid_input');
+  });
+
   it('alumni and advisors may not write records (403); members may not write into a past season; leads may', async () => {
     for (const role of ['alumni', 'advisor'] as const) {
       expect((await call(recordsRoute, 'POST', { session: s[role], body: newDecision() })).status).toBe(403);

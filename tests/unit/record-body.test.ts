@@ -84,6 +84,12 @@ describe('processBody: validate, sanitise, render', () => {
     );
   });
 
+  it('refuses a document nested thousands of levels deep with a 400, not a stack overflow', () => {
+    let deep: Record<string, unknown> = { type: 'paragraph' };
+    for (let i = 0; i < 20_000; i++) deep = { type: 'blockquote', content: [deep] };
+    expect(() => processBody({ type: 'doc', content: [deep] })).toThrow(HttpError);
+  });
+
   it('accepts the new-record templates of both kinds', () => {
     expect(processBody(templateFor('decision')).html).toContain('<h2>Options considered</h2>');
     expect(processBody(templateFor('lesson')).html).toContain('<h2>Recommendation for the next cohort</h2>');
