@@ -6,7 +6,7 @@ declare namespace App {
     session: import('lucia').Session | null;
     /** Set by markCacheable(): the answer depends only on the person, the URL and the stored data. */
     cacheable?: boolean;
-    /** The peer address of the connection, passed in by the start file (scripts/start.mjs). */
+    /** The TCP peer's address, passed in by the start file (scripts/start.mjs); absent on the dev server and in tests. */
     socketAddress?: string;
   }
 }

@@ -56,8 +56,8 @@ const POLICY: Record<Role, Partial<Record<Action, Rule>>> = {
     'record:status': currentSeasonOnly,
     'record:comment': true,
     'attachment:upload': currentSeasonOnly,
-    'calculation:create': true,
-    'calculation:recompute': true,
+    'calculation:create': currentSeasonOnly,
+    'calculation:recompute': currentSeasonOnly,
     'onboarding:follow': true,
   },
   alumni: {

@@ -226,3 +226,40 @@ describe('saved calculations', () => {
     expect((await call(compare, 'GET', { query: { a: 'x', b: 'y' } })).status).toBe(401);
   });
 });
+
+describe('past seasons (API.md: members create and recompute calculations of the current season only)', () => {
+  let pastSeasonId = '';
+  let pastCalcId = '';
+  beforeAll(async () => {
+    const seasonsRoute = await import('../../src/pages/api/seasons/index');
+    const seasons = (await call(seasonsRoute, 'GET', { session: s.lead })).body.seasons;
+    pastSeasonId = seasons.find((x: { current: boolean }) => !x.current).id;
+    const past = await call(calculationsRoute, 'GET', { session: s.lead, query: { season: pastSeasonId } });
+    pastCalcId = past.body.calculations[0].id;
+  });
+
+  const filing = (seasonId: string) => ({
+    kind: 'propeller',
+    title: 'Back-dated propeller',
+    subsystem: 'propulsion',
+    seasonId,
+    inputs: propeller,
+  });
+
+  it('a member may not file a calculation into a past season (403 forbidden); a lead may', async () => {
+    const member = await call(calculationsRoute, 'POST', { session: s.member, body: filing(pastSeasonId) });
+    expect(member.status).toBe(403);
+    expect(member.body.error.code).toBe('forbidden');
+    const lead = await call(calculationsRoute, 'POST', { session: s.lead, body: filing(pastSeasonId) });
+    expect(lead.status).toBe(201);
+    expect(lead.body.calculation.seasonId).toBe(pastSeasonId);
+  });
+
+  it("a member may not recompute a past season's calculation (403 forbidden); a lead may", async () => {
+    const member = await call(recompute, 'POST', { session: s.member, params: { id: pastCalcId } });
+    expect(member.status).toBe(403);
+    expect(member.body.error.code).toBe('forbidden');
+    const lead = await call(recompute, 'POST', { session: s.lead, params: { id: pastCalcId } });
+    expect(lead.status).toBe(200);
+  });
+});

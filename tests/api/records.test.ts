@@ -111,6 +111,63 @@ describe('creating', () => {
     expect(r.bodyHtml).toContain('href="https://ittc.info/"');
   });
 
+  it('keeps only href on links: stored JSON has no class, target, rel or style; the server sets rel itself', async () => {
+    const overlay = { class: 'fixed inset-0 z-50', target: '_blank', rel: 'opener', style: 'opacity:0', title: 't' };
+    const body = {
+      type: 'doc',
+      content: [
+        {
+          type: 'paragraph',
+          content: [
+            {
+              type: 'text',
+              text: 'click',
+              marks: [{ type: 'link', attrs: { href: 'https://ittc.info/', ...overlay } }],
+            },
+          ],
+        },
+      ],
+    };
+    const r = await create('member', { body });
+    const stored = await call(recordRoute, 'GET', { session: s.member, params: { id: r.id } });
+    const link = stored.body.record.body.content[0].content[0].marks[0];
+    expect(link).toEqual({ type: 'link', attrs: { href: 'https://ittc.info/' } });
+    expect(r.bodyHtml).toBe('<p><a rel="noopener noreferrer nofollow" href="https://ittc.info/">click</a></p>');
+  });
+
+  it.each([
+    [
+      'a code-block language that is not a short token',
+      { type: 'codeBlock', attrs: { language: 'x" onmouseover=alert(1)' } },
+    ],
+    [
+      'a negative list start',
+      { type: 'orderedList', attrs: { start: -5 }, content: [{ type: 'listItem', content: [{ type: 'paragraph' }] }] },
+    ],
+    [
+      'a list start given as text',
+      {
+        type: 'orderedList',
+        attrs: { start: '1e9' },
+        content: [{ type: 'listItem', content: [{ type: 'paragraph' }] }],
+      },
+    ],
+    [
+      'a task state that is not a boolean',
+      {
+        type: 'taskList',
+        content: [{ type: 'taskItem', attrs: { checked: 'yes' }, content: [{ type: 'paragraph' }] }],
+      },
+    ],
+  ])('refuses %s with 400 on body', async (_name, node) => {
+    const res = await call(recordsRoute, 'POST', {
+      session: s.member,
+      body: newDecision({ body: { type: 'doc', content: [node] } }),
+    });
+    expect(res.status).toBe(400);
+    expect(res.body.error.issues[0].path).toBe('body');
+  });
+
   it('400 for a body that is not an editor document, a missing title, or links to nothing', async () => {
     const bad = await call(recordsRoute, 'POST', {
       session: s.member,
@@ -137,6 +194,21 @@ describe('creating', () => {
     });
     expect(ghost.status).toBe(400);
     expect(ghost.body.error.issues[0].path).toBe('calculationIds');
+  });
+
+  it.each([
+    ['the editor document', (deep: string) => `{"type":"doc","content":[${deep}]}`],
+    ['a node attribute', (deep: string) => `{"type":"doc","content":[{"type":"paragraph"}],"attrs":${deep}}`],
+  ])('400 invalid_input, not 500, for %s nested 3,000 levels deep', async (_where, bodyJson) => {
+    const deep = '{"type":"blockquote","content":['.repeat(3000) + ']}'.repeat(3000);
+    const rawBody = `{"kind":"decision","title":"Deeply nested","subsystem":"battery","body":${bodyJson(deep)}}`;
+    const res = await call(recordsRoute, 'POST', {
+      session: s.member,
+      rawBody,
+      headers: { 'content-type': 'application/json' },
+    });
+    expect(res.status).toBe(400);
+    expect(res.body.error.code).toBe('invalid_input');
   });
 
   it('alumni and advisors may not write records (403); members may not write into a past season; leads may', async () => {

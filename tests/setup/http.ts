@@ -15,6 +15,8 @@ export interface CallOptions {
   session?: string;
   path?: string;
   ip?: string;
+  /** The socket peer the start file passes in as locals.socketAddress (absent unless given). */
+  socketAddress?: string;
 }
 
 export interface CallResult {
@@ -63,7 +65,7 @@ export async function call(
     url,
     params: options.params ?? {},
     cookies,
-    locals: {} as App.Locals,
+    locals: (options.socketAddress ? { socketAddress: options.socketAddress } : {}) as App.Locals,
     clientAddress: options.ip ?? '127.0.0.1',
     redirect: (location: string, status = 302) => new Response(null, { status, headers: { location } }),
   } as unknown as APIContext;

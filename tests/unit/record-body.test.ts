@@ -74,6 +74,22 @@ describe('processBody: validate, sanitise, render', () => {
     }
   });
 
+  it('repairs a stored revision with a bad attribute value instead of refusing it (history view)', () => {
+    const stored = { type: 'doc', content: [{ type: 'codeBlock', attrs: { language: 'x" onmouseover=alert(1)' } }] };
+    expect(() => processBody(stored)).toThrow(HttpError);
+    const out = processBody(stored, { repair: true });
+    expect(out.html).toBe('<pre><code></code></pre>');
+    expect(processBody({ ...stored, content: [{ type: 'codeBlock', attrs: { language: 'c++' } }] }).html).toContain(
+      'class="language-c++"',
+    );
+  });
+
+  it('refuses a document nested thousands of levels deep with a 400, not a stack overflow', () => {
+    let deep: Record<string, unknown> = { type: 'paragraph' };
+    for (let i = 0; i < 20_000; i++) deep = { type: 'blockquote', content: [deep] };
+    expect(() => processBody({ type: 'doc', content: [deep] })).toThrow(HttpError);
+  });
+
   it('accepts the new-record templates of both kinds', () => {
     expect(processBody(templateFor('decision')).html).toContain('<h2>Options considered</h2>');
     expect(processBody(templateFor('lesson')).html).toContain('<h2>Recommendation for the next cohort</h2>');

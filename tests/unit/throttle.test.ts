@@ -25,3 +25,17 @@ describe('Throttle', () => {
     expect(t.retryAfter('a')).toBe(0);
   });
 });
+
+describe('Throttle.reserve', () => {
+  it('counts the attempt at once, and the returned function takes only that one back', () => {
+    const t = new Throttle(2, 60_000, () => 7);
+    const release = t.reserve('a');
+    t.reserve('a');
+    expect(t.retryAfter('a')).toBeGreaterThan(0);
+    release();
+    expect(t.retryAfter('a')).toBe(0);
+    release(); // a second call has nothing left to take back
+    t.reserve('a');
+    expect(t.retryAfter('a')).toBeGreaterThan(0);
+  });
+});

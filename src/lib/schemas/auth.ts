@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { typedLine } from './text';
 import { newPasswordSchema } from './password';
 
 export const signInInputSchema = z.object({
@@ -17,7 +18,7 @@ export const linkTokenSchema = z
 export const acceptInvitationSchema = z.object({
   token: linkTokenSchema,
   password: newPasswordSchema,
-  name: z.string().trim().min(2, 'Enter your name (at least 2 characters).').max(120).optional(),
+  name: typedLine().trim().min(2, 'Enter your name (at least 2 characters).').max(120).optional(),
 });
 export type AcceptInvitationInput = z.infer<typeof acceptInvitationSchema>;
 

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { typedLine, typedText } from './text';
 
 const slug = z
   .string()
@@ -22,10 +23,10 @@ export const runCalculatorInputSchema = z.object({ inputs: rawInputsSchema.defau
 
 export const calculationInputSchema = z.object({
   kind: z.string().trim().min(1).max(64),
-  title: z.string().trim().min(3, 'Give the calculation a title of at least 3 characters.').max(160),
+  title: typedLine().trim().min(3, 'Give the calculation a title of at least 3 characters.').max(160),
   subsystem: slug,
   seasonId: id.optional(),
-  notes: z.string().max(20_000).default(''),
+  notes: typedText().max(20_000).default(''),
   inputs: rawInputsSchema,
 });
 export type CalculationInput = z.infer<typeof calculationInputSchema>;

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { typedLine } from './text';
 
 export const ROLE_VALUES = ['lead', 'advisor', 'member', 'alumni'] as const;
 const subsystemSlugs = z
@@ -14,7 +15,7 @@ export const invitationInputSchema = z.object({
     .max(254)
     .pipe(z.email('Enter a valid e-mail address.'))
     .transform((e) => e.toLowerCase()),
-  name: z.string().trim().min(2, 'Enter their name (at least 2 characters).').max(120),
+  name: typedLine().trim().min(2, 'Enter their name (at least 2 characters).').max(120),
   role: z.enum(ROLE_VALUES, { error: 'Choose lead, advisor, member or alumni.' }),
   subsystems: subsystemSlugs.optional().default([]),
 });

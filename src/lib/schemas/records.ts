@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { typedLine, typedText } from './text';
 
 const id = z
   .string()
@@ -31,7 +32,7 @@ const body = z.record(z.string(), z.unknown());
 
 export const recordCreateSchema = z.object({
   kind: recordKindSchema,
-  title: z.string().trim().min(3, 'Give the record a title of at least 3 characters.').max(200),
+  title: typedLine().trim().min(3, 'Give the record a title of at least 3 characters.').max(200),
   subsystem: slug,
   seasonId: id.optional(),
   status: recordStatusSchema.optional(),
@@ -45,14 +46,14 @@ export type RecordCreateInput = z.infer<typeof recordCreateSchema>;
 export const recordPatchSchema = z
   .object({
     version: z.number().int().min(1),
-    title: z.string().trim().min(3, 'Give the record a title of at least 3 characters.').max(200).optional(),
+    title: typedLine().trim().min(3, 'Give the record a title of at least 3 characters.').max(200).optional(),
     subsystem: slug.optional(),
     seasonId: id.optional(),
     source: lessonSourceSchema.nullable().optional(),
     body: body.optional(),
     calculationIds: z.array(id).max(50).optional(),
     relatedRecordIds: z.array(id).max(50).optional(),
-    note: z.string().trim().max(300).optional(),
+    note: typedLine().trim().max(300).optional(),
   })
   .strict();
 export type RecordPatchInput = z.infer<typeof recordPatchSchema>;
@@ -73,8 +74,8 @@ export const recordListQuerySchema = z.object({
 });
 
 export const commentInputSchema = z.object({
-  body: z.string().trim().min(1, 'Write something first.').max(5000, 'Keep a comment under 5,000 characters.'),
+  body: typedText().trim().min(1, 'Write something first.').max(5000, 'Keep a comment under 5,000 characters.'),
   parentId: id.optional(),
 });
 
-export const reviewInputSchema = z.object({ note: z.string().trim().max(1000).optional() });
+export const reviewInputSchema = z.object({ note: typedText().trim().max(1000).optional() });

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { typedLine, typedText } from './text';
 
 export const PHASES = ['design', 'build', 'test', 'race', 'handover'] as const;
 
@@ -6,21 +7,21 @@ const date = z.iso.date('Use a date like 2026-10-01.');
 
 export const seasonCreateSchema = z
   .object({
-    name: z.string().trim().min(2, 'Name the season, e.g. 2026–27.').max(40),
+    name: typedLine().trim().min(2, 'Name the season, e.g. 2026–27.').max(40),
     startsOn: date,
     endsOn: date,
     phase: z.enum(PHASES).default('design'),
-    boat: z.string().trim().max(60).optional(),
+    boat: typedLine().trim().max(60).optional(),
   })
   .refine((s) => s.endsOn > s.startsOn, { path: ['endsOn'], message: 'The season must end after it starts.' });
 
 export const seasonPatchSchema = z
   .object({
-    name: z.string().trim().min(2).max(40).optional(),
+    name: typedLine().trim().min(2).max(40).optional(),
     startsOn: date.optional(),
     endsOn: date.optional(),
     phase: z.enum(PHASES).optional(),
-    boat: z.string().trim().max(60).nullable().optional(),
+    boat: typedLine().trim().max(60).nullable().optional(),
     current: z.literal(true).optional(),
   })
   .strict();
@@ -37,10 +38,10 @@ export const subsystemCreateSchema = z.object({
     .min(2)
     .max(40)
     .regex(/^[a-z0-9-]+$/, 'Lower-case letters, digits and dashes.'),
-  name: z.string().trim().min(2).max(80),
-  summary: z.string().trim().max(400).default(''),
+  name: typedLine().trim().min(2).max(80),
+  summary: typedText().trim().max(400).default(''),
 });
 
 export const subsystemPatchSchema = z
-  .object({ name: z.string().trim().min(2).max(80).optional(), summary: z.string().trim().max(400).optional() })
+  .object({ name: typedLine().trim().min(2).max(80).optional(), summary: typedText().trim().max(400).optional() })
   .strict();

@@ -3,15 +3,16 @@ import { db } from './db/client';
 import { calculations, calculationResults, recordCalculations, records, seasons, subsystems, users } from './db/schema';
 import { getCalculator, runCalculator, type CalcResult } from '../calc';
 import { OutOfRangeError } from '../calc/errors';
-import { invalidInput, notFound } from './http';
+import { HttpError, invalidInput, notFound } from './http';
 import { newId } from './ids';
 import { recordAudit } from './audit';
 import { currentSeason, findSeason, findSubsystem } from './seasons';
 import type { CalculationInput } from '../schemas/calculations';
 import { onCalculationChanged } from './records/hooks';
+import { can, type Role } from '../policy';
 import { decodeCursor, encodeCursor } from './cursor';
 
-type Actor = { id: string; email: string };
+type Actor = { id: string; email: string; role: Role };
 type Outputs = Record<string, number | string | null>;
 
 export interface CalculationResultView {
@@ -67,6 +68,8 @@ export function createCalculation(input: CalculationInput, actor: Actor): Calcul
     throw invalidInput([
       { path: 'seasonId', message: input.seasonId ? 'No such season.' : 'No season is current; choose one.' },
     ]);
+  if (!can(actor, 'calculation:create', { seasonIsCurrent: season.current }))
+    throw new HttpError(403, 'forbidden', 'Members file calculations into the current season only.');
   const id = newId();
   const now = new Date();
   db().transaction((tx) => {
@@ -124,6 +127,8 @@ function insertResult(
 export function recomputeCalculation(id: string, actor: Actor) {
   const before = getCalculation(id);
   if (!before) throw notFound('That calculation');
+  if (!can(actor, 'calculation:recompute', { seasonIsCurrent: before.seasonIsCurrent }))
+    throw new HttpError(403, 'forbidden', 'Members recompute calculations of the current season only.');
   const run = computeOrThrow(before.kind, before.inputs);
   const now = new Date();
   db().transaction((tx) => {

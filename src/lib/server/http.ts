@@ -97,7 +97,30 @@ export async function readJson<T extends z.ZodType>(
   } catch {
     throw invalidInput([{ path: '', message: 'Body is not valid JSON.' }], 'The request body is not valid JSON.');
   }
+  if (nestedDeeperThan(value, MAX_JSON_DEPTH))
+    throw invalidInput(
+      [{ path: '', message: `The body is nested more than ${MAX_JSON_DEPTH} levels deep.` }],
+      'The request body is nested too deeply.',
+    );
   return parseWith(schema, value);
+}
+
+/**
+ * JSON.parse accepts any depth, but zod, JSON.stringify and our own walkers recurse and overflow the stack a few
+ * thousand levels down. A record body is the deepest thing we take: 40 editor nodes deep, two JSON levels each.
+ */
+const MAX_JSON_DEPTH = 100;
+
+/** Walks with an explicit stack, so the check itself cannot overflow. */
+function nestedDeeperThan(root: unknown, limit: number): boolean {
+  const stack: [unknown, number][] = [[root, 1]];
+  while (stack.length) {
+    const [value, depth] = stack.pop()!;
+    if (value === null || typeof value !== 'object') continue;
+    if (depth > limit) return true;
+    for (const child of Array.isArray(value) ? value : Object.values(value)) stack.push([child, depth + 1]);
+  }
+  return false;
 }
 
 async function readLimited(request: Request, maxBytes: number): Promise<string> {

@@ -1,6 +1,6 @@
 import { and, eq, inArray, isNull, sql } from 'drizzle-orm';
 import { db } from './db/client';
-import { recordCalculations, records } from './db/schema';
+import { calculations, recordCalculations, records } from './db/schema';
 import { listSubsystems, findSeason, currentSeason } from './seasons';
 import { listGuides } from './guides';
 import { getRoute } from './onboarding';
@@ -36,12 +36,16 @@ async function score(season: NonNullable<ReturnType<typeof findSeason>>, now: Da
     const calcCounts = new Map<string, number>();
     if (accepted.length) {
       for (const l of db()
-        .select()
+        .select({ recordId: recordCalculations.recordId })
         .from(recordCalculations)
+        .innerJoin(calculations, eq(calculations.id, recordCalculations.calculationId))
         .where(
-          inArray(
-            recordCalculations.recordId,
-            accepted.map((a) => a.id),
+          and(
+            inArray(
+              recordCalculations.recordId,
+              accepted.map((a) => a.id),
+            ),
+            isNull(calculations.deletedAt),
           ),
         )
         .all()) {

@@ -2,7 +2,7 @@ import type { APIRoute } from 'astro';
 import { handle, requirePermission } from '~/lib/server/http';
 import { databaseBackup } from '~/lib/server/backup';
 import { recordAudit } from '~/lib/server/audit';
-import { clientIp } from '~/lib/server/request';
+import { clientAddress } from '~/lib/server/client-address';
 
 /** A consistent SQLite copy for leads; restoring it is described in the README. */
 export const GET: APIRoute = handle(async (context) => {
@@ -14,7 +14,7 @@ export const GET: APIRoute = handle(async (context) => {
     targetType: 'database',
     targetId: backup.fileName,
     detail: { bytes: backup.size },
-    ip: clientIp(context),
+    ip: clientAddress(context),
   });
   return new Response(backup.stream, {
     status: 200,

@@ -2,7 +2,7 @@ import type { APIRoute } from 'astro';
 import { handle, requirePermission } from '~/lib/server/http';
 import { handoverBundle } from '~/lib/server/export/bundle';
 import { recordAudit } from '~/lib/server/audit';
-import { clientIp } from '~/lib/server/request';
+import { clientAddress } from '~/lib/server/client-address';
 
 /** The handover bundle, streamed as it is written (its length is not known in advance). */
 export const GET: APIRoute = handle(async (context) => {
@@ -14,7 +14,7 @@ export const GET: APIRoute = handle(async (context) => {
     targetType: 'bundle',
     targetId: bundle.fileName,
     detail: { ...bundle.counts },
-    ip: clientIp(context),
+    ip: clientAddress(context),
   });
   return new Response(bundle.stream, {
     status: 200,

@@ -30,15 +30,17 @@ export async function attemptSignIn(
     recordAudit({ actor: null, action: 'auth.sign-in-throttled', targetType: 'user', targetId: email, ip });
     return { ok: false, reason: 'throttled', retryAfter };
   }
+  // Counted before the (slow) password check is awaited; a right password takes the attempts back below.
+  signInByAccount.reserve(email);
+  const releaseAddress = signInByAddress.reserve(ip);
   const user = db().select().from(users).where(eq(users.email, email)).get();
   const valid = user ? await verifyPassword(user.passwordHash, input.password) : await verifyDecoy(input.password);
   if (!user || !valid) {
-    signInByAccount.fail(email);
-    signInByAddress.fail(ip);
     recordAudit({ actor: null, action: 'auth.sign-in-failed', targetType: 'user', targetId: email, ip });
     return { ok: false, reason: 'invalid' };
   }
   signInByAccount.clear(email);
+  releaseAddress();
   await startSession(user.id, cookies);
   const now = new Date();
   db().update(users).set({ lastSignInAt: now }).where(eq(users.id, user.id)).run();

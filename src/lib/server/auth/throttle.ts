@@ -24,6 +24,23 @@ export class Throttle {
     if (this.failures.size > 10_000) this.prune();
   }
 
+  /**
+   * Counts an attempt now, before its outcome is known, so attempts made in parallel cannot all pass the check
+   * while the first is still being verified. Returns a function that takes this one attempt back.
+   */
+  reserve(key: string): () => void {
+    const at = this.now();
+    this.fail(key);
+    let released = false;
+    return () => {
+      if (released) return;
+      released = true;
+      const times = this.failures.get(key);
+      const i = times?.indexOf(at) ?? -1;
+      if (times && i >= 0) times.splice(i, 1);
+    };
+  }
+
   clear(key: string): void {
     this.failures.delete(key);
   }

@@ -111,7 +111,7 @@ async function unfinishedOnboarding(userId: string, base: string) {
       ? db()
           .select({ id: records.id, title: records.title })
           .from(records)
-          .where(inArray(records.id, ids('record')))
+          .where(and(inArray(records.id, ids('record')), isNull(records.deletedAt)))
           .all()
           .map((r) => [r.id, r.title])
       : [],
@@ -121,12 +121,16 @@ async function unfinishedOnboarding(userId: string, base: string) {
       ? db()
           .select({ id: calculations.id, title: calculations.title })
           .from(calculations)
-          .where(inArray(calculations.id, ids('calculation')))
+          .where(and(inArray(calculations.id, ids('calculation')), isNull(calculations.deletedAt)))
           .all()
           .map((c) => [c.id, c.title])
       : [],
   );
-  return items.map((i) => {
+  // A step pointing at a deleted record or calculation is not worth a line (nor its title a mention).
+  const live = items.filter(
+    (i) => (i.kind !== 'record' || recordTitles.has(i.ref)) && (i.kind !== 'calculation' || calcTitles.has(i.ref)),
+  );
+  return live.map((i) => {
     const title =
       (i.kind === 'guide' ? guideTitles : i.kind === 'record' ? recordTitles : calcTitles).get(i.ref) ?? i.ref;
     const path =

@@ -59,7 +59,7 @@ export function subsystemTimeline(slug: string, kind: 'decision' | 'lesson'): Ti
     for (const r of db()
       .select({ id: records.id, title: records.title })
       .from(records)
-      .where(inArray(records.id, extra))
+      .where(and(inArray(records.id, extra), isNull(records.deletedAt)))
       .all())
       titleOf.set(r.id, r.title);
   const seasonsOut: TimelineSeason[] = [];
@@ -69,7 +69,9 @@ export function subsystemTimeline(slug: string, kind: 'decision' | 'lesson'): Ti
       s = { seasonId: r.seasonId, season: r.season, current: r.current, entries: [] };
       seasonsOut.push(s);
     }
-    const uniq = (xs: string[]) => [...new Set(xs)].map((id) => ({ id, title: titleOf.get(id) ?? id }));
+    // A deleted record on the other end of a link is left out, title and link both.
+    const uniq = (xs: string[]) =>
+      [...new Set(xs)].filter((id) => titleOf.has(id)).map((id) => ({ id, title: titleOf.get(id)! }));
     s.entries.push({
       id: r.id,
       title: r.title,

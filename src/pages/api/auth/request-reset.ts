@@ -2,13 +2,13 @@ import type { APIRoute } from 'astro';
 import { handle, json, readJson, HttpError } from '~/lib/server/http';
 import { requestResetSchema } from '~/lib/schemas/auth';
 import { requestPasswordReset } from '~/lib/server/auth/reset';
-import { clientIp } from '~/lib/server/request';
+import { clientAddress } from '~/lib/server/client-address';
 import { publicBase } from '~/lib/server/public-url';
 
 /** 202 whether or not the address has an account (no enumeration); 429 when asked too often. */
 export const POST: APIRoute = handle(async (context) => {
   const input = await readJson(context.request, requestResetSchema, 16 * 1024);
-  const result = requestPasswordReset(input.email, clientIp(context), publicBase(context.url));
+  const result = requestPasswordReset(input.email, clientAddress(context), publicBase(context.url));
   if (!result.ok) {
     throw new HttpError(
       429,

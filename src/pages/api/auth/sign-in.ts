@@ -2,11 +2,11 @@ import type { APIRoute } from 'astro';
 import { handle, json, readJson, HttpError } from '~/lib/server/http';
 import { signInInputSchema } from '~/lib/schemas/auth';
 import { attemptSignIn } from '~/lib/server/auth/sign-in';
-import { clientIp } from '~/lib/server/request';
+import { clientAddress } from '~/lib/server/client-address';
 
 export const POST: APIRoute = handle(async (context) => {
   const input = await readJson(context.request, signInInputSchema, 16 * 1024);
-  const result = await attemptSignIn(input, clientIp(context), context.cookies);
+  const result = await attemptSignIn(input, clientAddress(context), context.cookies);
   if (result.ok) return json({ user: result.user });
   if (result.reason === 'throttled') {
     throw new HttpError(

@@ -21,7 +21,8 @@ export const GET: APIRoute = handle(({ locals, url }) => {
 
 /** Saves a calculation; outputs are always computed here (any outputs the client sends are ignored). */
 export const POST: APIRoute = handle(async ({ locals, request }) => {
-  const user = requirePermission(locals, 'calculation:create');
+  // Refuses at once whoever may not file anywhere; the chosen season is checked once the body names it.
+  const user = requirePermission(locals, 'calculation:create', { seasonIsCurrent: true });
   const input = await readJson(request, calculationInputSchema, 64 * 1024);
   return json({ calculation: createCalculation(input, user) }, 201);
 });

@@ -3,6 +3,7 @@ import { handle, json, requirePermission } from '~/lib/server/http';
 import { recomputeCalculation } from '~/lib/server/calculations';
 
 export const POST: APIRoute = handle(({ locals, params }) => {
-  const user = requirePermission(locals, 'calculation:recompute');
+  // Refuses at once whoever may recompute nothing; the calculation's own season is checked once it is found.
+  const user = requirePermission(locals, 'calculation:recompute', { seasonIsCurrent: true });
   return json(recomputeCalculation(params.id ?? '', user));
 });
