@@ -60,8 +60,22 @@ describe('npm start', () => {
       const users = sqlite.prepare('select count(*) from users').pluck().get() as number;
       sqlite.close();
       expect(users).toBeGreaterThanOrEqual(4);
-      const health = await fetch(`http://127.0.0.1:${env.PORT}/api/health`);
+      const base = `http://127.0.0.1:${env.PORT}`;
+      const health = await fetch(`${base}/api/health`);
       expect(health.status).toBe(200);
+      // The start file hands the socket's address to the app: a forged X-Forwarded-For on every attempt does not
+      // reset the per-address sign-in limit (30 failures per address in 15 minutes).
+      const statuses: number[] = [];
+      for (let i = 0; i < 32; i++) {
+        const res = await fetch(`${base}/api/auth/sign-in`, {
+          method: 'POST',
+          headers: { 'content-type': 'application/json', 'x-forwarded-for': `198.51.100.${i}` },
+          body: JSON.stringify({ email: `nobody${i}@example.org`, password: 'not-the-password' }),
+        });
+        statuses.push(res.status);
+      }
+      expect(statuses.slice(0, 30).every((s) => s === 401)).toBe(true);
+      expect(statuses.slice(30)).toEqual([429, 429]);
     } finally {
       run.stop();
     }
