@@ -30,7 +30,7 @@ const HEAD_BYTES = 4100;
 // Tab, line feed, vertical tab, form feed and carriage return are text; every other control character is not.
 const CONTROL = /[\u0000-\u0008\u000e-\u001f\u007f]/;
 
-export interface TypeSniffer {
+interface TypeSniffer {
   /** Feeds the next chunk of the file, in order. */
   push(chunk: Uint8Array): void;
   /** The type of everything pushed, or null when it is not an allowed kind. */

@@ -11,7 +11,7 @@ import { HttpError } from './http';
 import { startSniffing, type Sniffed } from './filetype';
 import { discardIncoming, incomingPath } from './storage';
 
-export interface ReceivedFile {
+interface ReceivedFile {
   /** The temporary file holding the bytes: move it with `keepIncoming` or drop it with `discardIncoming`. */
   path: string;
   /** The name the sender gave, as sent (not yet cleaned). */
@@ -21,7 +21,7 @@ export interface ReceivedFile {
   type: Sniffed;
 }
 
-export interface ReceiveOptions {
+interface ReceiveOptions {
   field: string;
   maxBytes: number;
   tooLarge: () => HttpError;

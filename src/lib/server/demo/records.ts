@@ -62,7 +62,7 @@ function plainMentions(text: string, titles: Map<string, { title: string }>): st
   );
 }
 
-export interface DemoAttachment {
+interface DemoAttachment {
   bytes: Uint8Array;
   contentType: string;
 }
