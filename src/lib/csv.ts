@@ -1,4 +1,7 @@
-/** A small CSV reader for test logs: a header row, comma-separated, optional double quotes. Pure. */
+// Test logs read with papaparse: a header row, comma-separated, RFC 4180 quoting (a quoted field may hold commas,
+// doubled quotes and line breaks). Blank lines and lines starting with "#" (logger notes) are skipped. Pure.
+import Papa from 'papaparse';
+
 export interface CsvTable {
   header: string[];
   rows: string[][];
@@ -6,34 +9,17 @@ export interface CsvTable {
 }
 
 export function parseCsv(text: string, maxRows = Infinity): CsvTable {
-  const lines = text
-    .replace(/^\uFEFF/, '')
-    .split(/\r?\n/)
-    .filter((l) => l.trim() !== '' && !l.startsWith('#'));
-  const split = (line: string): string[] => {
-    const out: string[] = [];
-    let cur = '';
-    let quoted = false;
-    for (let i = 0; i < line.length; i++) {
-      const ch = line[i];
-      if (quoted) {
-        if (ch === '"' && line[i + 1] === '"') {
-          cur += '"';
-          i++;
-        } else if (ch === '"') quoted = false;
-        else cur += ch;
-      } else if (ch === '"') quoted = true;
-      else if (ch === ',') {
-        out.push(cur.trim());
-        cur = '';
-      } else cur += ch;
-    }
-    out.push(cur.trim());
-    return out;
-  };
-  const header = lines.length ? split(lines[0]) : [];
-  const body = lines.slice(1);
-  return { header, rows: body.slice(0, maxRows).map(split), truncated: body.length > maxRows };
+  const limited = Number.isFinite(maxRows);
+  const { data } = Papa.parse<string[]>(text.replace(/^\uFEFF/, ''), {
+    delimiter: ',',
+    comments: '#',
+    skipEmptyLines: 'greedy',
+    transform: (cell) => cell.trim(),
+    // The header, the rows wanted and one more, to tell whether there were more.
+    preview: limited ? maxRows + 2 : 0,
+  });
+  const [header = [], ...body] = data;
+  return { header, rows: limited ? body.slice(0, maxRows) : body, truncated: body.length > maxRows };
 }
 
 /** Indexes of columns whose every non-empty cell is a number. */

@@ -11,6 +11,7 @@ import { seedDemo, sessionsForAllRoles, type DemoRole } from '../setup/db';
 import * as exportRoute from '../../src/pages/api/export';
 import * as backupRoute from '../../src/pages/api/backup';
 import * as audit from '../../src/pages/api/audit';
+import * as uploadRoute from '../../src/pages/api/records/[id]/attachments';
 import { db } from '../../src/lib/server/db/client';
 import { attachments, calculations, records, users } from '../../src/lib/server/db/schema';
 import { openStored } from '../../src/lib/server/storage';
@@ -179,6 +180,35 @@ describe('GET /api/export', () => {
 
   it('refuses a signed-out caller with 401', async () => {
     expect((await call(exportRoute, 'GET')).status).toBe(401);
+  });
+});
+
+describe('attachment names in the bundle', () => {
+  it('name each file by its sniffed type, so an uploaded ".html" never opens as a page from the unzipped folder', async () => {
+    const record = db().select().from(records).where(isNull(records.deletedAt)).get()!;
+    const send = async (text: string, name: string) => {
+      const f = new FormData();
+      f.set('file', new File([new TextEncoder().encode(text)], name, { type: 'text/html' }));
+      const res = await call(uploadRoute, 'POST', { session: s.lead, params: { id: record.id }, rawBody: f });
+      expect(res.status).toBe(201);
+      return res.body.attachment as { id: string; contentType: string };
+    };
+    const csv = await send('time_s,current_A\n0,10\n1,12\n', 'log.html');
+    const page = await send('<p>hi</p><script>alert(document.cookie)</script>\n', 'notes.HTM');
+    const named = await send('Tank test notes.\n', 'tank-test.txt');
+    expect([csv.contentType, page.contentType, named.contentType]).toEqual(['text/csv', 'text/plain', 'text/plain']);
+
+    const res = await call(exportRoute, 'GET', { session: s.lead });
+    const names = [...(await unzip(res.bytes)).keys()];
+    const folder = names
+      .filter((k) => k.includes('/attachments/') && k.includes(record.id))
+      .map((k) => k.split('/').pop());
+    expect(folder).toEqual(expect.arrayContaining(['log.html.csv', 'notes.HTM.txt', 'tank-test.txt']));
+    expect(names.filter((k) => /\.html?$/i.test(k) && !k.endsWith('/index.html'))).toEqual([]);
+    // The record's page in the bundle links the renamed file.
+    const md = names.find((k) => k.endsWith('.md') && k.includes(record.id) && k.includes('/records/'))!;
+    const text = (await unzip(res.bytes)).get(md)!.toString('utf8');
+    expect(text).toContain('log.html.csv');
   });
 });
 

@@ -41,11 +41,12 @@ function defaultPath(route: object, params: Record<string, string> = {}): string
   return `/api/test/route-${routeIds.get(route)}/${parts.join('/')}`;
 }
 
-export async function call(
+/** Calls a route and hands back its Response unread, for tests that stream a large body. */
+export async function callRaw(
   route: Partial<Record<Method, APIRoute>>,
   method: Method,
   options: CallOptions = {},
-): Promise<CallResult> {
+): Promise<{ response: Response; cookies: AstroCookies }> {
   const handler = route[method];
   if (!handler) throw new Error(`route has no ${method} handler`);
   // Like the server, where the URL names the route and its parameters (the response cache keys on it).
@@ -58,7 +59,13 @@ export async function call(
     headers.set('content-type', 'application/json');
   }
   if (options.session) headers.set('cookie', `${SESSION_COOKIE}=${options.session}`);
-  const request = new Request(url, { method, headers, body: method === 'GET' ? undefined : body });
+  // A streamed body (no content-length, like a chunked upload) needs `duplex: 'half'` in Node's fetch.
+  const request = new Request(url, {
+    method,
+    headers,
+    body: method === 'GET' ? undefined : body,
+    ...(body instanceof ReadableStream ? { duplex: 'half' } : {}),
+  } as RequestInit);
   const cookies = new AstroCookies(request);
   const context = {
     request,
@@ -70,6 +77,15 @@ export async function call(
     redirect: (location: string, status = 302) => new Response(null, { status, headers: { location } }),
   } as unknown as APIContext;
   const response = (await onRequest(context as never, async () => handler(context))) as Response;
+  return { response, cookies };
+}
+
+export async function call(
+  route: Partial<Record<Method, APIRoute>>,
+  method: Method,
+  options: CallOptions = {},
+): Promise<CallResult> {
+  const { response, cookies } = await callRaw(route, method, options);
   const setCookies = new Map<string, string>();
   const setCookie = [...cookies.headers()];
   for (const header of setCookie) {

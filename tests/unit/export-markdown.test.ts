@@ -4,7 +4,7 @@ import { join } from 'node:path';
 import { docToMarkdown, escapeText } from '../../src/lib/server/export/markdown';
 import { markdownToDoc } from '../../src/lib/server/demo/markdown';
 import { processBody } from '../../src/lib/server/records/body';
-import { slugify, safeFileName } from '../../src/lib/server/export/names';
+import { nameForType, slugify, safeFileName } from '../../src/lib/server/export/names';
 
 const text = (t: string, marks?: { type: string; attrs?: Record<string, unknown> }[]) => ({
   type: 'text',
@@ -111,5 +111,20 @@ describe('bundle names', () => {
     expect(safeFileName('../../etc/passwd')).toBe('passwd');
     expect(safeFileName('a:b?.csv')).toBe('a_b_.csv');
     expect(safeFileName('.hidden')).toBe('_hidden');
+  });
+  it('cuts a long name at 180 characters and keeps its extension', () => {
+    const cut = safeFileName(`${'battery-pack-thermal-run-'.repeat(10)}final.csv`);
+    expect(cut.length).toBeLessThanOrEqual(180);
+    expect(cut).toMatch(/^battery-pack-thermal-run-.*[^.]\.csv$/);
+    expect(safeFileName('short.csv')).toBe('short.csv');
+    // No extension to keep: cut plainly.
+    expect(safeFileName('x'.repeat(300))).toBe('x'.repeat(180));
+  });
+  it('gives a file the extension of its sniffed type unless its own is one that type is known by', () => {
+    expect(nameForType('log.html', 'text/csv')).toBe('log.html.csv');
+    expect(nameForType('page.html', 'text/plain')).toBe('page.html.txt');
+    expect(nameForType('photo.JPEG', 'image/jpeg')).toBe('photo.JPEG');
+    expect(nameForType('scan', 'application/pdf')).toBe('scan.pdf');
+    expect(nameForType('notes.txt', 'text/plain')).toBe('notes.txt');
   });
 });

@@ -1,5 +1,5 @@
-import { createHash } from 'node:crypto';
-import { createReadStream, existsSync, mkdirSync, renameSync, statSync, writeFileSync } from 'node:fs';
+import { createHash, randomBytes } from 'node:crypto';
+import { createReadStream, existsSync, mkdirSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import { Readable } from 'node:stream';
 import { settings } from './config';
@@ -21,6 +21,28 @@ export function storeBytes(bytes: Uint8Array): { sha256: string; size: number } 
     renameSync(tmp, path);
   }
   return { sha256, size: bytes.byteLength };
+}
+
+/**
+ * A fresh path for a file still arriving. It is inside the uploads folder (same file system, so the final move is
+ * a rename) but in its own folder, where no content hash can point.
+ */
+export function incomingPath(): string {
+  const dir = join(resolve(settings().WAKEBOOK_UPLOADS), 'incoming');
+  mkdirSync(dir, { recursive: true });
+  return join(dir, `${randomBytes(12).toString('hex')}.part`);
+}
+
+/** Moves a complete incoming file under its hash, or drops it when those bytes are stored already. */
+export function keepIncoming(path: string, sha256: string): void {
+  const final = pathForHash(sha256);
+  if (existsSync(final)) return discardIncoming(path);
+  mkdirSync(dirname(final), { recursive: true });
+  renameSync(path, final);
+}
+
+export function discardIncoming(path: string): void {
+  rmSync(path, { force: true });
 }
 
 export function openStored(sha256: string): { stream: ReadableStream<Uint8Array>; size: number } | null {

@@ -62,10 +62,27 @@ function plainMentions(text: string, titles: Map<string, { title: string }>): st
   );
 }
 
+interface DemoAttachment {
+  bytes: Uint8Array;
+  contentType: string;
+}
+
+/** Reads and sniffs every demo attachment up front: sniffing is asynchronous, the seeding transaction is not. */
+export async function loadDemoAttachments(dir: string, list: DemoRecord[]): Promise<Map<string, DemoAttachment>> {
+  const out = new Map<string, DemoAttachment>();
+  for (const name of new Set(list.flatMap((r) => r.attachments))) {
+    const bytes = new Uint8Array(readFileSync(resolve(dir, 'attachments', name)));
+    const type = await sniffType(bytes, name);
+    if (!type) throw new Error(`demo attachment ${name}: type not allowed`);
+    out.set(name, { bytes, contentType: type.contentType });
+  }
+  return out;
+}
+
 export function seedRecords(
   tx: Tx,
   ids: SeedIds,
-  dir: string,
+  files: Map<string, DemoAttachment>,
   list: DemoRecord[],
   calcTitles: Map<string, string>,
 ): void {
@@ -131,16 +148,14 @@ export function seedRecords(
         .run();
     }
     for (const name of r.attachments) {
-      const bytes = new Uint8Array(readFileSync(resolve(dir, 'attachments', name)));
-      const type = sniffType(bytes, name);
-      if (!type) throw new Error(`demo attachment ${name}: type not allowed`);
+      const { bytes, contentType } = files.get(name)!;
       const stored = storeBytes(bytes);
       tx.insert(attachments)
         .values({
           id: newId(),
           recordId: r.id,
           fileName: name,
-          contentType: type.contentType,
+          contentType,
           size: stored.size,
           sha256: stored.sha256,
           uploadedById: authorId,

@@ -5,7 +5,7 @@ import { hashPassword } from '../auth/password';
 import { newId } from '../ids';
 import { loadDemoTeam, demoDir, DEMO_PASSWORD, type DemoTeam } from './team';
 import { loadDemoCalculations, seedCalculations } from './calculations';
-import { loadDemoRecords, seedRecords } from './records';
+import { loadDemoAttachments, loadDemoRecords, seedRecords } from './records';
 import { loadDemoOnboarding, seedOnboarding } from './onboarding';
 import type { SeedIds, Tx } from './seed-types';
 import { recordAudit } from '../audit';
@@ -18,6 +18,7 @@ export async function seedDemoIfEmpty(): Promise<boolean> {
   const team = loadDemoTeam(dir);
   const calcs = loadDemoCalculations(dir);
   const recs = loadDemoRecords(dir);
+  const files = await loadDemoAttachments(dir, recs);
   const onboarding = loadDemoOnboarding(dir);
   const passwordHash = await hashPassword(DEMO_PASSWORD);
   db().transaction((tx) => {
@@ -26,7 +27,7 @@ export async function seedDemoIfEmpty(): Promise<boolean> {
     if (again > 0) return;
     const ids = seedTeam(tx, team, passwordHash);
     seedCalculations(tx, ids, calcs);
-    seedRecords(tx, ids, dir, recs, new Map(calcs.map((c) => [c.id, c.title])));
+    seedRecords(tx, ids, files, recs, new Map(calcs.map((c) => [c.id, c.title])));
     seedOnboarding(tx, ids, onboarding);
   });
   recordAudit({ actor: null, action: 'demo.seed', targetType: 'database' });

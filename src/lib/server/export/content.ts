@@ -7,7 +7,7 @@ import { getRecordView, listComments, type RecordRef, type RecordView } from '..
 import { getCalculation } from '../calculations';
 import { listPeople } from '../people';
 import { docToMarkdown, escapeText as md } from './markdown';
-import { recordBase, safeFileName, slugify } from './names';
+import { nameForType, recordBase, safeFileName, slugify } from './names';
 
 export interface RecordEntry {
   id: string;
@@ -73,12 +73,15 @@ export function attachmentFolder(r: { id: string; title: string }): string {
   return `attachments/${recordBase(r)}`;
 }
 
-/** Attachment names within one record folder, made unique ("photo.jpg", "photo-2.jpg"). */
-export function attachmentNames(files: { id: string; fileName: string }[]): Map<string, string> {
+/**
+ * Attachment names within one record folder: extension from the sniffed type (see `nameForType`), made unique
+ * ("photo.jpg", "photo-2.jpg").
+ */
+export function attachmentNames(files: { id: string; fileName: string; contentType: string }[]): Map<string, string> {
   const used = new Set<string>();
   const out = new Map<string, string>();
   for (const f of files) {
-    const safe = safeFileName(f.fileName);
+    const safe = safeFileName(nameForType(f.fileName, f.contentType));
     let name = safe;
     for (let i = 2; used.has(name.toLowerCase()); i++) name = safe.replace(/(\.[^.]*)?$/, (ext) => `-${i}${ext}`);
     used.add(name.toLowerCase());

@@ -5,8 +5,9 @@ import { HttpError, notFound } from '../http';
 import { newId } from '../ids';
 import { recordAudit } from '../audit';
 import { settings } from '../config';
-import { sniffType } from '../filetype';
-import { storeBytes, openStored } from '../storage';
+import { cutFileName } from '../../file-names';
+import { receiveFile } from '../multipart';
+import { discardIncoming, keepIncoming, openStored } from '../storage';
 import { attachmentView, type AttachmentView } from './view';
 import { loadForWrite } from './write';
 import type { Role } from '../../policy';
@@ -17,14 +18,19 @@ export function maxUploadBytes(): number {
 
 function cleanName(name: string): string {
   const base = name.split(/[\\/]/).pop() ?? 'file';
-  const cleaned = base
-    .replace(/[\u0000-\u001f\u007f"<>|:*?]/g, '_')
-    .trim()
-    .slice(0, 180);
-  return cleaned || 'file';
+  const cleaned = base.replace(/[\u0000-\u001f\u007f"<>|:*?]/g, '_').trim();
+  return cutFileName(cleaned) || 'file';
 }
 
-/** Reads the multipart body within the size limit, checks the type from the bytes and stores the file. */
+const noFile = () =>
+  new HttpError(400, 'invalid_input', 'Send the file as multipart/form-data in a field named “file”.', [
+    { path: 'file', message: 'No file was received.' },
+  ]);
+
+/**
+ * Streams the multipart body to a temporary file within the size limit (stopping at it), checks the type from the
+ * bytes, and only then moves the file into place and records it. The temporary file is removed on any failure.
+ */
 export async function uploadAttachment(
   recordId: string,
   request: Request,
@@ -37,50 +43,47 @@ export async function uploadAttachment(
   const declared = Number(request.headers.get('content-length') ?? '0');
   // Multipart framing adds a little; anything well over the limit is refused before reading it.
   if (declared > limit + 64 * 1024) throw tooLarge();
-  let form: FormData;
+  const file = await receiveFile(request, { field: 'file', maxBytes: limit, tooLarge, noFile });
+  let kept = false;
   try {
-    form = await request.formData();
-  } catch {
-    throw new HttpError(400, 'invalid_input', 'Send the file as multipart/form-data in a field named “file”.', [
-      { path: 'file', message: 'No file was received.' },
-    ]);
+    if (file.size === 0)
+      throw new HttpError(400, 'invalid_input', 'That file is empty.', [
+        { path: 'file', message: 'The file is empty.' },
+      ]);
+    if (!file.type)
+      throw new HttpError(
+        415,
+        'unsupported_type',
+        'Attach photos (PNG, JPEG, GIF, WebP), PDFs, CSV logs or plain text.',
+      );
+    const fileName = cleanName(file.fileName);
+    keepIncoming(file.path, file.sha256);
+    kept = true;
+    const id = newId();
+    db()
+      .insert(attachments)
+      .values({
+        id,
+        recordId,
+        fileName,
+        contentType: file.type.contentType,
+        size: file.size,
+        sha256: file.sha256,
+        uploadedById: actor.id,
+        createdAt: new Date(),
+      })
+      .run();
+    recordAudit({
+      actor,
+      action: 'record.attachment',
+      targetType: 'record',
+      targetId: recordId,
+      detail: { attachment: id, fileName, size: file.size },
+    });
+    return attachmentView(db().select().from(attachments).where(eq(attachments.id, id)).get()!);
+  } finally {
+    if (!kept) discardIncoming(file.path);
   }
-  const file = form.get('file');
-  if (!file || typeof file === 'string')
-    throw new HttpError(400, 'invalid_input', 'Choose a file to upload.', [
-      { path: 'file', message: 'No file was received.' },
-    ]);
-  if (file.size > limit) throw tooLarge();
-  if (file.size === 0)
-    throw new HttpError(400, 'invalid_input', 'That file is empty.', [{ path: 'file', message: 'The file is empty.' }]);
-  const bytes = new Uint8Array(await file.arrayBuffer());
-  const fileName = cleanName(file.name);
-  const type = sniffType(bytes, fileName);
-  if (!type)
-    throw new HttpError(415, 'unsupported_type', 'Attach photos (PNG, JPEG, GIF, WebP), PDFs, CSV logs or plain text.');
-  const { sha256, size } = storeBytes(bytes);
-  const id = newId();
-  db()
-    .insert(attachments)
-    .values({
-      id,
-      recordId,
-      fileName,
-      contentType: type.contentType,
-      size,
-      sha256,
-      uploadedById: actor.id,
-      createdAt: new Date(),
-    })
-    .run();
-  recordAudit({
-    actor,
-    action: 'record.attachment',
-    targetType: 'record',
-    targetId: recordId,
-    detail: { attachment: id, fileName, size },
-  });
-  return attachmentView(db().select().from(attachments).where(eq(attachments.id, id)).get()!);
 }
 
 /** Streams an attachment back byte for byte; images inline, everything else as a download. */
