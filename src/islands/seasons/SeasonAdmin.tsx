@@ -1,5 +1,6 @@
 import { lazy, Suspense, useState, type FormEvent } from 'react';
 import { apiFetch, ApiError } from '~/lib/client/api';
+import { SEASON_PHASES } from '~/lib/domain';
 
 export interface Season {
   id: string;
@@ -14,8 +15,6 @@ export interface Member {
   name: string;
   subsystems: string[];
 }
-
-const PHASES = ['design', 'build', 'test', 'race', 'handover'];
 
 /** Leads open seasons, move their phase, make one current, and roll the team over to a new season. */
 export default function SeasonAdmin({ seasons, members }: { seasons: Season[]; members: Member[] }) {
@@ -98,7 +97,7 @@ function OpenSeason() {
             value={f.phase}
             onChange={(e) => setF({ ...f, phase: e.target.value })}
           >
-            {PHASES.map((p) => (
+            {SEASON_PHASES.map((p) => (
               <option key={p} value={p}>
                 {p}
               </option>
@@ -140,7 +139,7 @@ function SeasonRow({ season }: { season: Season }) {
           value={phase}
           onChange={(e) => setPhase(e.target.value)}
         >
-          {PHASES.map((p) => (
+          {SEASON_PHASES.map((p) => (
             <option key={p} value={p}>
               {p}
             </option>

@@ -1,6 +1,5 @@
 import { z } from 'zod';
-
-export const PHASES = ['design', 'build', 'test', 'race', 'handover'] as const;
+import { SEASON_PHASES } from '../domain';
 
 const date = z.iso.date('Use a date like 2026-10-01.');
 
@@ -9,7 +8,7 @@ export const seasonCreateSchema = z
     name: z.string().trim().min(2, 'Name the season, e.g. 2026–27.').max(40),
     startsOn: date,
     endsOn: date,
-    phase: z.enum(PHASES).default('design'),
+    phase: z.enum(SEASON_PHASES).default('design'),
     boat: z.string().trim().max(60).optional(),
   })
   .refine((s) => s.endsOn > s.startsOn, { path: ['endsOn'], message: 'The season must end after it starts.' });
@@ -19,7 +18,7 @@ export const seasonPatchSchema = z
     name: z.string().trim().min(2).max(40).optional(),
     startsOn: date.optional(),
     endsOn: date.optional(),
-    phase: z.enum(PHASES).optional(),
+    phase: z.enum(SEASON_PHASES).optional(),
     boat: z.string().trim().max(60).nullable().optional(),
     current: z.literal(true).optional(),
   })

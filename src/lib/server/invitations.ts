@@ -1,7 +1,8 @@
 import { and, desc, eq, gt, inArray, isNull, or } from 'drizzle-orm';
 import type { AstroCookies } from 'astro';
 import { db } from './db/client';
-import { invitations, membershipSubsystems, seasonMemberships, subsystems, users, type Role } from './db/schema';
+import type { Role } from '../domain';
+import { invitations, membershipSubsystems, seasonMemberships, subsystems, users } from './db/schema';
 import { conflict, invalidInput, notFound } from './http';
 import { hashToken, newId, newToken } from './ids';
 import { recordAudit } from './audit';

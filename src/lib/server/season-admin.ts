@@ -1,4 +1,5 @@
 import { and, eq, inArray, ne } from 'drizzle-orm';
+import type { SeasonPhase } from '../domain';
 import { db } from './db/client';
 import { membershipSubsystems, seasonMemberships, seasons, subsystems, users } from './db/schema';
 import { conflict, invalidInput, notFound } from './http';
@@ -9,7 +10,7 @@ import { currentSeason, findSeason, type SeasonView } from './seasons';
 type Actor = { id: string; email: string };
 
 export function createSeason(
-  input: { name: string; startsOn: string; endsOn: string; phase: string; boat?: string },
+  input: { name: string; startsOn: string; endsOn: string; phase: SeasonPhase; boat?: string },
   actor: Actor,
 ): SeasonView {
   if (db().select({ id: seasons.id }).from(seasons).where(eq(seasons.name, input.name)).get()) {
@@ -36,7 +37,14 @@ export function createSeason(
 
 export function updateSeason(
   id: string,
-  patch: { name?: string; startsOn?: string; endsOn?: string; phase?: string; boat?: string | null; current?: true },
+  patch: {
+    name?: string;
+    startsOn?: string;
+    endsOn?: string;
+    phase?: SeasonPhase;
+    boat?: string | null;
+    current?: true;
+  },
   actor: Actor,
 ): SeasonView {
   const s = findSeason(id);

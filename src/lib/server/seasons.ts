@@ -1,4 +1,5 @@
 import { asc, desc, eq, sql } from 'drizzle-orm';
+import type { SeasonPhase } from '../domain';
 import { prepared } from './db/client';
 import { seasons, subsystems } from './db/schema';
 
@@ -7,7 +8,7 @@ export interface SeasonView {
   name: string;
   startsOn: string;
   endsOn: string;
-  phase: string;
+  phase: SeasonPhase;
   current: boolean;
   boat: string | null;
 }

@@ -1,6 +1,7 @@
 import { eq } from 'drizzle-orm';
 import { db } from './db/client';
-import { users, type Role } from './db/schema';
+import type { Role } from '../domain';
+import { users } from './db/schema';
 
 export interface PublicUser {
   id: string;

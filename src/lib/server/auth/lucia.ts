@@ -6,7 +6,8 @@ import { DrizzleSQLiteAdapter } from '@lucia-auth/adapter-drizzle';
 import { eq } from 'drizzle-orm';
 import type { AstroCookies } from 'astro';
 import { db } from '../db/client';
-import { sessions, users, type Role } from '../db/schema';
+import type { Role } from '../../domain';
+import { sessions, users } from '../db/schema';
 import { settings } from '../config';
 
 export const SESSION_COOKIE = 'wakebook_session';
