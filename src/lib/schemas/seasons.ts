@@ -1,5 +1,24 @@
 import { z } from 'zod';
-import { SEASON_PHASES } from '../domain';
+import { SEASON_PHASES, type SeasonPhase } from '../domain';
+
+/** A season as the server sends it and the season islands show it (islands import it as a type only). */
+export interface Season {
+  id: string;
+  name: string;
+  startsOn: string; // YYYY-MM-DD
+  endsOn: string;
+  phase: SeasonPhase;
+  current: boolean;
+  boat: string | null;
+}
+
+/** A member of the current season as the rollover offers them: continuing or becoming alumni. */
+export interface RolloverMember {
+  id: string;
+  name: string;
+  /** The names of the subsystems they own this season. */
+  subsystems: string[];
+}
 
 const date = z.iso.date('Use a date like 2026-10-01.');
 

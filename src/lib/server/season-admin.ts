@@ -5,14 +5,15 @@ import { membershipSubsystems, seasonMemberships, seasons, subsystems, users } f
 import { conflict, invalidInput, notFound } from './http';
 import { newId } from './ids';
 import { recordAudit } from './audit';
-import { currentSeason, findSeason, type SeasonView } from './seasons';
+import type { Season } from '../schemas/seasons';
+import { currentSeason, findSeason } from './seasons';
 
 type Actor = { id: string; email: string };
 
 export function createSeason(
   input: { name: string; startsOn: string; endsOn: string; phase: SeasonPhase; boat?: string },
   actor: Actor,
-): SeasonView {
+): Season {
   if (db().select({ id: seasons.id }).from(seasons).where(eq(seasons.name, input.name)).get()) {
     throw conflict(`A season named “${input.name}” already exists.`);
   }
@@ -46,7 +47,7 @@ export function updateSeason(
     current?: true;
   },
   actor: Actor,
-): SeasonView {
+): Season {
   const s = findSeason(id);
   if (!s) throw notFound('That season');
   const startsOn = patch.startsOn ?? s.startsOn;
