@@ -1,5 +1,6 @@
+// Pure auth inputs, safe anywhere. The schemas that choose a password carry the breach list and live in
+// lib/server/auth/new-password.ts.
 import { z } from 'zod';
-import { newPasswordSchema } from './password';
 
 export const signInInputSchema = z.object({
   email: z.string().trim().min(1, 'Enter your e-mail address.').max(254).pipe(z.email('Enter a valid e-mail address.')),
@@ -14,18 +15,6 @@ export const linkTokenSchema = z
   .max(128, 'That link is not valid.')
   .regex(/^[A-Za-z0-9_-]+$/, 'That link is not valid.');
 
-export const acceptInvitationSchema = z.object({
-  token: linkTokenSchema,
-  password: newPasswordSchema,
-  name: z.string().trim().min(2, 'Enter your name (at least 2 characters).').max(120).optional(),
-});
-export type AcceptInvitationInput = z.infer<typeof acceptInvitationSchema>;
-
 export const requestResetSchema = z.object({
   email: signInInputSchema.shape.email,
-});
-
-export const resetPasswordSchema = z.object({
-  token: linkTokenSchema,
-  password: newPasswordSchema,
 });

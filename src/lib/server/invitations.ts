@@ -16,7 +16,7 @@ import { latestMailTo } from './mail/outbox';
 import { linkError, type SpentReason } from './link-tokens';
 import { toPublicUser, type PublicUser } from './users';
 import type { InvitationInput } from '../schemas/people';
-import type { AcceptInvitationInput } from '../schemas/auth';
+import type { AcceptInvitationInput } from './auth/new-password';
 
 export const INVITATION_DAYS = 7;
 const DAY_MS = 24 * 3600 * 1000;
