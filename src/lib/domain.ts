@@ -28,8 +28,6 @@ export type LessonSource = (typeof LESSON_SOURCES)[number];
 
 /** How one record points at another; `supersedes` runs from the newer record to the one it replaces. */
 export const RECORD_LINK_KINDS = ['related', 'supersedes'] as const;
-export type RecordLinkKind = (typeof RECORD_LINK_KINDS)[number];
 
 /** What a step of an onboarding route points at. */
 export const ONBOARDING_ITEM_KINDS = ['guide', 'record', 'calculation'] as const;
-export type OnboardingItemKind = (typeof ONBOARDING_ITEM_KINDS)[number];

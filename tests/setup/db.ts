@@ -6,7 +6,7 @@ import { settings } from '../../src/lib/server/config';
 import { DEMO_PASSWORD } from '../../src/lib/server/demo/team';
 import * as signIn from '../../src/pages/api/auth/sign-in';
 import { call } from './http';
-import { SESSION_COOKIE } from '../../src/lib/server/auth/lucia';
+import { resetAuthForTests, SESSION_COOKIE } from '../../src/lib/server/auth/lucia';
 
 export const demoAccounts = {
   lead: 'lead@wakebook.test',
@@ -24,6 +24,7 @@ export type DemoRole = keyof typeof demoAccounts;
 export function seedDemo(): Promise<void> {
   if (db().$client.prepare('select 1 from users limit 1').get()) return Promise.resolve();
   closeDatabase();
+  resetAuthForTests(); // Lucia's adapter holds the connection just closed
   const { WAKEBOOK_DB, WAKEBOOK_UPLOADS } = settings();
   const templates = inject('templateDir');
   for (const suffix of ['-wal', '-shm']) rmSync(WAKEBOOK_DB + suffix, { force: true });

@@ -58,7 +58,6 @@ declare module 'lucia' {
   }
 }
 
-export type SessionUser = User;
 export type { Session };
 
 /** Starts a session for the user and sets its cookie. Any session the browser held before is ended (rotation). */
@@ -117,10 +116,6 @@ export async function endSession(sessionId: string | undefined, cookies: AstroCo
 /** Ends every session of a user (password reset, role removal). */
 export async function endAllSessions(userId: string): Promise<void> {
   await lucia().invalidateUserSessions(userId);
-}
-
-export function deleteExpiredSessions(): Promise<void> {
-  return lucia().deleteExpiredSessions();
 }
 
 export function countSessions(userId: string): number {

@@ -68,7 +68,3 @@ function clean(n: JSONContent, depth: number): JSONContent | 'too-deep' | 'bad-a
   }
   return out;
 }
-
-export function emptyDoc(): JSONContent {
-  return { type: 'doc', content: [{ type: 'paragraph' }] };
-}
