@@ -49,6 +49,6 @@ export function needsReplacement(to: string): boolean {
   return to === 'superseded';
 }
 
-export function isValidStatus(kind: RecordKind, status: string): status is RecordStatus {
+export function isValidStatus(kind: RecordKind, status: string): boolean {
   return STATUSES[kind].some((s) => s === status);
 }
