@@ -5,6 +5,7 @@ import { getViteConfig } from 'astro/config';
 export default getViteConfig({
   test: {
     include: ['tests/unit/**/*.test.ts', 'tests/api/**/*.test.ts', 'tests/reference/**/*.test.ts'],
+    globalSetup: ['tests/setup/global-db.ts'],
     setupFiles: ['tests/setup/env.ts', 'tests/setup/content.ts'],
     pool: 'forks',
     testTimeout: 20_000,

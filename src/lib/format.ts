@@ -22,11 +22,6 @@ export function formatNumber(value: unknown, digits = 3): string {
   return formatter(digits).format(value).replace('-', '−');
 }
 
-export function formatWithUnit(value: unknown, digits: number, unit: string): string {
-  const n = formatNumber(value, digits);
-  return unit && n !== '–' ? `${n} ${unit}` : n;
-}
-
 /** An input as the person typed it: whole numbers stay whole, decimals keep their own places (up to 6). */
 export function formatInputValue(value: unknown, kind?: string): string {
   if (typeof value !== 'number') return value === null || value === undefined ? '–' : String(value);

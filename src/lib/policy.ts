@@ -1,7 +1,7 @@
 // What each role may do, written once. Pages, API routes and islands all ask `can`.
 // Pure: no server imports, so islands can hide controls the server would refuse anyway.
+import type { Role } from './domain';
 
-export type Role = 'lead' | 'advisor' | 'member' | 'alumni';
 export const ROLE_LABELS: Record<Role, string> = {
   lead: 'Lead',
   advisor: 'Advisor',

@@ -1,34 +1,47 @@
 // Record lifecycles (API.md: draft → proposed → accepted → superseded | withdrawn, proposed → withdrawn;
 // open → addressed), written once and shared by the server (which enforces them) and the pages (which offer them).
+import {
+  DECISION_STATUSES,
+  LESSON_STATUSES,
+  type DecisionStatus,
+  type LessonStatus,
+  type RecordKind,
+  type RecordStatus,
+} from './domain';
 
-export type RecordKind = 'decision' | 'lesson';
+export type { RecordKind } from './domain';
 
-const DECISION_MOVES: Record<string, string[]> = {
+const DECISION_MOVES: Record<DecisionStatus, readonly DecisionStatus[]> = {
   draft: ['proposed'],
   proposed: ['accepted', 'withdrawn'],
   accepted: ['superseded', 'withdrawn'],
   superseded: [],
   withdrawn: [],
 };
-const LESSON_MOVES: Record<string, string[]> = {
+const LESSON_MOVES: Record<LessonStatus, readonly LessonStatus[]> = {
   open: ['addressed'],
   addressed: [],
 };
 
-export const STATUSES: Record<RecordKind, string[]> = {
-  decision: Object.keys(DECISION_MOVES),
-  lesson: Object.keys(LESSON_MOVES),
+const STATUSES: Record<RecordKind, readonly RecordStatus[]> = {
+  decision: DECISION_STATUSES,
+  lesson: LESSON_STATUSES,
 };
 
-export const INITIAL_STATUS: Record<RecordKind, string> = { decision: 'draft', lesson: 'open' };
+export const INITIAL_STATUS: Record<RecordKind, RecordStatus> = {
+  decision: DECISION_STATUSES[0],
+  lesson: LESSON_STATUSES[0],
+};
 
 /** The statuses a record of this kind may move to from `from`. */
-export function nextStatuses(kind: RecordKind, from: string): string[] {
-  return (kind === 'decision' ? DECISION_MOVES : LESSON_MOVES)[from] ?? [];
+export function nextStatuses(kind: RecordKind, from: string): readonly RecordStatus[] {
+  const moves: Record<string, readonly RecordStatus[] | undefined> =
+    kind === 'decision' ? DECISION_MOVES : LESSON_MOVES;
+  return moves[from] ?? [];
 }
 
 export function canMove(kind: RecordKind, from: string, to: string): boolean {
-  return nextStatuses(kind, from).includes(to);
+  return nextStatuses(kind, from).some((s) => s === to);
 }
 
 /** Superseding always names the record that replaces it. */
@@ -37,5 +50,5 @@ export function needsReplacement(to: string): boolean {
 }
 
 export function isValidStatus(kind: RecordKind, status: string): boolean {
-  return STATUSES[kind].includes(status);
+  return STATUSES[kind].some((s) => s === status);
 }

@@ -1,5 +1,6 @@
 import { describe, it, expect } from 'vitest';
-import { can, ALL_ACTIONS, type Action, type Role } from '../../src/lib/policy';
+import type { Role } from '../../src/lib/domain';
+import { can, ALL_ACTIONS, type Action } from '../../src/lib/policy';
 
 // The permissions of PRODUCT.md ("People and roles"), written out in full so a change to the policy
 // shows up here as a deliberate edit. C = only for the current season's work.

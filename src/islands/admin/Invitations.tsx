@@ -1,7 +1,8 @@
 import { useState, type FormEvent } from 'react';
 import useSWR from 'swr';
 import { apiFetch, ApiError, fetcher } from '~/lib/client/api';
-import { ROLE_LABELS, type Role } from '~/lib/policy';
+import type { Role } from '~/lib/domain';
+import { ROLE_LABELS } from '~/lib/policy';
 import { RoleOptions, SubsystemChecks } from './pickers';
 
 interface Invitation {

@@ -1,6 +1,6 @@
 import { useState, type FormEvent } from 'react';
 import { apiFetch, ApiError } from '~/lib/client/api';
-import type { Role } from '~/lib/policy';
+import type { Role } from '~/lib/domain';
 import { RoleOptions, SubsystemChecks } from './pickers';
 
 interface Props {

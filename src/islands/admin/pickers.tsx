@@ -1,5 +1,6 @@
 // The role list and the "owns these subsystems" checkboxes, shared by the invitation form and the person editor.
-import { ROLE_LABELS, type Role } from '~/lib/policy';
+import type { Role } from '~/lib/domain';
+import { ROLE_LABELS } from '~/lib/policy';
 
 /** One <option> per role, in the policy's order. */
 export function RoleOptions() {

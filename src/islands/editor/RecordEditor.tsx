@@ -4,6 +4,7 @@ import useSWR from 'swr';
 import { recordExtensions } from '~/lib/editor/extensions';
 import { templateFor } from '~/lib/editor/templates';
 import { apiFetch, ApiError, fetcher } from '~/lib/client/api';
+import { LESSON_SOURCES, type LessonSource, type RecordKind } from '~/lib/domain';
 import Toolbar from './Toolbar';
 import LinkPicker, { type PickOption } from './LinkPicker';
 import { draftKey, readDraft, writeDraft, clearDraft, type Draft } from './drafts';
@@ -11,7 +12,7 @@ import { draftKey, readDraft, writeDraft, clearDraft, type Draft } from './draft
 export interface EditableRecord {
   id: string;
   version: number;
-  kind: 'decision' | 'lesson';
+  kind: RecordKind;
   title: string;
   subsystem: string;
   seasonId: string;
@@ -23,7 +24,7 @@ export interface EditableRecord {
 
 interface Props {
   record?: EditableRecord;
-  kind?: 'decision' | 'lesson';
+  kind?: RecordKind;
   subsystems: { slug: string; name: string }[];
   seasons: { id: string; name: string; current: boolean }[];
   canPickSeason: boolean;
@@ -47,12 +48,12 @@ interface Conflict {
   updatedBy: string | null;
 }
 
-const SOURCES = [
-  { value: 'testing', label: 'Testing' },
-  { value: 'building', label: 'Building' },
-  { value: 'racing', label: 'Racing' },
-  { value: 'organising', label: 'Organising' },
-];
+const SOURCE_LABELS: Record<LessonSource, string> = {
+  testing: 'Testing',
+  building: 'Building',
+  racing: 'Racing',
+  organising: 'Organising',
+};
 
 export default function RecordEditor({
   record,
@@ -445,9 +446,9 @@ export default function RecordEditor({
               value={fields.source}
               onChange={(e) => set('source', e.target.value)}
             >
-              {SOURCES.map((s) => (
-                <option key={s.value} value={s.value}>
-                  {s.label}
+              {LESSON_SOURCES.map((s) => (
+                <option key={s} value={s}>
+                  {SOURCE_LABELS[s]}
                 </option>
               ))}
             </select>

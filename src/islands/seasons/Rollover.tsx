@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { apiFetch, ApiError } from '~/lib/client/api';
-import type { Member, Season } from './SeasonAdmin';
+import type { RolloverMember, Season } from '~/lib/schemas/seasons';
 
 interface Change {
   userId: string;
@@ -15,7 +15,7 @@ export default function Rollover({
   current,
 }: {
   seasons: Season[];
-  members: Member[];
+  members: RolloverMember[];
   current: string;
 }) {
   const [target, setTarget] = useState(seasons[0]?.id ?? '');

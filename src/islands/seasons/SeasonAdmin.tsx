@@ -1,24 +1,10 @@
 import { lazy, Suspense, useState, type FormEvent } from 'react';
 import { apiFetch, ApiError } from '~/lib/client/api';
-
-export interface Season {
-  id: string;
-  name: string;
-  startsOn: string;
-  endsOn: string;
-  phase: string;
-  current: boolean;
-}
-export interface Member {
-  id: string;
-  name: string;
-  subsystems: string[];
-}
-
-const PHASES = ['design', 'build', 'test', 'race', 'handover'];
+import { SEASON_PHASES } from '~/lib/domain';
+import type { RolloverMember, Season } from '~/lib/schemas/seasons';
 
 /** Leads open seasons, move their phase, make one current, and roll the team over to a new season. */
-export default function SeasonAdmin({ seasons, members }: { seasons: Season[]; members: Member[] }) {
+export default function SeasonAdmin({ seasons, members }: { seasons: Season[]; members: RolloverMember[] }) {
   return (
     <div className="flex flex-col gap-8">
       <OpenSeason />
@@ -98,7 +84,7 @@ function OpenSeason() {
             value={f.phase}
             onChange={(e) => setF({ ...f, phase: e.target.value })}
           >
-            {PHASES.map((p) => (
+            {SEASON_PHASES.map((p) => (
               <option key={p} value={p}>
                 {p}
               </option>
@@ -115,7 +101,7 @@ function OpenSeason() {
 }
 
 function SeasonRow({ season }: { season: Season }) {
-  const [phase, setPhase] = useState(season.phase);
+  const [phase, setPhase] = useState<string>(season.phase);
   const [error, setError] = useState('');
   async function patch(body: object) {
     setError('');
@@ -140,7 +126,7 @@ function SeasonRow({ season }: { season: Season }) {
           value={phase}
           onChange={(e) => setPhase(e.target.value)}
         >
-          {PHASES.map((p) => (
+          {SEASON_PHASES.map((p) => (
             <option key={p} value={p}>
               {p}
             </option>
@@ -180,7 +166,7 @@ function SeasonRow({ season }: { season: Season }) {
 // The rollover wizard is used once a year: its code loads only when a lead opens it.
 const Rollover = lazy(() => import('./Rollover'));
 
-function RolloverLauncher(props: { seasons: Season[]; members: Member[]; current: string }) {
+function RolloverLauncher(props: { seasons: Season[]; members: RolloverMember[]; current: string }) {
   const [open, setOpen] = useState(false);
   if (!open) {
     return (

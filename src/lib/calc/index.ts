@@ -11,7 +11,6 @@ import type { CalcResult, Calculator } from './types';
 import { waterCalculator } from './water';
 
 export type * from './types';
-export { OutOfRangeError } from './errors';
 
 export const calculators = Object.freeze({
   water: waterCalculator,

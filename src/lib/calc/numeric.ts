@@ -7,21 +7,6 @@ export function linspace(a: number, b: number, n: number): number[] {
   return out;
 }
 
-/** Root of f on [lo, hi] where f(lo) and f(hi) differ in sign; bisection, so it always terminates. */
-export function bisect(f: (x: number) => number, lo: number, hi: number, tol = 1e-10, maxIter = 200): number {
-  let flo = f(lo);
-  for (let i = 0; i < maxIter; i++) {
-    const mid = 0.5 * (lo + hi);
-    const fm = f(mid);
-    if (fm === 0 || hi - lo < tol * Math.max(1, Math.abs(mid))) return mid;
-    if (Math.sign(fm) === Math.sign(flo)) {
-      lo = mid;
-      flo = fm;
-    } else hi = mid;
-  }
-  return 0.5 * (lo + hi);
-}
-
 /** Brent's method (inverse quadratic interpolation with bisection fallback); f(a), f(b) must bracket a root. */
 export function brent(f: (x: number) => number, a: number, b: number, tol = 1e-12, maxIter = 100): number {
   let fa = f(a);

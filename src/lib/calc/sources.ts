@@ -95,8 +95,3 @@ export const SRC_ETB_EG: Source = {
     'The Engineering ToolBox, "Ethylene Glycol Heat-Transfer Fluid", table of dynamic viscosity of ethylene glycol solutions (% by volume).',
   use: 'Viscosity of a 50 % (by volume) ethylene-glycol coolant for the pipe Reynolds number.',
 };
-export const SRC_RANKINE_FROUDE: Source = {
-  citation:
-    'W.J.M. Rankine (1865), Trans. Inst. Naval Architects 6, 13–39; R.E. Froude (1889), Trans. Inst. Naval Architects 30, 390–405 (actuator-disk momentum theory).',
-  use: 'Ideal propulsive efficiency η_ideal = 2/(1 + √(1 + C_T)), an upper bound for any propeller.',
-};

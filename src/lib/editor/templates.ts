@@ -1,4 +1,5 @@
 import type { JSONContent } from '@tiptap/core';
+import type { RecordKind } from '../domain';
 
 export const DECISION_SECTIONS = ['Context', 'Options considered', 'Decision', 'Consequences'] as const;
 export const LESSON_SECTIONS = ['What happened', 'Impact', 'Root cause', 'Recommendation for the next cohort'] as const;
@@ -15,7 +16,7 @@ const HINTS: Record<string, string> = {
 };
 
 /** A new record opens with its kind's sections as headings, each with a one-line prompt to replace. */
-export function templateFor(kind: 'decision' | 'lesson'): JSONContent {
+export function templateFor(kind: RecordKind): JSONContent {
   const sections = kind === 'decision' ? DECISION_SECTIONS : LESSON_SECTIONS;
   return {
     type: 'doc',

@@ -1,12 +1,11 @@
+// Pure auth inputs, safe anywhere. The schemas that choose a password carry the breach list and live in
+// lib/server/auth/new-password.ts.
 import { z } from 'zod';
-import { typedLine } from './text';
-import { newPasswordSchema } from './password';
 
 export const signInInputSchema = z.object({
   email: z.string().trim().min(1, 'Enter your e-mail address.').max(254).pipe(z.email('Enter a valid e-mail address.')),
   password: z.string().min(1, 'Enter your password.').max(1024, 'That password is too long.'),
 });
-export type SignInInput = z.infer<typeof signInInputSchema>;
 
 /** Tokens from e-mailed links: URL-safe base64, never longer than this (ours are 27 characters). */
 export const linkTokenSchema = z
@@ -15,18 +14,6 @@ export const linkTokenSchema = z
   .max(128, 'That link is not valid.')
   .regex(/^[A-Za-z0-9_-]+$/, 'That link is not valid.');
 
-export const acceptInvitationSchema = z.object({
-  token: linkTokenSchema,
-  password: newPasswordSchema,
-  name: typedLine().trim().min(2, 'Enter your name (at least 2 characters).').max(120).optional(),
-});
-export type AcceptInvitationInput = z.infer<typeof acceptInvitationSchema>;
-
 export const requestResetSchema = z.object({
   email: signInInputSchema.shape.email,
-});
-
-export const resetPasswordSchema = z.object({
-  token: linkTokenSchema,
-  password: newPasswordSchema,
 });

@@ -1,7 +1,8 @@
 import { z } from 'zod';
+import { ONBOARDING_ITEM_KINDS } from '../domain';
 
 export const onboardingItemRefSchema = z.object({
-  kind: z.enum(['guide', 'record', 'calculation']),
+  kind: z.enum(ONBOARDING_ITEM_KINDS),
   ref: z
     .string()
     .trim()

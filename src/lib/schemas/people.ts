@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { typedLine } from './text';
+import { ROLES } from '../domain';
 
-export const ROLE_VALUES = ['lead', 'advisor', 'member', 'alumni'] as const;
 const subsystemSlugs = z
   .array(z.string().regex(/^[a-z0-9-]{1,64}$/, 'Not a subsystem.'))
   .max(20)
@@ -16,14 +16,14 @@ export const invitationInputSchema = z.object({
     .pipe(z.email('Enter a valid e-mail address.'))
     .transform((e) => e.toLowerCase()),
   name: typedLine().trim().min(2, 'Enter their name (at least 2 characters).').max(120),
-  role: z.enum(ROLE_VALUES, { error: 'Choose lead, advisor, member or alumni.' }),
+  role: z.enum(ROLES, { error: 'Choose lead, advisor, member or alumni.' }),
   subsystems: subsystemSlugs.optional().default([]),
 });
 export type InvitationInput = z.infer<typeof invitationInputSchema>;
 
 export const personPatchSchema = z
   .object({
-    role: z.enum(ROLE_VALUES, { error: 'Choose lead, advisor, member or alumni.' }).optional(),
+    role: z.enum(ROLES, { error: 'Choose lead, advisor, member or alumni.' }).optional(),
     /** The subsystems this person owns in the current season (replaces the list). */
     subsystems: subsystemSlugs.optional(),
   })
@@ -38,7 +38,7 @@ export const PEOPLE_SORTS = ['name', 'role', 'lastSignIn', 'email'] as const;
 export const peopleQuerySchema = z.object({
   q: z.string().trim().max(120).optional(),
   role: z
-    .enum(ROLE_VALUES)
+    .enum(ROLES)
     .optional()
     .or(z.literal('').transform(() => undefined)),
   season: z.string().max(64).optional(),

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { typedLine, typedText } from './text';
+import { LESSON_SOURCES, RECORD_KINDS, RECORD_STATUSES } from '../domain';
 
 const id = z
   .string()
@@ -15,17 +16,9 @@ const slug = z
   .regex(/^[a-z0-9-]+$/, 'Use a subsystem slug.');
 const ids = z.array(id).max(50).default([]);
 
-export const recordKindSchema = z.enum(['decision', 'lesson']);
-export const lessonSourceSchema = z.enum(['testing', 'building', 'racing', 'organising']);
-export const recordStatusSchema = z.enum([
-  'draft',
-  'proposed',
-  'accepted',
-  'superseded',
-  'withdrawn',
-  'open',
-  'addressed',
-]);
+export const recordKindSchema = z.enum(RECORD_KINDS);
+export const lessonSourceSchema = z.enum(LESSON_SOURCES);
+export const recordStatusSchema = z.enum(RECORD_STATUSES);
 
 /** The editor document is checked against the editor's schema on the server (records/body.ts). */
 const body = z.record(z.string(), z.unknown());

@@ -1,7 +1,25 @@
 import { z } from 'zod';
 import { typedLine, typedText } from './text';
+import { SEASON_PHASES, type SeasonPhase } from '../domain';
 
-export const PHASES = ['design', 'build', 'test', 'race', 'handover'] as const;
+/** A season as the server sends it and the season islands show it (islands import it as a type only). */
+export interface Season {
+  id: string;
+  name: string;
+  startsOn: string; // YYYY-MM-DD
+  endsOn: string;
+  phase: SeasonPhase;
+  current: boolean;
+  boat: string | null;
+}
+
+/** A member of the current season as the rollover offers them: continuing or becoming alumni. */
+export interface RolloverMember {
+  id: string;
+  name: string;
+  /** The names of the subsystems they own this season. */
+  subsystems: string[];
+}
 
 const date = z.iso.date('Use a date like 2026-10-01.');
 
@@ -10,7 +28,7 @@ export const seasonCreateSchema = z
     name: typedLine().trim().min(2, 'Name the season, e.g. 2026–27.').max(40),
     startsOn: date,
     endsOn: date,
-    phase: z.enum(PHASES).default('design'),
+    phase: z.enum(SEASON_PHASES).default('design'),
     boat: typedLine().trim().max(60).optional(),
   })
   .refine((s) => s.endsOn > s.startsOn, { path: ['endsOn'], message: 'The season must end after it starts.' });
@@ -20,7 +38,7 @@ export const seasonPatchSchema = z
     name: typedLine().trim().min(2).max(40).optional(),
     startsOn: date.optional(),
     endsOn: date.optional(),
-    phase: z.enum(PHASES).optional(),
+    phase: z.enum(SEASON_PHASES).optional(),
     boat: typedLine().trim().max(60).nullable().optional(),
     current: z.literal(true).optional(),
   })

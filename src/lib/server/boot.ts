@@ -22,7 +22,3 @@ export function ensureBooted(): Promise<void> {
   })();
   return booting;
 }
-
-export function resetBootForTests(): void {
-  booting = undefined;
-}

@@ -9,7 +9,8 @@ import { recordAudit } from './audit';
 import { currentSeason, findSeason, findSubsystem } from './seasons';
 import type { CalculationInput } from '../schemas/calculations';
 import { onCalculationChanged } from './records/hooks';
-import { can, type Role } from '../policy';
+import { can } from '../policy';
+import type { Role } from '../domain';
 import { decodeCursor, encodeCursor } from './cursor';
 
 type Actor = { id: string; email: string; role: Role };

@@ -1,7 +1,8 @@
 import { and, desc, eq, gt, inArray, isNull, or } from 'drizzle-orm';
 import type { AstroCookies } from 'astro';
 import { db } from './db/client';
-import { invitations, membershipSubsystems, seasonMemberships, subsystems, users, type Role } from './db/schema';
+import type { Role } from '../domain';
+import { invitations, membershipSubsystems, seasonMemberships, subsystems, users } from './db/schema';
 import { conflict, invalidInput, notFound } from './http';
 import { hashToken, newId, newToken } from './ids';
 import { recordAudit } from './audit';
@@ -15,7 +16,7 @@ import { latestMailTo } from './mail/outbox';
 import { linkError, type SpentReason } from './link-tokens';
 import { toPublicUser, type PublicUser } from './users';
 import type { InvitationInput } from '../schemas/people';
-import type { AcceptInvitationInput } from '../schemas/auth';
+import type { AcceptInvitationInput } from './auth/new-password';
 
 export const INVITATION_DAYS = 7;
 const DAY_MS = 24 * 3600 * 1000;

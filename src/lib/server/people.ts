@@ -1,6 +1,7 @@
 import { asc, eq } from 'drizzle-orm';
 import { db } from './db/client';
-import { users, seasons, seasonMemberships, membershipSubsystems, subsystems, type Role } from './db/schema';
+import type { Role } from '../domain';
+import { users, seasons, seasonMemberships, membershipSubsystems, subsystems } from './db/schema';
 
 export interface PersonSeason {
   seasonId: string;

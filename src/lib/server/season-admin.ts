@@ -1,17 +1,19 @@
 import { and, eq, inArray, ne } from 'drizzle-orm';
+import type { SeasonPhase } from '../domain';
 import { db } from './db/client';
 import { membershipSubsystems, seasonMemberships, seasons, subsystems, users } from './db/schema';
 import { conflict, invalidInput, notFound } from './http';
 import { newId } from './ids';
 import { recordAudit } from './audit';
-import { currentSeason, findSeason, type SeasonView } from './seasons';
+import type { Season } from '../schemas/seasons';
+import { currentSeason, findSeason } from './seasons';
 
 type Actor = { id: string; email: string };
 
 export function createSeason(
-  input: { name: string; startsOn: string; endsOn: string; phase: string; boat?: string },
+  input: { name: string; startsOn: string; endsOn: string; phase: SeasonPhase; boat?: string },
   actor: Actor,
-): SeasonView {
+): Season {
   if (db().select({ id: seasons.id }).from(seasons).where(eq(seasons.name, input.name)).get()) {
     throw conflict(`A season named “${input.name}” already exists.`);
   }
@@ -36,9 +38,16 @@ export function createSeason(
 
 export function updateSeason(
   id: string,
-  patch: { name?: string; startsOn?: string; endsOn?: string; phase?: string; boat?: string | null; current?: true },
+  patch: {
+    name?: string;
+    startsOn?: string;
+    endsOn?: string;
+    phase?: SeasonPhase;
+    boat?: string | null;
+    current?: true;
+  },
   actor: Actor,
-): SeasonView {
+): Season {
   const s = findSeason(id);
   if (!s) throw notFound('That season');
   const startsOn = patch.startsOn ?? s.startsOn;

@@ -1,18 +1,9 @@
 import { asc, desc, eq, sql } from 'drizzle-orm';
+import type { Season } from '../schemas/seasons';
 import { prepared } from './db/client';
 import { seasons, subsystems } from './db/schema';
 
-export interface SeasonView {
-  id: string;
-  name: string;
-  startsOn: string;
-  endsOn: string;
-  phase: string;
-  current: boolean;
-  boat: string | null;
-}
-
-function toView(s: typeof seasons.$inferSelect): SeasonView {
+function toView(s: typeof seasons.$inferSelect): Season {
   return {
     id: s.id,
     name: s.name,
@@ -25,20 +16,20 @@ function toView(s: typeof seasons.$inferSelect): SeasonView {
 }
 
 /** Newest season first. */
-export function listSeasons(): SeasonView[] {
+export function listSeasons(): Season[] {
   return prepared('listSeasons', (d) => d.select().from(seasons).orderBy(desc(seasons.startsOn)).prepare())
     .all()
     .map(toView);
 }
 
-export function currentSeason(): SeasonView | null {
+export function currentSeason(): Season | null {
   const s = prepared('currentSeason', (d) =>
     d.select().from(seasons).where(eq(seasons.isCurrent, true)).prepare(),
   ).get();
   return s ? toView(s) : null;
 }
 
-export function findSeason(id: string): SeasonView | null {
+export function findSeason(id: string): Season | null {
   const s = prepared('findSeason', (d) =>
     d
       .select()

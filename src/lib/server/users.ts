@@ -1,6 +1,4 @@
-import { eq } from 'drizzle-orm';
-import { db } from './db/client';
-import { users, type Role } from './db/schema';
+import type { Role } from '../domain';
 
 export interface PublicUser {
   id: string;
@@ -11,8 +9,4 @@ export interface PublicUser {
 
 export function toPublicUser(u: { id: string; email: string; name: string; role: Role }): PublicUser {
   return { id: u.id, email: u.email, name: u.name, role: u.role };
-}
-
-export function findUserById(id: string) {
-  return db().select().from(users).where(eq(users.id, id)).get();
 }

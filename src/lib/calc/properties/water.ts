@@ -53,8 +53,3 @@ export function freshWaterCp(tempC: number): number {
   const T = tempC + 273.15;
   return heatCapacities(T, liquidDensity(T, P0)).cp;
 }
-
-/** Fresh-water density kg/m³ at 0.101325 MPa (IAPWS-95). */
-export function freshWaterDensity(tempC: number): number {
-  return liquidDensity(tempC + 273.15, P0);
-}

@@ -6,7 +6,8 @@ import { DrizzleSQLiteAdapter } from '@lucia-auth/adapter-drizzle';
 import { eq } from 'drizzle-orm';
 import type { AstroCookies } from 'astro';
 import { db } from '../db/client';
-import { sessions, users, type Role } from '../db/schema';
+import type { Role } from '../../domain';
+import { sessions, users } from '../db/schema';
 import { settings } from '../config';
 
 export const SESSION_COOKIE = 'wakebook_session';
@@ -57,7 +58,6 @@ declare module 'lucia' {
   }
 }
 
-export type SessionUser = User;
 export type { Session };
 
 /** Starts a session for the user and sets its cookie. Any session the browser held before is ended (rotation). */
@@ -97,10 +97,6 @@ export async function endSession(sessionId: string | undefined, cookies: AstroCo
 /** Ends every session of a user (password reset, role removal). */
 export async function endAllSessions(userId: string): Promise<void> {
   await lucia().invalidateUserSessions(userId);
-}
-
-export function deleteExpiredSessions(): Promise<void> {
-  return lucia().deleteExpiredSessions();
 }
 
 export function countSessions(userId: string): number {

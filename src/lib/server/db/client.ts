@@ -24,7 +24,7 @@ export function openDatabase(file: string): Db {
   sqlite.pragma('busy_timeout = 5000');
   // WAL with synchronous=NORMAL is durable across process crashes (only a power loss can drop the last commits).
   sqlite.pragma('synchronous = NORMAL');
-  const db = drizzle(sqlite, { schema, casing: 'snake_case' }) as Db;
+  const db: Db = drizzle(sqlite, { schema, casing: 'snake_case' });
   migrate(db, { migrationsFolder: migrationsFolder() });
   return db;
 }
@@ -49,7 +49,7 @@ const preparedCache = new WeakMap<Db, Map<string, unknown>>();
 export function prepared<T>(key: string, build: (d: Db) => T): T {
   const d = db();
   let cache = preparedCache.get(d);
-  if (!cache) preparedCache.set(d, (cache = new Map()));
+  if (!cache) preparedCache.set(d, (cache = new Map<string, unknown>()));
   if (!cache.has(key)) cache.set(key, build(d));
   return cache.get(key) as T;
 }

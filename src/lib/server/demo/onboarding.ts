@@ -1,15 +1,13 @@
 import { existsSync, readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { z } from 'zod';
+import { ONBOARDING_ITEM_KINDS } from '../../domain';
 import { onboardingItems, onboardingProgress } from '../db/schema';
 import { newId } from '../ids';
 import type { SeedIds, Tx } from './seed-types';
 
 const schema = z.object({
-  routes: z.record(
-    z.string(),
-    z.array(z.object({ kind: z.enum(['guide', 'record', 'calculation']), ref: z.string() })),
-  ),
+  routes: z.record(z.string(), z.array(z.object({ kind: z.enum(ONBOARDING_ITEM_KINDS), ref: z.string() }))),
   progress: z.record(z.email(), z.record(z.string(), z.array(z.string()))).default({}),
 });
 

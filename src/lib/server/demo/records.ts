@@ -3,7 +3,7 @@ import { resolve } from 'node:path';
 import { parse as parseYaml } from 'yaml';
 import { z } from 'zod';
 import { attachments, comments, recordCalculations, recordLinks, recordRevisions, records } from '../db/schema';
-import type { RecordStatus } from '../db/schema';
+import { LESSON_SOURCES, RECORD_KINDS, RECORD_STATUSES } from '../../domain';
 import { newId } from '../ids';
 import { processBody } from '../records/body';
 import { sniffType } from '../filetype';
@@ -15,14 +15,14 @@ const dateish = z.union([z.date(), z.string()]).transform((v) => (v instanceof D
 
 const frontSchema = z.object({
   id: z.string().regex(/^demo-rec-[a-z0-9-]+$/),
-  kind: z.enum(['decision', 'lesson']),
+  kind: z.enum(RECORD_KINDS),
   title: z.string(),
   subsystem: z.string(),
   season: z.string(),
-  status: z.string(),
+  status: z.enum(RECORD_STATUSES),
   author: z.email(),
   createdAt: dateish,
-  source: z.enum(['testing', 'building', 'racing', 'organising']).optional(),
+  source: z.enum(LESSON_SOURCES).optional(),
   calculations: z.array(z.string()).default([]),
   related: z.array(z.string()).default([]),
   supersedes: z.string().optional(),
@@ -107,7 +107,7 @@ export function seedRecords(
         title: r.title,
         subsystemSlug: r.subsystem,
         seasonId,
-        status: r.status as RecordStatus,
+        status: r.status,
         source: r.source ?? null,
         authorId,
         body: body.doc,

@@ -1,8 +1,9 @@
 import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { z } from 'zod';
+import { ROLES, SEASON_PHASES } from '../../domain';
 
-const role = z.enum(['lead', 'advisor', 'member', 'alumni']);
+const role = z.enum(ROLES);
 
 export const demoTeamSchema = z.object({
   team: z.object({ name: z.string(), university: z.string(), boat: z.string() }),
@@ -12,7 +13,7 @@ export const demoTeamSchema = z.object({
         name: z.string(),
         startsOn: z.iso.date(),
         endsOn: z.iso.date(),
-        phase: z.enum(['design', 'build', 'test', 'race', 'handover']),
+        phase: z.enum(SEASON_PHASES),
         current: z.boolean(),
         boat: z.string().optional(),
       }),

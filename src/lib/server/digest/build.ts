@@ -1,5 +1,6 @@
 import { and, desc, eq, gte, inArray, isNull, ne, notInArray, or } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/sqlite-core';
+import type { RecordKind } from '../../domain';
 import { db } from '../db/client';
 import {
   calculations,
@@ -24,7 +25,7 @@ export interface Digest {
   counts: { decisions: number; lessons: number; comments: number; onboarding: number };
 }
 
-function newRecords(kind: 'decision' | 'lesson', since: Date, base: string) {
+function newRecords(kind: RecordKind, since: Date, base: string) {
   return db()
     .select({
       id: records.id,

@@ -1,6 +1,7 @@
 // The words of each e-mail Wakebook sends. Links end with the token as their last path segment (API.md).
 import { renderEmail, type EmailSection, type RenderedEmail } from './layout';
-import { ROLE_LABELS, type Role } from '../../policy';
+import type { Role } from '../../domain';
+import { ROLE_LABELS } from '../../policy';
 
 const fmtDate = (d: Date) => d.toISOString().slice(0, 10);
 

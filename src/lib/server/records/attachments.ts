@@ -10,7 +10,7 @@ import { receiveFile } from '../multipart';
 import { discardIncoming, keepIncoming, openStored } from '../storage';
 import { attachmentView, type AttachmentView } from './view';
 import { loadForWrite } from './write';
-import type { Role } from '../../policy';
+import type { Role } from '../../domain';
 
 export function maxUploadBytes(): number {
   return settings().WAKEBOOK_MAX_UPLOAD_MB * 1024 * 1024;

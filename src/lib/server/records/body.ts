@@ -140,7 +140,3 @@ function keepOnlyLinkHref(n: JSONContent): JSONContent {
   if (n.content) out.content = n.content.map(keepOnlyLinkHref);
   return out;
 }
-
-export function emptyDoc(): JSONContent {
-  return { type: 'doc', content: [{ type: 'paragraph' }] };
-}

@@ -1,10 +1,11 @@
 import { and, desc, eq, lt, or, isNull, sql, type SQL } from 'drizzle-orm';
+import type { RecordKind } from '../../domain';
 import { prepared } from '../db/client';
 import { decodeCursor, encodeCursor } from '../cursor';
 import { records, seasons, subsystems, users } from '../db/schema';
 
 export interface RecordListQuery {
-  kind?: 'decision' | 'lesson';
+  kind?: RecordKind;
   subsystem?: string;
   season?: string; // season id
   status?: string;

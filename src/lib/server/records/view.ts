@@ -1,5 +1,6 @@
 import { and, asc, count, desc, eq, inArray, isNull, or, sql } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/sqlite-core';
+import type { LessonSource, RecordKind, RecordStatus } from '../../domain';
 import { db, prepared } from '../db/client';
 import {
   attachments,
@@ -40,10 +41,10 @@ export interface AttachmentView {
 
 export interface RecordView {
   id: string;
-  kind: 'decision' | 'lesson';
+  kind: RecordKind;
   title: string;
-  status: string;
-  source: string | null;
+  status: RecordStatus;
+  source: LessonSource | null;
   subsystem: string;
   subsystemName: string;
   seasonId: string;

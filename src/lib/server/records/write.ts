@@ -1,7 +1,6 @@
 import { and, eq, inArray, isNull } from 'drizzle-orm';
 import { db } from '../db/client';
 import { comments, recordCalculations, recordLinks, recordRevisions, records } from '../db/schema';
-import type { RecordStatus } from '../db/schema';
 import { HttpError, conflict, invalidInput, notFound } from '../http';
 import { newId } from '../ids';
 import { recordAudit } from '../audit';
@@ -10,7 +9,8 @@ import { existingCalculationIds } from '../calculations';
 import { processBody } from './body';
 import { getRecordView, recordExists, type RecordView } from './view';
 import { canMove, INITIAL_STATUS, isValidStatus, needsReplacement } from '../../record-rules';
-import { can, type Role } from '../../policy';
+import type { RecordStatus, Role } from '../../domain';
+import { can } from '../../policy';
 import type { RecordCreateInput, RecordPatchInput } from '../../schemas/records';
 import { onRecordChanged } from './hooks';
 
@@ -57,7 +57,7 @@ function replaceLinks(tx: Tx, recordId: string, calculationIds?: string[], relat
 
 function insertRevision(
   tx: Tx,
-  r: { id: string; version: number; title: string; status: string; body: unknown; bodyText: string },
+  r: { id: string; version: number; title: string; status: RecordStatus; body: unknown; bodyText: string },
   editorId: string,
   note: string | null,
   at: Date,
@@ -106,7 +106,7 @@ export function createRecord(input: RecordCreateInput, actor: Actor): RecordView
         title: input.title,
         subsystemSlug: input.subsystem,
         seasonId: season.id,
-        status: status as RecordStatus,
+        status,
         source: input.kind === 'lesson' ? (input.source ?? null) : null,
         authorId: actor.id,
         body: body.doc,
@@ -220,7 +220,7 @@ export function updateRecord(id: string, patch: RecordPatchInput, actor: Actor):
 
 export function changeStatus(
   id: string,
-  input: { status: string; supersededBy?: string; version?: number },
+  input: { status: RecordStatus; supersededBy?: string; version?: number },
   actor: Actor,
 ): RecordView {
   const current = loadForWrite(id, actor, 'record:status');
@@ -255,7 +255,7 @@ export function changeStatus(
   db().transaction((tx) => {
     const result = tx
       .update(records)
-      .set({ status: input.status as RecordStatus, version: next, updatedAt: now, updatedById: actor.id })
+      .set({ status: input.status, version: next, updatedAt: now, updatedById: actor.id })
       .where(and(eq(records.id, id), eq(records.version, current.version)))
       .run();
     if (result.changes !== 1) throw conflict('Someone saved this record a moment ago.', {});

@@ -1,6 +1,6 @@
 import type { APIRoute } from 'astro';
 import { handle, json, readJson } from '~/lib/server/http';
-import { acceptInvitationSchema } from '~/lib/schemas/auth';
+import { acceptInvitationSchema } from '~/lib/server/auth/new-password';
 import { acceptInvitation } from '~/lib/server/invitations';
 import { clientAddress } from '~/lib/server/client-address';
 

@@ -1,6 +1,6 @@
 import type { APIRoute } from 'astro';
 import { handle, readJson } from '~/lib/server/http';
-import { resetPasswordSchema } from '~/lib/schemas/auth';
+import { resetPasswordSchema } from '~/lib/server/auth/new-password';
 import { resetPassword } from '~/lib/server/auth/reset';
 import { clientAddress } from '~/lib/server/client-address';
 

@@ -1,20 +1,12 @@
 import type { APIRoute } from 'astro';
-import { eq } from 'drizzle-orm';
-import { handle, invalidInput, json, notFound, readJson, requirePermission } from '~/lib/server/http';
-import { findSubsystem } from '~/lib/server/seasons';
+import { handle, json, readJson, requirePermission } from '~/lib/server/http';
+import { requireSubsystem, updateSubsystem } from '~/lib/server/subsystems';
 import { subsystemPatchSchema } from '~/lib/schemas/seasons';
-import { db } from '~/lib/server/db/client';
-import { subsystems } from '~/lib/server/db/schema';
-import { recordAudit } from '~/lib/server/audit';
 
+/** Renames a subsystem or edits its summary (lead). */
 export const PATCH: APIRoute = handle(async ({ locals, params, request }) => {
   const user = requirePermission(locals, 'subsystem:manage');
-  const slug = params.slug ?? '';
-  if (!findSubsystem(slug)) throw notFound('That subsystem');
+  const current = requireSubsystem(params.slug ?? '');
   const patch = await readJson(request, subsystemPatchSchema, 8 * 1024);
-  if (Object.keys(patch).length === 0)
-    throw invalidInput([{ path: '', message: 'Send a new name or summary.' }], 'Nothing to change.');
-  db().update(subsystems).set(patch).where(eq(subsystems.slug, slug)).run();
-  recordAudit({ actor: user, action: 'subsystem.update', targetType: 'subsystem', targetId: slug });
-  return json({ subsystem: findSubsystem(slug) });
+  return json({ subsystem: updateSubsystem(current, patch, user) });
 });

@@ -1,4 +1,5 @@
 import { sqliteTable, text, integer, index, uniqueIndex, primaryKey } from 'drizzle-orm/sqlite-core';
+import { ONBOARDING_ITEM_KINDS } from '../../../domain';
 import { timestamp } from './common';
 import { users, subsystems } from './people';
 
@@ -11,7 +12,7 @@ export const onboardingItems = sqliteTable(
       .notNull()
       .references(() => subsystems.slug, { onDelete: 'cascade', onUpdate: 'cascade' }),
     position: integer().notNull(),
-    kind: text().$type<'guide' | 'record' | 'calculation'>().notNull(),
+    kind: text({ enum: ONBOARDING_ITEM_KINDS }).notNull(),
     ref: text().notNull(),
     addedById: text().references(() => users.id, { onDelete: 'set null' }),
     createdAt: timestamp().notNull(),

@@ -1,12 +1,13 @@
 import { sqliteTable, text, integer, uniqueIndex, index, primaryKey } from 'drizzle-orm/sqlite-core';
 import { sql } from 'drizzle-orm';
-import { timestamp, type Role } from './common';
+import { ROLES, SEASON_PHASES } from '../../../domain';
+import { timestamp } from './common';
 
 export const users = sqliteTable('users', {
   id: text().primaryKey(),
   email: text().notNull().unique(),
   name: text().notNull(),
-  role: text().$type<Role>().notNull(),
+  role: text({ enum: ROLES }).notNull(),
   passwordHash: text().notNull(),
   digestOptIn: integer({ mode: 'boolean' }).notNull().default(false),
   createdAt: timestamp().notNull(),
@@ -33,7 +34,7 @@ export const seasons = sqliteTable(
     name: text().notNull().unique(),
     startsOn: text().notNull(), // YYYY-MM-DD
     endsOn: text().notNull(),
-    phase: text().notNull(),
+    phase: text({ enum: SEASON_PHASES }).notNull(),
     isCurrent: integer({ mode: 'boolean' }).notNull().default(false),
     boat: text(),
     createdAt: timestamp().notNull(),
@@ -65,7 +66,7 @@ export const seasonMemberships = sqliteTable(
     userId: text()
       .notNull()
       .references(() => users.id, { onDelete: 'cascade' }),
-    role: text().$type<Role>().notNull(),
+    role: text({ enum: ROLES }).notNull(),
   },
   (t) => [
     uniqueIndex('season_memberships_unique').on(t.seasonId, t.userId),
@@ -95,7 +96,7 @@ export const invitations = sqliteTable(
     id: text().primaryKey(),
     email: text().notNull(),
     name: text().notNull(),
-    role: text().$type<Role>().notNull(),
+    role: text({ enum: ROLES }).notNull(),
     subsystems: text({ mode: 'json' })
       .$type<string[]>()
       .notNull()

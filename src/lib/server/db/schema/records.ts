@@ -1,5 +1,6 @@
 import { sqliteTable, text, integer, uniqueIndex, index, primaryKey } from 'drizzle-orm/sqlite-core';
-import { timestamp, type RecordKind, type RecordStatus } from './common';
+import { LESSON_SOURCES, RECORD_KINDS, RECORD_LINK_KINDS, RECORD_STATUSES } from '../../../domain';
+import { timestamp } from './common';
 import { users, seasons, subsystems } from './people';
 import { calculations } from './calculations';
 
@@ -8,7 +9,7 @@ export const records = sqliteTable(
   'records',
   {
     id: text().primaryKey(),
-    kind: text().$type<RecordKind>().notNull(),
+    kind: text({ enum: RECORD_KINDS }).notNull(),
     title: text().notNull(),
     subsystemSlug: text()
       .notNull()
@@ -16,9 +17,9 @@ export const records = sqliteTable(
     seasonId: text()
       .notNull()
       .references(() => seasons.id),
-    status: text().$type<RecordStatus>().notNull(),
-    /** Lessons only: testing, building, racing, organising. */
-    source: text(),
+    status: text({ enum: RECORD_STATUSES }).notNull(),
+    /** Lessons only. */
+    source: text({ enum: LESSON_SOURCES }),
     authorId: text().references(() => users.id, { onDelete: 'set null' }),
     body: text({ mode: 'json' }).$type<unknown>().notNull(),
     bodyHtml: text().notNull().default(''),
@@ -50,7 +51,7 @@ export const recordRevisions = sqliteTable(
       .references(() => records.id, { onDelete: 'cascade' }),
     version: integer().notNull(),
     title: text().notNull(),
-    status: text().notNull(),
+    status: text({ enum: RECORD_STATUSES }).notNull(),
     body: text({ mode: 'json' }).$type<unknown>().notNull(),
     bodyText: text().notNull().default(''),
     editorId: text().references(() => users.id, { onDelete: 'set null' }),
@@ -70,7 +71,7 @@ export const recordLinks = sqliteTable(
     toRecordId: text()
       .notNull()
       .references(() => records.id, { onDelete: 'cascade' }),
-    kind: text().$type<'related' | 'supersedes'>().notNull(),
+    kind: text({ enum: RECORD_LINK_KINDS }).notNull(),
     createdAt: timestamp().notNull(),
   },
   (t) => [
