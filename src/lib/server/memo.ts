@@ -21,8 +21,3 @@ export function memoUntilWrite<T>(key: string, compute: () => T): T {
   }
   return value;
 }
-
-/** Forgets every memoised value (tests that swap the database). */
-export function clearMemos(): void {
-  values.clear();
-}
