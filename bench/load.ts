@@ -1,7 +1,7 @@
 // HTTP load on loopback: wrk from Debian's packages when present (it keeps a plain Node server busy on two
 // cores, which autocannon alone could not), else autocannon. Every run is bounded in time.
 import { spawnSync } from 'node:child_process';
-import { existsSync } from 'node:fs';
+import { existsSync, readFileSync } from 'node:fs';
 
 export interface LoadResult {
   name: string;
@@ -13,6 +13,10 @@ export interface LoadResult {
   tool: 'wrk' | 'autocannon';
   connections: number;
   seconds: number;
+  /** Bytes read per answer (wrk only): tells a 304 from a full page. */
+  bytes_per_req?: number;
+  /** CPU time (user + system) the server process spent per answer during the measured run. */
+  cpu_ms_per_req?: number;
 }
 
 export interface LoadOptions {
@@ -25,6 +29,8 @@ export interface LoadOptions {
   wrkScript?: string;
   /** Seconds of the same load, not measured, first: loads modules and warms the JIT (cold start is measured apart). */
   warmup?: number;
+  /** The server's process id: its CPU time over the measured run is reported per answer (Linux /proc). */
+  cpuPid?: number;
 }
 
 const WRK = ['/usr/bin/wrk', '/usr/local/bin/wrk'].find((p) => existsSync(p));
@@ -36,6 +42,16 @@ export function loadTool(): 'wrk' | 'autocannon' {
 function toMs(value: string, unit: string): number {
   const v = Number(value);
   return unit === 'us' ? v / 1000 : unit === 's' ? v * 1000 : unit === 'm' ? v * 60_000 : v;
+}
+
+const TICKS_PER_SECOND = 100; // Linux USER_HZ: /proc/<pid>/stat counts CPU time in these
+
+/** A process's CPU time so far (user + system), in milliseconds. */
+export function cpuMs(pid: number): number {
+  // Fields after the command name (which may hold spaces, inside parentheses): utime and stime are 12th and 13th.
+  const stat = readFileSync(`/proc/${pid}/stat`, 'utf8');
+  const fields = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
+  return ((Number(fields[11]) + Number(fields[12])) * 1000) / TICKS_PER_SECOND;
 }
 
 export async function runLoad(o: LoadOptions): Promise<LoadResult> {
@@ -51,7 +67,9 @@ export async function runLoad(o: LoadOptions): Promise<LoadResult> {
       return a;
     };
     if (warmup > 0) spawnSync(WRK, args(warmup), { encoding: 'utf8', timeout: (warmup + 30) * 1000 });
+    const cpu0 = o.cpuPid ? cpuMs(o.cpuPid) : NaN;
     const out = spawnSync(WRK, args(seconds), { encoding: 'utf8', timeout: (seconds + 30) * 1000 });
+    const cpu1 = o.cpuPid ? cpuMs(o.cpuPid) : NaN;
     const text = out.stdout ?? '';
     const pct = (p: string) => {
       const m = new RegExp(`^\\s*${p}%\\s+([\\d.]+)(us|ms|s|m)\\s*$`, 'm').exec(text);
@@ -62,6 +80,9 @@ export async function runLoad(o: LoadOptions): Promise<LoadResult> {
     const non2xx = Number(/Non-2xx or 3xx responses:\s+(\d+)/.exec(text)?.[1] ?? 0);
     const sock = /Socket errors: connect (\d+), read (\d+), write (\d+), timeout (\d+)/.exec(text);
     const errors = non2xx + (sock ? sock.slice(1).reduce((a, b) => a + Number(b), 0) : 0);
+    const transfer = /Transfer\/sec:\s+([\d.]+)(B|KB|MB|GB)/.exec(text);
+    const unit = { B: 1, KB: 1024, MB: 1024 ** 2, GB: 1024 ** 3 } as const;
+    const bytesPerSec = transfer ? Number(transfer[1]) * unit[transfer[2] as keyof typeof unit] : NaN;
     return {
       name: o.name,
       n,
@@ -72,6 +93,8 @@ export async function runLoad(o: LoadOptions): Promise<LoadResult> {
       tool: 'wrk',
       connections,
       seconds,
+      bytes_per_req: Math.round(bytesPerSec / rps),
+      ...(o.cpuPid ? { cpu_ms_per_req: n > 0 ? (cpu1 - cpu0) / n : NaN } : {}),
     };
   }
   const { default: autocannon } = await import('autocannon');

@@ -40,8 +40,9 @@ export async function startBuiltServer(
     } catch {
       // not yet
     }
-    if (i > 300) throw new Error('server did not start');
-    await new Promise((r) => setTimeout(r, 50));
+    if (i > 1500) throw new Error('server did not start');
+    // Polled often: start to first answer is one of the figures.
+    await new Promise((r) => setTimeout(r, 10));
   }
   const startMs = performance.now() - t0;
   return {
