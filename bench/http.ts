@@ -105,7 +105,7 @@ export default async function benchHttp(opts: { seconds?: number } = {}): Promis
     if (loadTool() === 'wrk') {
       const cookies = await signInAll(server.base, emails);
       const load = (name: string, script: string) =>
-        runLoad({ name, url: `${server.base}/`, seconds, wrkScript: script, cpuPid: server.child.pid });
+        runLoad({ name, url: `${server.base}/`, seconds, wrkScript: script, cpuPid: server.child.pid, warmup: 5 });
       const mixed = await load('http.mixed-people', writePeopleScript({ cookies, paths, writes, writePercent: 10 }));
       out.push(report(mixed, ceiling, { people: cookies.length, urls: paths.length, write_percent: 10 }));
       // Each person's tag for each path, read after the writes; from here on nothing is written.

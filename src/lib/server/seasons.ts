@@ -23,8 +23,14 @@ export function listSeasons(): Season[] {
 }
 
 export function currentSeason(): Season | null {
+  // A literal 1, not a bound value: with a parameter SQLite cannot know that the partial index on is_current = 1
+  // applies, and prepares the statement again on every call.
   const s = prepared('currentSeason', (d) =>
-    d.select().from(seasons).where(eq(seasons.isCurrent, true)).prepare(),
+    d
+      .select()
+      .from(seasons)
+      .where(sql`${seasons.isCurrent} = 1`)
+      .prepare(),
   ).get();
   return s ? toView(s) : null;
 }

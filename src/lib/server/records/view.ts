@@ -1,4 +1,4 @@
-import { and, asc, count, desc, eq, inArray, isNull, or, sql } from 'drizzle-orm';
+import { and, asc, count, desc, eq, isNull, or, sql } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/sqlite-core';
 import type { LessonSource, RecordKind, RecordStatus } from '../../domain';
 import { db, prepared } from '../db/client';
@@ -80,14 +80,28 @@ export function attachmentView(a: typeof attachments.$inferSelect): AttachmentVi
   };
 }
 
+/**
+ * The records that ids name, in one statement prepared once: the ids travel as one JSON array parameter, so a
+ * different number of links does not build and prepare new SQL on every read.
+ */
 function refs(ids: string[]): Map<string, RecordRef> {
   if (ids.length === 0) return new Map();
-  const rows = db()
-    .select({ id: records.id, title: records.title, kind: records.kind, status: records.status, season: seasons.name })
-    .from(records)
-    .innerJoin(seasons, eq(seasons.id, records.seasonId))
-    .where(and(inArray(records.id, ids), isNull(records.deletedAt)))
-    .all();
+  const rows = prepared('record.refs', (d) =>
+    d
+      .select({
+        id: records.id,
+        title: records.title,
+        kind: records.kind,
+        status: records.status,
+        season: seasons.name,
+      })
+      .from(records)
+      .innerJoin(seasons, eq(seasons.id, records.seasonId))
+      .where(
+        and(sql`${records.id} in (select value from json_each(${sql.placeholder('ids')}))`, isNull(records.deletedAt)),
+      )
+      .prepare(),
+  ).all({ ids: JSON.stringify(ids) });
   return new Map(rows.map((r) => [r.id, { ...r, url: `/records/${r.id}` }]));
 }
 
