@@ -5,16 +5,22 @@
 import { settings, type Settings } from './config';
 import { closeDatabase, db } from './db/client';
 
-export async function prepare(): Promise<Settings> {
+/** Validates the settings, opens the database (applying migrations) and seeds the demo when asked and empty. */
+export async function openAndSeed(): Promise<Settings> {
   const s = settings();
   const d = db();
+  // The seed brings the server-side editor schema (about half a second to load): import it only when needed.
+  if (s.WAKEBOOK_DEMO && !d.$client.prepare('select 1 from users limit 1').get()) {
+    await (await import('./demo/seed')).seedDemoIfEmpty();
+  }
+  return s;
+}
+
+/** openAndSeed() for the start file, which then hands the database to the app. */
+export async function prepare(): Promise<Settings> {
   try {
-    // The seed brings the server-side editor schema (about half a second to load): import it only when needed.
-    if (s.WAKEBOOK_DEMO && !d.$client.prepare('select 1 from users limit 1').get()) {
-      await (await import('./demo/seed')).seedDemoIfEmpty();
-    }
+    return await openAndSeed();
   } finally {
     closeDatabase();
   }
-  return s;
 }
