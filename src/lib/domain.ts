@@ -31,3 +31,11 @@ export const RECORD_LINK_KINDS = ['related', 'supersedes'] as const;
 
 /** What a step of an onboarding route points at. */
 export const ONBOARDING_ITEM_KINDS = ['guide', 'record', 'calculation'] as const;
+
+/** A comment on a record is a question (which can be answered) or a note. Answers are notes replying to a question. */
+export const COMMENT_KINDS = ['question', 'note'] as const;
+export type CommentKind = (typeof COMMENT_KINDS)[number];
+
+/** Where a suggested change to a guide stands. */
+export const SUGGESTION_STATES = ['open', 'done', 'declined'] as const;
+export type SuggestionState = (typeof SUGGESTION_STATES)[number];

@@ -3,3 +3,4 @@ export * from './people';
 export * from './records';
 export * from './calculations';
 export * from './activity';
+export * from './guides';

@@ -10,6 +10,10 @@ export const users = sqliteTable('users', {
   role: text({ enum: ROLES }).notNull(),
   passwordHash: text().notNull(),
   digestOptIn: integer({ mode: 'boolean' }).notNull().default(false),
+  /** E-mail me when someone asks a question on my records or on a subsystem I owned in an earlier season. */
+  notifyQuestions: integer({ mode: 'boolean' }).notNull().default(true),
+  /** E-mail me when one of my questions is answered. */
+  notifyAnswers: integer({ mode: 'boolean' }).notNull().default(true),
   createdAt: timestamp().notNull(),
   lastSignInAt: timestamp(),
 });
@@ -52,6 +56,8 @@ export const subsystems = sqliteTable('subsystems', {
   name: text().notNull(),
   summary: text().notNull().default(''),
   position: integer().notNull().default(0),
+  /** Whether a design calculator applies here, so readiness asks accepted decisions to link a calculation. */
+  calculationsApply: integer({ mode: 'boolean' }).notNull().default(true),
   createdAt: timestamp().notNull(),
 });
 

@@ -1,5 +1,5 @@
 import { sqliteTable, text, integer, uniqueIndex, index, primaryKey } from 'drizzle-orm/sqlite-core';
-import { LESSON_SOURCES, RECORD_KINDS, RECORD_LINK_KINDS, RECORD_STATUSES } from '../../../domain';
+import { COMMENT_KINDS, LESSON_SOURCES, RECORD_KINDS, RECORD_LINK_KINDS, RECORD_STATUSES } from '../../../domain';
 import { timestamp } from './common';
 import { users, seasons, subsystems } from './people';
 import { calculations } from './calculations';
@@ -123,9 +123,13 @@ export const comments = sqliteTable(
       .references(() => records.id, { onDelete: 'cascade' }),
     authorId: text().references(() => users.id, { onDelete: 'set null' }),
     parentId: text(),
+    /** A question can be marked answered; a note (answers are notes replying to a question) cannot. */
+    kind: text({ enum: COMMENT_KINDS }).notNull().default('note'),
     body: text().notNull(),
     createdAt: timestamp().notNull(),
     editedAt: timestamp(),
+    answeredAt: timestamp(),
+    answeredById: text().references(() => users.id, { onDelete: 'set null' }),
   },
   (t) => [index('comments_record_idx').on(t.recordId, t.createdAt), index('comments_created_idx').on(t.createdAt)],
 );
