@@ -22,7 +22,7 @@ function initialRaw(inputs: InputMeta[], given: Record<string, unknown> = {}): R
   const raw: Raw = {};
   for (const m of inputs) {
     const v = given[m.name] ?? (m.optional ? undefined : m.default);
-    raw[m.name] = v === undefined || v === null ? '' : String(v);
+    raw[m.name] = v === undefined || v === null ? '' : String(v as string | number);
   }
   return raw;
 }
@@ -149,6 +149,9 @@ export default function CalculatorForm({
             {!embedded && datasets.map((d, i) => <LineChart key={i} datasets={d} />)}
             {embedded && datasets[0] && <LineChart datasets={datasets[0]} height={220} />}
             {run.result.grid && <GridTable grid={run.result.grid} />}
+            {run.result.grids?.map((g) => (
+              <GridTable key={g.title} grid={g} />
+            ))}
           </>
         )}
         {!embedded && canSave && run.ok && (

@@ -174,7 +174,10 @@ export function solveEnvelopeSpeed(
 ): { op: SelfPropulsionPoint; limitedBy: RaceLimit; energySpeed: number | null } {
   const [vLo, vHi] = SPEED_SEARCH;
   if (!(power > 0))
-    throw new OutOfRangeError('batteryEnergy_Wh', 'The energy budget gives no shaft power, so there is no operating point.');
+    throw new OutOfRangeError(
+      'batteryEnergy_Wh',
+      'The energy budget gives no shaft power, so there is no operating point.',
+    );
   const lo = selfPropulsion(ctx, vLo);
   if (lo.shaftPower > power)
     throw new OutOfRangeError(

@@ -162,13 +162,13 @@ function hermiteCrossing(f0: number, f1: number, d0h: number, d1h: number, targe
 const CRUISE = 1 - 1e-6;
 
 /**
- * Integrates dv/dt = accel(v), dx/dt = v from rest (RK4, steps sized so that v changes by about 1 % of the top
+ * Integrates dv/dt = accel(v), dx/dt = v from rest (RK4, steps sized so that v changes by about 2 % of the top
  * speed, and no longer than the time constant of the approach to the top speed, which keeps the steps stable)
  * until the boat has covered `distance` and reached 90 % of vTop.
  */
 export function integrateStandingStart(accel: (v: number) => number, vTop: number, distance: number): StandingStart {
   const v90 = 0.9 * vTop;
-  const dvStep = 0.01 * vTop;
+  const dvStep = 0.02 * vTop;
   // time constant near the top speed: 1/λ with λ = −da/dv, from the slope between 0.95·vTop and vTop
   const lambda = accel(0.95 * vTop) / (0.05 * vTop);
   const hMax = Math.min(2, lambda > 0 ? 1 / lambda : 2);
@@ -248,7 +248,9 @@ export function sprintCavitation(ctx: SprintContext, run: SprintRun, env: Cavita
   return cavitationCheck(r.prop, r.D, f.n, run.topSpeed * (1 - r.wake), f.thrust, env);
 }
 
-export function sprintContext(input: SprintInput | (Omit<SprintInput, 'mass_kg' | 'distance_m'> & { mass_kg: number })): SprintContext {
+export function sprintContext(
+  input: SprintInput | (Omit<SprintInput, 'mass_kg' | 'distance_m'> & { mass_kg: number }),
+): SprintContext {
   return {
     race: raceContext(input),
     mass: input.mass_kg,

@@ -355,7 +355,9 @@ export const sweepCalculator: Calculator<SweepInput, SweepOutput> = {
     if (failed > 0)
       warnings.push(`${failed} of ${evaluated} propellers have no operating point on this budget (empty cells).`);
     if (sprintFailed > 0)
-      warnings.push(`${sprintFailed} of ${evaluated} propellers have no sprint result within this model (empty cells).`);
+      warnings.push(
+        `${sprintFailed} of ${evaluated} propellers have no sprint result within this model (empty cells).`,
+      );
     const failuresE = cellsE.filter((c) => !c.ok).length;
     const failuresS = cellsS.filter((c) => !c.ok).length;
     if (!bestE.passes)
@@ -378,7 +380,9 @@ export const sweepCalculator: Calculator<SweepInput, SweepOutput> = {
         'The best endurance propeller lies on the edge of the grid: the optimum may be outside the range swept.',
       );
     if (sEdge)
-      warnings.push('The best sprint propeller lies on the edge of the grid: the optimum may be outside the range swept.');
+      warnings.push(
+        'The best sprint propeller lies on the edge of the grid: the optimum may be outside the range swept.',
+      );
     warnings.push(
       'Cavitation is screened with Burrill’s and Keller’s criteria only; ventilation from the surface is not modelled, and a heavily loaded propeller close to the surface can lose much of its thrust.',
     );
