@@ -22,7 +22,7 @@ function initialRaw(inputs: InputMeta[], given: Record<string, unknown> = {}): R
   const raw: Raw = {};
   for (const m of inputs) {
     const v = given[m.name] ?? (m.optional ? undefined : m.default);
-    raw[m.name] = v === undefined || v === null ? '' : String(v as string | number);
+    raw[m.name] = v === undefined || v === null ? '' : String(v);
   }
   return raw;
 }
