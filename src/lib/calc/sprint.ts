@@ -106,7 +106,8 @@ export function thrustAt(ctx: SprintContext, v: number): ThrustAt {
   const vA = v * (1 - r.wake);
   const { n, limitedBy } = allowedRevs(r.prop, r.D, vA, r.rho, ctx.env);
   const J = n > 0 ? vA / (n * r.D) : 0;
-  const kt = cubic(r.prop.kt, J);
+  // beyond the zero-thrust advance ratio the cubic is outside the series and may turn up again: no thrust there
+  const kt = J < r.prop.jZeroThrust ? cubic(r.prop.kt, J) : 0;
   return {
     thrust: Math.max(0, kt * r.rho * n * n * r.D ** 4),
     n,
@@ -314,15 +315,19 @@ export const sprintCalculator: Calculator<SprintInput, SprintOutput> = {
     warnings.push(
       'The added mass of the water, wave-making resistance, trim changes and the motor’s and battery’s response time are left out: real sprints are somewhat slower; compare propellers with each other.',
     );
-    // the run up to the finish line (the integration may go on to reach 90 % of top speed)
+    // the run up to the finish line (the integration may go on to reach 90 % of top speed), ending on the line
     let last = run.t.findIndex((t) => t >= run.time_s);
-    if (last < 0) last = run.t.length - 1;
+    if (last < 1) last = run.t.length - 1;
+    const f = (run.time_s - run.t[last - 1]) / (run.t[last] - run.t[last - 1]);
+    const ts = [...run.t.slice(0, last), run.time_s];
+    const vs = [...run.v.slice(0, last), run.v[last - 1] + f * (run.v[last] - run.v[last - 1])];
+    const xs = [...run.x.slice(0, last), input.distance_m];
     const runSeries: SeriesSet = {
       title: 'Speed and distance against time',
-      x: { name: 'time_s', label: 'Time', unit: 's', values: run.t.slice(0, last + 1) },
+      x: { name: 'time_s', label: 'Time', unit: 's', values: ts },
       y: [
-        { name: 'speed_mps', label: 'Speed', unit: 'm/s', values: run.v.slice(0, last + 1) },
-        { name: 'distance_m', label: 'Distance', unit: 'm', values: run.x.slice(0, last + 1) },
+        { name: 'speed_mps', label: 'Speed', unit: 'm/s', values: vs },
+        { name: 'distance_m', label: 'Distance', unit: 'm', values: xs },
       ],
     };
     const speeds = linspace(0, run.topSpeed * 1.1, 34);
