@@ -126,12 +126,24 @@ describe('every calculator', () => {
   });
 
   it('cautions are present where people can get hurt', () => {
-    for (const k of ['propeller', 'race', 'propeller-sweep', 'energy', 'cable', 'cooling'] as const) {
+    for (const k of [
+      'propeller',
+      'race',
+      'propeller-sweep',
+      'energy',
+      'cable',
+      'cooling',
+      'sprint',
+      'battery',
+    ] as const) {
       expect(calculators[k].cautions.length, k).toBeGreaterThan(0);
       expect(calculators[k].cautions.join(' '), k).toMatch(/race rules|qualified/);
     }
     expect(calculators.propeller.cautions.join(' ')).toMatch(/propeller/i);
     expect(calculators.cooling.cautions.join(' ')).toMatch(/pressure/i);
     expect(calculators.cable.cautions.join(' ')).toMatch(/fuse/i);
+    expect(calculators.sprint.cautions.join(' ')).toMatch(/propeller/i);
+    expect(calculators.battery.cautions.join(' ')).toMatch(/fuse/i);
+    expect(calculators.battery.cautions.join(' ')).toMatch(/thermal runaway/i);
   });
 });
