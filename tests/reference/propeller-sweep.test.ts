@@ -71,8 +71,8 @@ describe('propeller sweep with sprint scoring (defaults)', () => {
     expect(result.grid!.picks).toEqual([
       expect.objectContaining({ x: o.bestEnduranceBladeAreaRatio, y: o.bestEndurancePitchRatio }),
     ]);
-    expect(o.sprintBest).toContain(`P/D ${o.bestSprintPitchRatio.toFixed(2)}`);
-    expect(o.enduranceBest).toContain(`P/D ${o.bestEndurancePitchRatio.toFixed(2)}`);
+    expect(o.sprintBest).toContain(`P/D ${(o.bestSprintPitchRatio as number).toFixed(2)}`);
+    expect(o.enduranceBest).toContain(`P/D ${(o.bestEndurancePitchRatio as number).toFixed(2)}`);
   });
 
   it('a pick on the grid’s edge is marked so in its name and in a warning', () => {

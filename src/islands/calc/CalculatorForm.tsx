@@ -109,7 +109,7 @@ export default function CalculatorForm({
         </button>
       </form>
 
-      <section aria-labelledby={`results-${kind}`} aria-live="polite" className="flex flex-col gap-4">
+      <section aria-labelledby={`results-${kind}`} aria-live="polite" className="flex min-w-0 flex-col gap-4">
         <h2 id={`results-${kind}`} className="text-lg font-semibold">
           Results
         </h2>

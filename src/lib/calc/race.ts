@@ -131,27 +131,6 @@ export function selfPropulsion(ctx: RaceContext, V: number): SelfPropulsionPoint
   };
 }
 
-/** Speed at which the shaft power needed equals `power` (W); throws OutOfRangeError when none in SPEED_SEARCH. */
-export function solveRaceSpeed(ctx: RaceContext, power: number, powerInput = 'batteryEnergy_Wh'): SelfPropulsionPoint {
-  const [vLo, vHi] = SPEED_SEARCH;
-  if (!(power > 0))
-    throw new OutOfRangeError(powerInput, 'The energy budget gives no shaft power, so there is no operating point.');
-  const pLo = selfPropulsion(ctx, vLo).shaftPower;
-  if (pLo > power)
-    throw new OutOfRangeError(
-      powerInput,
-      `The budget (${power.toFixed(0)} W at the shaft) is too small to push the boat even at ${vLo} m/s with this propeller.`,
-    );
-  const pHi = selfPropulsion(ctx, vHi).shaftPower;
-  if (pHi < power)
-    throw new OutOfRangeError(
-      powerInput,
-      `The budget (${power.toFixed(0)} W at the shaft) would drive the boat beyond ${vHi} m/s, outside this model; check the inputs.`,
-    );
-  const V = brent((v) => selfPropulsion(ctx, v).shaftPower - power, vLo, vHi, 1e-9);
-  return selfPropulsion(ctx, V);
-}
-
 const LIMIT_INPUT: Record<EnvelopeLimit, keyof MotorEnvelope> = {
   power: 'maxShaftPower_W',
   rpm: 'maxRpm',
