@@ -211,6 +211,14 @@ export function raceContext(
   };
 }
 
+/** Sources and cautions shared by race, sprint and the sweep (propeller, hull, cavitation; battery power). */
+export const propulsionSources = [
+  ...propellerSources,
+  ...resistanceSources.filter((s) => !propellerSources.includes(s)),
+  ...cavitationSources,
+];
+export const propulsionCautions = [...propellerCautions.slice(0, 2), CAUTION_BATTERY, propellerCautions[2]];
+
 export const raceCalculator: Calculator<RaceInput, RaceOutput> = {
   kind: 'race',
   title: 'Race speed on the energy budget',
@@ -250,12 +258,8 @@ export const raceCalculator: Calculator<RaceInput, RaceOutput> = {
     },
     ...cavitationOutputs('at the race point'),
   ],
-  sources: [
-    ...propellerSources,
-    ...resistanceSources.filter((s) => !propellerSources.includes(s)),
-    ...cavitationSources,
-  ],
-  cautions: [...propellerCautions.slice(0, 2), CAUTION_BATTERY, propellerCautions[2]],
+  sources: propulsionSources,
+  cautions: propulsionCautions,
   compute(input) {
     const ctx = raceContext(input);
     const budget = energyBudget(input);

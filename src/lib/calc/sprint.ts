@@ -10,20 +10,25 @@ import {
   cavitationInputs,
   cavitationOutputs,
   cavitationOutputValues,
-  cavitationSources,
   cavitationWarnings,
   type CavitationCheck,
   type CavitationEnv,
   type CavitationInput,
 } from './cavitation';
-import { CAUTION_BATTERY } from './cautions';
 import { OutOfRangeError } from './errors';
 import { num, objectSchema } from './fields';
 import { allowedRevs, envelopeInputs, type EnvelopeLimit, type MotorEnvelope } from './motor';
 import { brent, linspace } from './numeric';
-import { geometryInputs, propellerCautions, propellerSources, wakeInput, type PropellerGeometry } from './propeller';
-import { raceContext, SPEED_SEARCH, thrustDeductionInput, type RaceContext } from './race';
-import { hullInputs, hullResistance, resistanceSources, type HullInput } from './resistance';
+import { geometryInputs, wakeInput, type PropellerGeometry } from './propeller';
+import {
+  raceContext,
+  SPEED_SEARCH,
+  thrustDeductionInput,
+  type RaceContext,
+  propulsionCautions,
+  propulsionSources,
+} from './race';
+import { hullInputs, hullResistance, type HullInput } from './resistance';
 import { SRC_QUADRATIC_DRAG } from './sources';
 import type { Calculator, InputMeta, SeriesSet } from './types';
 
@@ -259,8 +264,6 @@ export function sprintContext(
   };
 }
 
-export const sprintCautions = [...propellerCautions.slice(0, 2), CAUTION_BATTERY, propellerCautions[2]];
-
 export const sprintCalculator: Calculator<SprintInput, SprintOutput> = {
   kind: 'sprint',
   title: 'Sprint from a standing start',
@@ -286,13 +289,8 @@ export const sprintCalculator: Calculator<SprintInput, SprintOutput> = {
     },
     ...cavitationOutputs('at top speed (steady full power)'),
   ],
-  sources: [
-    ...propellerSources,
-    ...resistanceSources.filter((s) => !propellerSources.includes(s)),
-    ...cavitationSources,
-    SRC_QUADRATIC_DRAG,
-  ],
-  cautions: sprintCautions,
+  sources: [...propulsionSources, SRC_QUADRATIC_DRAG],
+  cautions: propulsionCautions,
   compute(input) {
     const ctx = sprintContext(input);
     const cavEnv = cavitationEnv(input, ctx.race.rho);

@@ -5,23 +5,16 @@
 // propeller passes.
 import { z } from 'zod';
 import { B_COVERAGE, B_RANGE, bSeries, checkBSeriesRange } from './bseries';
-import {
-  cavitationCheck,
-  cavitationEnv,
-  cavitationInputs,
-  cavitationSources,
-  type CavitationInput,
-} from './cavitation';
-import { CAUTION_BATTERY } from './cautions';
+import { cavitationCheck, cavitationEnv, cavitationInputs, type CavitationInput } from './cavitation';
 import { energyBudget, energyInputs, type EnergyInput } from './energy';
 import { OutOfRangeError } from './errors';
 import { int, num, objectSchema } from './fields';
 import { linspace } from './numeric';
-import { propellerCautions, propellerSources, wakeInput } from './propeller';
+import { wakeInput } from './propeller';
 import { envelopeInputs, type MotorEnvelope } from './motor';
-import { raceContext, solveEnvelopeSpeed, thrustDeductionInput } from './race';
+import { raceContext, solveEnvelopeSpeed, thrustDeductionInput, propulsionCautions, propulsionSources } from './race';
 import { distanceInput, massInput, simulateSprint, sprintCavitation, thrustAt, type SprintContext } from './sprint';
-import { hullInputs, resistanceSources, type HullInput } from './resistance';
+import { hullInputs, type HullInput } from './resistance';
 import type { Calculator, Grid, InputMeta } from './types';
 
 export interface SweepInput extends HullInput, EnergyInput, MotorEnvelope, CavitationInput {
@@ -260,8 +253,8 @@ export const sweepCalculator: Calculator<SweepInput, SweepOutput> = {
     { name: 'enduranceCavitationFailures', label: 'Failing cavitation at the race point', unit: '', digits: 0 },
     { name: 'sprintCavitationFailures', label: 'Failing cavitation at sprint top speed', unit: '', digits: 0 },
   ],
-  sources: [...propellerSources, ...resistanceSources, ...cavitationSources],
-  cautions: [...propellerCautions.slice(0, 2), CAUTION_BATTERY, propellerCautions[2]],
+  sources: propulsionSources,
+  cautions: propulsionCautions,
   compute(input) {
     const Z = input.blades;
     if (!Number.isInteger(Z) || Z < B_RANGE.blades[0] || Z > B_RANGE.blades[1])
