@@ -18,7 +18,6 @@ export function escapeHtml(text: string): string {
 }
 
 // C0 controls and DEL carry no meaning in a snippet; whitespace runs (newlines from the editor) read as one space.
- 
 const CONTROL = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\u007F]/g;
 const clean = (s: string) => s.replace(CONTROL, '').replace(/\s+/g, ' ');
 
@@ -26,7 +25,7 @@ const clean = (s: string) => s.replace(CONTROL, '').replace(/\s+/g, ' ');
 const WORD = /[\p{L}\p{N}\p{Co}][\p{L}\p{N}\p{Co}\p{M}]*/gu;
 // The same words in lower-cased plain ASCII text (no marks or private-use characters there).
 const ASCII_WORD = /[a-z0-9]+/g;
- 
+
 const NON_ASCII = /[^\u0000-\u007f]/;
 
 interface Word {

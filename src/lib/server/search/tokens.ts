@@ -5,7 +5,6 @@
 const TOKEN = /[\p{L}\p{N}\p{Co}]+/gu;
 const MARKS = /\p{M}+/gu;
 
- 
 const ASCII = /^[\u0000-\u007f]*$/;
 
 /** True when the text is plain ASCII: no marks, nothing to compose, and lower-casing keeps every offset. */
