@@ -1,7 +1,9 @@
 import { cableCalculator } from './cable';
 import { coolingCalculator } from './cooling';
 import { energyCalculator } from './energy';
+import { foilCalculator } from './foil';
 import { OutOfRangeError } from './errors';
+import { planingCalculator } from './planing';
 import { propellerCalculator } from './propeller';
 import { raceCalculator } from './race';
 import { resistanceCalculator } from './resistance';
@@ -22,6 +24,9 @@ export const calculators = Object.freeze({
   cable: cableCalculator,
   race: raceCalculator,
   'propeller-sweep': sweepCalculator,
+  // issue 15 sections 3–4 (planing, foils)
+  planing: planingCalculator,
+  foil: foilCalculator,
 } as const);
 
 export type CalculatorKind = keyof typeof calculators;
