@@ -85,16 +85,6 @@ export const SRC_FLUIDS: Source = {
     'C. Bell et al., "fluids" Python library documentation, fluids.friction (friction_factor, Colebrook, Haaland, Swamee_Jain examples).',
   use: 'Reference values for the friction-factor correlations.',
 };
-export const SRC_ASHRAE_EG: Source = {
-  citation:
-    'ASHRAE Handbook—Fundamentals, ch. 31 "Physical Properties of Secondary Coolants (Brines)", density of aqueous ethylene glycol solutions by volume (lb/ft³), as reproduced in Viega Design Manual IM-PR 566442 1114, Table 5-16.',
-  use: 'Density of a 50 % (by volume) ethylene-glycol coolant.',
-};
-export const SRC_ETB_EG: Source = {
-  citation:
-    'The Engineering ToolBox, "Ethylene Glycol Heat-Transfer Fluid", table of dynamic viscosity of ethylene glycol solutions (% by volume).',
-  use: 'Viscosity of a 50 % (by volume) ethylene-glycol coolant for the pipe Reynolds number.',
-};
 
 // ---- Issue 15, sections 3, 4 and 6 (planing, foil, cable, coolant, solar) ----
 
