@@ -298,26 +298,19 @@ export const planingCalculator: Calculator<PlaningInput, PlaningOutput> = {
       'Prismatic hull in calm water with all forces through the centre of gravity: no spray drag, no air drag, no porpoising check and no hump (pre-planing) resistance.',
     );
 
-    const speeds = linspace(Math.max(0.6 * Math.sqrt(G * input.beam_m), 0.4 * V), 1.5 * V, 31);
-    const resistance: (number | null)[] = [];
-    const trims: (number | null)[] = [];
-    for (const v of speeds) {
+    // Speeds where the short form has an equilibrium (the chart leaves out the rest).
+    const curve = linspace(Math.max(0.6 * Math.sqrt(G * input.beam_m), 0.4 * V), 1.5 * V, 31).flatMap((v) => {
       const s = planingEquilibrium(input, v, rho, nu);
-      resistance.push(s ? s.hullResistance_N + appendage(v) : null);
-      trims.push(s ? s.trim_deg : null);
-    }
+      return s ? [{ v, R: s.hullResistance_N + appendage(v), trim: s.trim_deg }] : [];
+    });
+    const speeds = curve.map((p) => p.v);
     const series: SeriesSet = {
       title: 'Resistance, effective power and trim against speed',
       x: { name: 'speed_mps', label: 'Speed', unit: 'm/s', values: speeds },
       y: [
-        { name: 'resistance_N', label: 'Resistance', unit: 'N', values: resistance as number[] },
-        {
-          name: 'effectivePower_W',
-          label: 'Effective power',
-          unit: 'W',
-          values: resistance.map((r, i) => (r === null ? null : r * speeds[i])) as number[],
-        },
-        { name: 'trim_deg', label: 'Trim', unit: '°', values: trims as number[] },
+        { name: 'resistance_N', label: 'Resistance', unit: 'N', values: curve.map((p) => p.R) },
+        { name: 'effectivePower_W', label: 'Effective power', unit: 'W', values: curve.map((p) => p.R * p.v) },
+        { name: 'trim_deg', label: 'Trim', unit: '°', values: curve.map((p) => p.trim) },
       ],
     };
     return {

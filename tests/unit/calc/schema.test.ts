@@ -9,6 +9,8 @@ describe('every calculator', () => {
       'cable',
       'cooling',
       'energy',
+      'foil',
+      'planing',
       'propeller',
       'propeller-sweep',
       'race',
