@@ -54,35 +54,6 @@ export default function TestLogOverlay({
   const uid = useId();
   const [logIndex, setLogIndex] = useState(0);
   const log = logs[logIndex];
-  const [table, setTable] = useState<CsvTable | null>(null);
-  const [loadError, setLoadError] = useState('');
-  const [setIndex, setSetIndex] = useState(0);
-  const [xCol, setXCol] = useState(-1);
-  const [yCols, setYCols] = useState<number[]>([]);
-
-  useEffect(() => {
-    if (!log) return;
-    setTable(null);
-    setLoadError('');
-    fetch(log.url, { credentials: 'same-origin' })
-      .then((r) => (r.ok ? r.text() : Promise.reject(new Error(String(r.status)))))
-      .then((text) => setTable(parseCsv(text, MAX_ROWS)))
-      .catch(() => setLoadError(`Could not load ${log.fileName}.`));
-  }, [log]);
-
-  const chartSet = series[setIndex];
-  const numeric = useMemo(() => (table ? numericColumns(table) : []), [table]);
-  const columns = useMemo(() => (table ? table.header.map(logColumn) : []), [table]);
-
-  // Default columns: the x column whose unit converts to the chart's x unit, and every y that converts to a curve's.
-  useEffect(() => {
-    if (!table || !chartSet) return;
-    const x = numeric.find((i) => unitConversion(columns[i].unit, chartSet.x.unit)) ?? numeric[0] ?? -1;
-    setXCol(x);
-    setYCols(
-      numeric.filter((i) => i !== x && chartSet.y.some((y) => unitConversion(columns[i].unit, y.unit) !== null)),
-    );
-  }, [table, chartSet, numeric, columns]);
 
   if (logs.length === 0)
     return (
@@ -92,65 +63,132 @@ export default function TestLogOverlay({
         <code>thrust_N</code>), to draw it over these curves.
       </p>
     );
-  if (!chartSet) return <p className="text-sm text-muted">This calculation has no curve to draw a log over.</p>;
+  if (series.length === 0)
+    return <p className="text-sm text-muted">This calculation has no curve to draw a log over.</p>;
+
+  return (
+    <div className="flex flex-col gap-4">
+      {logs.length > 1 && (
+        <div className="field text-sm">
+          <label htmlFor={`${uid}-log`}>Test log</label>
+          <select
+            id={`${uid}-log`}
+            className="input py-1"
+            value={logIndex}
+            onChange={(e) => setLogIndex(Number(e.target.value))}
+          >
+            {logs.map((l, i) => (
+              <option key={l.attachmentId} value={i}>
+                {l.fileName} — {l.recordTitle}
+              </option>
+            ))}
+          </select>
+        </div>
+      )}
+      <LogView
+        key={log.attachmentId}
+        log={log}
+        kind={kind}
+        title={title}
+        subsystem={subsystem}
+        inputs={inputs}
+        series={series}
+        canSave={canSave}
+      />
+    </div>
+  );
+}
+
+/** One log: loads it, lets the person pick curves and columns, and draws it (remounted when the log changes). */
+function LogView({
+  log,
+  kind,
+  title,
+  subsystem,
+  inputs,
+  series,
+  canSave,
+}: {
+  log: OverlayLog;
+  kind: string;
+  title: string;
+  subsystem: string;
+  inputs: Record<string, unknown>;
+  series: SeriesSet[];
+  canSave: boolean;
+}) {
+  const uid = useId();
+  const [table, setTable] = useState<CsvTable | null>(null);
+  const [loadError, setLoadError] = useState('');
+  const [setIndex, setSetIndex] = useState(0);
+  // null: the default column choice for the current curves
+  const [xChoice, setXChoice] = useState<number | null>(null);
+  const [yChoice, setYChoice] = useState<number[] | null>(null);
+
+  useEffect(() => {
+    let live = true;
+    fetch(log.url, { credentials: 'same-origin' })
+      .then((r) => (r.ok ? r.text() : Promise.reject(new Error(String(r.status)))))
+      .then((text) => live && setTable(parseCsv(text, MAX_ROWS)))
+      .catch(() => live && setLoadError(`Could not load ${log.fileName}.`));
+    return () => {
+      live = false;
+    };
+  }, [log]);
+
+  const chartSet = series[setIndex];
+  const numeric = useMemo(() => (table ? numericColumns(table) : []), [table]);
+  const columns = useMemo(() => (table ? table.header.map(logColumn) : []), [table]);
+  // Default columns: the x column whose unit converts to the chart's x unit, and every y that converts to a curve's.
+  const defaultX = numeric.find((i) => unitConversion(columns[i].unit, chartSet.x.unit)) ?? numeric[0] ?? -1;
+  const xCol = xChoice ?? defaultX;
+  const yCols =
+    yChoice ??
+    numeric.filter((i) => i !== xCol && chartSet.y.some((y) => unitConversion(columns[i].unit, y.unit) !== null));
+  const toggleY = (i: number) => setYChoice(yCols.includes(i) ? yCols.filter((k) => k !== i) : [...yCols, i]);
 
   const xConv = xCol >= 0 ? unitConversion(columns[xCol]?.unit ?? '', chartSet.x.unit) : null;
   const values = (i: number) => (table ? table.rows.map((r) => Number(r[i])) : []);
-  let overlay: ChartDataset | null = null;
+  let datasets: ChartDataset[] | null = null;
   const unmatched: string[] = [];
   if (table && xCol >= 0 && xConv) {
     const order = values(xCol)
       .map((v, i) => ({ v: xConv(v), i }))
       .filter((p) => Number.isFinite(p.v))
       .sort((a, b) => a.v - b.v);
-    const ys = yCols.flatMap((c) => {
-      const target = chartSet.y.find((y) => unitConversion(columns[c].unit, y.unit) !== null);
-      if (!target) {
-        unmatched.push(columns[c].header);
-        return [];
-      }
-      const conv = unitConversion(columns[c].unit, target.unit)!;
-      const raw = values(c);
-      return [
-        {
-          name: columns[c].header,
-          label: `${columns[c].label} (logged)`,
-          unit: target.unit,
-          values: order.map((p) => conv(raw[p.i])),
-        },
-      ];
+    const matched = yCols.flatMap((c) => {
+      const target = chartSet.y.findIndex((y) => unitConversion(columns[c].unit, y.unit) !== null);
+      if (target < 0) unmatched.push(columns[c].header);
+      return target < 0 ? [] : [{ c, target }];
     });
+    // Only the curves a logged column is drawn against, in the same order as the logged columns, so a curve and its
+    // log share a colour and differ by dash.
+    const targets = [...new Set(matched.map((m) => m.target))].sort((a, b) => a - b);
+    const ys = targets.flatMap((t) =>
+      matched
+        .filter((m) => m.target === t)
+        .slice(0, 1)
+        .map(({ c }) => {
+          const conv = unitConversion(columns[c].unit, chartSet.y[t].unit)!;
+          const raw = values(c);
+          return {
+            name: columns[c].header,
+            label: `${columns[c].label} (logged)`,
+            unit: chartSet.y[t].unit,
+            values: order.map((p) => conv(raw[p.i])),
+          };
+        }),
+    );
     if (ys.length > 0)
-      overlay = {
-        name: 'Log',
-        set: {
-          title: log.fileName,
-          x: { ...chartSet.x, values: order.map((p) => p.v) },
-          y: ys,
-        },
-      };
+      datasets = [
+        { name: 'Prediction', set: { ...chartSet, y: targets.map((t) => chartSet.y[t]) } },
+        { name: 'Log', set: { title: log.fileName, x: { ...chartSet.x, values: order.map((p) => p.v) }, y: ys } },
+      ];
   }
 
   return (
     <div className="flex flex-col gap-4">
       <div className="flex flex-wrap items-end gap-4 text-sm">
-        {logs.length > 1 && (
-          <div className="field">
-            <label htmlFor={`${uid}-log`}>Test log</label>
-            <select
-              id={`${uid}-log`}
-              className="input py-1"
-              value={logIndex}
-              onChange={(e) => setLogIndex(Number(e.target.value))}
-            >
-              {logs.map((l, i) => (
-                <option key={l.attachmentId} value={i}>
-                  {l.fileName} — {l.recordTitle}
-                </option>
-              ))}
-            </select>
-          </div>
-        )}
         {series.length > 1 && (
           <div className="field">
             <label htmlFor={`${uid}-set`}>Curves</label>
@@ -158,7 +196,11 @@ export default function TestLogOverlay({
               id={`${uid}-set`}
               className="input py-1"
               value={setIndex}
-              onChange={(e) => setSetIndex(Number(e.target.value))}
+              onChange={(e) => {
+                setSetIndex(Number(e.target.value));
+                setXChoice(null);
+                setYChoice(null);
+              }}
             >
               {series.map((s, i) => (
                 <option key={s.title} value={i}>
@@ -175,7 +217,10 @@ export default function TestLogOverlay({
               id={`${uid}-x`}
               className="input py-1"
               value={xCol}
-              onChange={(e) => setXCol(Number(e.target.value))}
+              onChange={(e) => {
+                setXChoice(Number(e.target.value));
+                setYChoice(null);
+              }}
             >
               {numeric.map((i) => (
                 <option key={i} value={i}>
@@ -192,11 +237,7 @@ export default function TestLogOverlay({
               .filter((i) => i !== xCol)
               .map((i) => (
                 <label key={i} className="flex items-center gap-1">
-                  <input
-                    type="checkbox"
-                    checked={yCols.includes(i)}
-                    onChange={() => setYCols((v) => (v.includes(i) ? v.filter((k) => k !== i) : [...v, i]))}
-                  />
+                  <input type="checkbox" checked={yCols.includes(i)} onChange={() => toggleY(i)} />
                   {table.header[i]}
                 </label>
               ))}
@@ -223,7 +264,13 @@ export default function TestLogOverlay({
           <p className="text-sm text-muted">Not drawn (no matching curve unit): {unmatched.join(', ')}.</p>
         )}
       </div>
-      {overlay && <LineChart datasets={[{ name: 'Prediction', set: chartSet }, overlay]} height={300} />}
+      {datasets && <LineChart datasets={datasets} height={300} title={`${log.fileName} over ${chartSet.title}`} />}
+      {datasets && kind === 'resistance' && (
+        <p className="text-sm text-muted">
+          A logged battery power includes the drivetrain’s losses; the curve is effective power. The fit below divides
+          by the drivetrain efficiency.
+        </p>
+      )}
       {kind === 'resistance' && table && (
         <FormFactorFit
           key={log.attachmentId}
@@ -435,7 +482,7 @@ function FormFactorFit({
           <>
             <p>
               Fitted form factor <strong className="tabular">{formatNumber(fit.formFactor, 4)}</strong> (this
-              calculation uses {String(inputs.formFactor ?? 1)}), R²{' '}
+              calculation uses {typeof inputs.formFactor === 'number' ? inputs.formFactor : 1}), R²{' '}
               <strong className="tabular">{fit.rSquared === null ? '–' : formatNumber(fit.rSquared, 3)}</strong> over{' '}
               {fit.residuals.length} points.
             </p>

@@ -305,13 +305,17 @@ export const planingCalculator: Calculator<PlaningInput, PlaningOutput> = {
     });
     const speeds = curve.map((p) => p.v);
     const series: SeriesSet = {
-      title: 'Resistance, effective power and trim against speed',
+      title: 'Resistance and effective power against speed',
       x: { name: 'speed_mps', label: 'Speed', unit: 'm/s', values: speeds },
       y: [
         { name: 'resistance_N', label: 'Resistance', unit: 'N', values: curve.map((p) => p.R) },
         { name: 'effectivePower_W', label: 'Effective power', unit: 'W', values: curve.map((p) => p.R * p.v) },
-        { name: 'trim_deg', label: 'Trim', unit: '°', values: curve.map((p) => p.trim) },
       ],
+    };
+    const trimSeries: SeriesSet = {
+      title: 'Equilibrium trim against speed',
+      x: { name: 'speed_mps', label: 'Speed', unit: 'm/s', values: speeds },
+      y: [{ name: 'trim_deg', label: 'Trim', unit: '°', values: curve.map((p) => p.trim) }],
     };
     return {
       outputs: {
@@ -322,7 +326,7 @@ export const planingCalculator: Calculator<PlaningInput, PlaningOutput> = {
         resistance_N: R,
         effectivePower_W: R * V,
       },
-      series: { resistance: series },
+      series: { resistance: series, trim: trimSeries },
       warnings,
     };
   },

@@ -1,4 +1,4 @@
-import { and, asc, eq, inArray, isNull } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, isNull } from 'drizzle-orm';
 import { db } from './db/client';
 import { attachments, calculations, recordCalculations, records, seasons } from './db/schema';
 
@@ -16,7 +16,7 @@ export interface TestLog {
   recordCalculationIds: string[];
 }
 
-/** CSV logs of the records linked to a calculation, oldest record first. */
+/** CSV logs of the records linked to a calculation, newest record first (the latest test leads). */
 export function testLogsForCalculation(calculationId: string): TestLog[] {
   const rows = db()
     .select({
@@ -38,7 +38,7 @@ export function testLogsForCalculation(calculationId: string): TestLog[] {
         eq(attachments.contentType, 'text/csv'),
       ),
     )
-    .orderBy(asc(records.createdAt), asc(attachments.fileName))
+    .orderBy(desc(records.createdAt), asc(attachments.fileName))
     .all();
   if (rows.length === 0) return [];
   const recordIds = [...new Set(rows.map((r) => r.recordId))];
