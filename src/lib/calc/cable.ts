@@ -4,6 +4,7 @@ import { z } from 'zod';
 import { CAUTION_BATTERY, CAUTION_CABLE, CAUTION_DEFER } from './cautions';
 import { IEC60228_CLASS1, IEC60228_CLASS2 } from './data/iec60228';
 import { choice, num, objectSchema } from './fields';
+import { interp } from './numeric';
 import { SRC_COPPER, SRC_FLOYD, SRC_IEC60228 } from './sources';
 import type { Calculator, InputMeta } from './types';
 
@@ -114,16 +115,12 @@ export function iec60228Resistance(area_mm2: number, conductor: Conductor): { oh
   const ideal = (a: number) => copperResistance(1000, a, 20);
   const hit = rows.find(([a]) => Math.abs(a - area_mm2) <= 1e-9 * a);
   if (hit) return { ohmPerKm: hit[1], nominal: true };
-  const ratio = (i: number) => rows[i][1] / ideal(rows[i][0]);
-  let factor: number;
-  if (area_mm2 <= rows[0][0]) factor = ratio(0);
-  else if (area_mm2 >= rows[rows.length - 1][0]) factor = ratio(rows.length - 1);
-  else {
-    let i = 1;
-    while (rows[i][0] < area_mm2) i++;
-    const t = Math.log(area_mm2 / rows[i - 1][0]) / Math.log(rows[i][0] / rows[i - 1][0]);
-    factor = ratio(i - 1) + t * (ratio(i) - ratio(i - 1));
-  }
+  // interp holds the end ratios beyond the table
+  const factor = interp(
+    Math.log(area_mm2),
+    rows.map(([a]) => Math.log(a)),
+    rows.map(([a, r]) => r / ideal(a)),
+  );
   return { ohmPerKm: ideal(area_mm2) * factor, nominal: false };
 }
 
