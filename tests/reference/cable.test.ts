@@ -112,6 +112,13 @@ describe('cable physical sanity (derived)', () => {
     expect(r.result.outputs.conductorResistance20_ohmPerKm).toBeGreaterThan(0.727);
     expect(r.result.warnings.join(' ')).toMatch(/not a nominal section of IEC 60228 Table 2/);
   });
+  it('solid copper of 25 mm² and above is flagged (IEC 60228 Table 1, note on particular cable types)', () => {
+    const big = runCalculator('cable', { conductor: 'solid', crossSection_mm2: 25 });
+    const small = runCalculator('cable', { conductor: 'solid', crossSection_mm2: 16 });
+    if (!big.ok || !small.ok) throw new Error('run failed');
+    expect(big.result.warnings.join(' ')).toMatch(/particular cable types/);
+    expect(small.result.warnings.join(' ')).not.toMatch(/particular cable types/);
+  });
   it('resistance rises with conductor temperature by α₂₀ = 0.00393 /K', () => {
     const at = (t: number) => {
       const r = runCalculator('cable', { temperature_C: t });

@@ -161,6 +161,10 @@ export const cableCalculator: Calculator<CableInput, CableOutput> = {
       warnings.push(
         `Voltage drop ${pct.toFixed(1)} % is above the 3 % often used as a limit for DC feeders (common practice).`,
       );
+    if (input.conductor === 'solid' && input.crossSection_mm2 >= 25)
+      warnings.push(
+        'IEC 60228 Table 1 lists solid copper of 25 mm² and above for particular cable types only (e.g. mineral insulated): a flexible or stranded cable is the usual choice at this size.',
+      );
     const density = input.current_A / input.crossSection_mm2;
     if (density > 5)
       warnings.push(
