@@ -45,7 +45,8 @@ export const seasonPatchSchema = z
   .strict();
 
 export const rolloverSchema = z.object({
-  continuing: z.array(z.string().min(1).max(64)).max(500).default([]),
+  /** Left out: every member of the current season continues. */
+  continuing: z.array(z.string().min(1).max(64)).max(500).optional(),
   confirm: z.boolean().default(false),
 });
 
