@@ -47,6 +47,9 @@ const FIELDS: Record<string, Record<string, FieldType>> = {
   'POST /api/records/[id]/attachments': { file: 'string' },
   'POST /api/calculators/[kind]/run': { inputs: 'object' },
   'POST /api/calculations': { kind: 'string', title: 'string', subsystem: 'string', inputs: 'object' },
+  'POST /api/guides/[slug]/review': { note: 'string' },
+  'POST /api/guides/[slug]/suggestions': { body: 'string', section: 'string' },
+  'PATCH /api/guides/suggestions/[id]': { state: 'string' },
   'PUT /api/onboarding/[subsystem]': { items: 'array' },
   'POST /api/onboarding/[subsystem]/progress': { itemId: 'string', done: 'boolean' },
 };

@@ -14,7 +14,13 @@ vi.mock('astro:content', async () => {
     .map((file) => {
       const text = readFileSync(join(base, file), 'utf8');
       const front = /^---\n([\s\S]*?)\n---/.exec(text)?.[1] ?? '';
-      return { id: guideIdFromPath(file), collection: 'guides', data: guideSchema.parse(parse(front)), body: text };
+      return {
+        id: guideIdFromPath(file),
+        collection: 'guides',
+        data: guideSchema.parse(parse(front)),
+        body: text,
+        filePath: join(base, file),
+      };
     });
   return {
     getCollection: async (name: string, filter?: (e: (typeof entries)[number]) => boolean) =>
