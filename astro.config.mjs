@@ -3,6 +3,8 @@ import { defineConfig } from 'astro/config';
 import node from '@astrojs/node';
 import react from '@astrojs/react';
 import mdx from '@astrojs/mdx';
+import remarkMath from 'remark-math';
+import rehypeKatex from 'rehype-katex';
 import tailwindcss from '@tailwindcss/vite';
 import prepareBundle from './integrations/prepare-bundle.mjs';
 
@@ -16,7 +18,8 @@ const extraHosts = (process.env.ALLOWED_HOSTS ?? '')
 export default defineConfig({
   output: 'server',
   adapter: node({ mode: 'middleware' }),
-  integrations: [react(), mdx(), prepareBundle()],
+  // Formulas in guides ($…$ inline, $$…$$ on their own lines) become KaTeX HTML at build time: no client JS.
+  integrations: [react(), mdx({ remarkPlugins: [remarkMath], rehypePlugins: [rehypeKatex] }), prepareBundle()],
   security: {
     checkOrigin: true,
     allowedDomains: ['localhost', '127.0.0.1', ...extraHosts].map((hostname) => ({ hostname })),

@@ -213,8 +213,8 @@ export const coolingCalculator: Calculator<CoolingInput, CoolingOutput> = {
     SRC_ETB_EG,
     {
       citation:
-        'Specific heat of 50 % by volume ethylene glycol: values from memory of the ASHRAE / supplier tables (±3 %), not re-checked — use your coolant datasheet.',
-      use: 'c_p of the glycol mix (memory).',
+        'Specific heat of 50 % by volume ethylene glycol: a rule of thumb (about ±3 %), not checked against a published table — use your coolant supplier’s datasheet.',
+      use: 'c_p of the glycol mix (rule of thumb).',
     },
     SRC_COLEBROOK,
     SRC_FLUIDS,
@@ -251,7 +251,7 @@ export const coolingCalculator: Calculator<CoolingInput, CoolingOutput> = {
     const warnings: string[] = [];
     if (input.coolant === 'glycol50')
       warnings.push(
-        'Glycol specific heat is from memory (±3 %); use your coolant supplier’s datasheet for a final design.',
+        'Glycol specific heat is a rule of thumb (about ±3 %), not checked against a published table; use your coolant supplier’s datasheet for a final design.',
       );
     if (outlet > 60)
       warnings.push(`Outlet coolant at ${outlet.toFixed(0)} °C can scald; check hose and fitting ratings.`);

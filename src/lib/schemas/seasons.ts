@@ -59,8 +59,13 @@ export const subsystemCreateSchema = z.object({
     .regex(/^[a-z0-9-]+$/, 'Lower-case letters, digits and dashes.'),
   name: typedLine().trim().min(2).max(80),
   summary: typedText().trim().max(400).default(''),
+  calculationsApply: z.boolean().default(true),
 });
 
 export const subsystemPatchSchema = z
-  .object({ name: typedLine().trim().min(2).max(80).optional(), summary: typedText().trim().max(400).optional() })
+  .object({
+    name: typedLine().trim().min(2).max(80).optional(),
+    summary: typedText().trim().max(400).optional(),
+    calculationsApply: z.boolean().optional(),
+  })
   .strict();

@@ -73,7 +73,7 @@ describe('warnings where specified', () => {
     expect(warnings('propeller-sweep', {})).toMatch(/[Cc]avitation/);
   });
 
-  it('glycol coolant warns that its specific heat is from memory', () => {
-    expect(warnings('cooling', { coolant: 'glycol50' })).toMatch(/from memory/);
+  it('glycol coolant warns that its specific heat is a rule of thumb not checked against a table', () => {
+    expect(warnings('cooling', { coolant: 'glycol50' })).toMatch(/rule of thumb \(about ±3 %\), not checked against a published table/);
   });
 });
