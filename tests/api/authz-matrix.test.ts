@@ -42,6 +42,7 @@ const MATRIX: Record<string, Row> = {
   'PATCH /api/subsystems/[slug]': { allow: LEAD, params: { slug: 'hull' } },
   'GET /api/people': { allow: ALL },
   'PATCH /api/people/[id]': { allow: LEAD, params: { id: 'nope' } },
+  'POST /api/people/[id]/nudge': { allow: LEAD, params: { id: 'nope' } },
   'GET /api/invitations': { allow: LEAD },
   'POST /api/invitations': { allow: LEAD },
   'DELETE /api/invitations/[id]': { allow: LEAD, params: { id: 'nope' } },

@@ -31,6 +31,7 @@ const FIELDS: Record<string, Record<string, FieldType>> = {
   'POST /api/subsystems': { slug: 'string', name: 'string', summary: 'string' },
   'PATCH /api/subsystems/[slug]': { name: 'string', summary: 'string' },
   'PATCH /api/people/[id]': { role: 'string', subsystems: 'array' },
+  'POST /api/people/[id]/nudge': { note: 'string' },
   'POST /api/invitations': { email: 'string', name: 'string', role: 'string', subsystems: 'array' },
   'POST /api/digest/send': { days: 'number' },
   'POST /api/records': {
