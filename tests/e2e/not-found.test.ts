@@ -1,0 +1,56 @@
+// Unknown records, calculations, subsystems and guides answer 404 with our own page (never an empty body), and the
+// reason phrase matches the status. The account menu closes on Escape.
+import { describe, it, expect, beforeAll, afterAll } from 'vitest';
+import type { Browser, Page } from 'playwright-core';
+import { launch, baseUrl, shot, signIn } from './browser';
+
+let browser: Browser;
+let page: Page;
+beforeAll(async () => {
+  browser = await launch();
+  page = await (await browser.newContext({ viewport: { width: 1280, height: 900 } })).newPage();
+  await signIn(page, 'member@wakebook.test');
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+describe('not found', () => {
+  for (const path of [
+    '/records/no-such-record',
+    '/records/no-such-record/history',
+    '/records/no-such-record/edit',
+    '/calculations/no-such-calculation',
+    '/calculations/new/no-such-kind',
+    '/subsystems/no-such-subsystem',
+    '/guides/no-such-guide',
+    '/handover?season=no-such-season',
+  ])
+    it(`${path}: 404 "Not Found" with our page`, async () => {
+      const res = await page.goto(`${baseUrl()}${path}`);
+      expect(res?.status()).toBe(404);
+      expect(res?.statusText()).toBe('Not Found');
+      expect(await page.getByRole('heading', { level: 1 }).textContent()).toContain('This page is not in the log');
+      expect(await page.getByRole('link', { name: 'Go home' }).count()).toBe(1);
+      if (path === '/records/no-such-record') await shot(page, 'not-found-record');
+    });
+
+  it('a forbidden page says "Forbidden" in its status line', async () => {
+    const res = await page.goto(`${baseUrl()}/admin/audit`);
+    expect(res?.status()).toBe(403);
+    expect(res?.statusText()).toBe('Forbidden');
+  });
+});
+
+describe('account menu', () => {
+  it('closes on Escape and gives focus back to its button', async () => {
+    await page.goto(`${baseUrl()}/`);
+    const summary = page.getByLabel(/^Account menu for /);
+    await summary.click();
+    const menu = page.locator('details[data-account-menu]');
+    expect(await menu.getAttribute('open')).not.toBeNull();
+    await page.keyboard.press('Escape');
+    await page.waitForFunction(() => !document.querySelector('details[data-account-menu]')?.hasAttribute('open'));
+    expect(await page.evaluate(() => document.activeElement?.tagName)).toBe('SUMMARY');
+  });
+});
