@@ -28,32 +28,60 @@ async function resolveTargets(refs: Ref[]): Promise<Map<string, AuditTarget>> {
   const put = (type: string, id: string, title: string, url: string | null) => out.set(`${type}:${id}`, { title, url });
   const rec = ids('record');
   if (rec.length)
-    for (const r of db().select({ id: records.id, title: records.title, deletedAt: records.deletedAt }).from(records).where(inArray(records.id, rec)).all())
+    for (const r of db()
+      .select({ id: records.id, title: records.title, deletedAt: records.deletedAt })
+      .from(records)
+      .where(inArray(records.id, rec))
+      .all())
       put('record', r.id, r.title, r.deletedAt ? null : `/records/${r.id}`);
   const calc = ids('calculation');
   if (calc.length)
-    for (const c of db().select({ id: calculations.id, title: calculations.title, deletedAt: calculations.deletedAt }).from(calculations).where(inArray(calculations.id, calc)).all())
+    for (const c of db()
+      .select({ id: calculations.id, title: calculations.title, deletedAt: calculations.deletedAt })
+      .from(calculations)
+      .where(inArray(calculations.id, calc))
+      .all())
       put('calculation', c.id, c.title, c.deletedAt ? null : `/calculations/${c.id}`);
   const people = ids('user');
   if (people.length)
-    for (const u of db().select({ id: users.id, name: users.name, email: users.email }).from(users).where(inArray(users.id, people)).all())
+    for (const u of db()
+      .select({ id: users.id, name: users.name, email: users.email })
+      .from(users)
+      .where(inArray(users.id, people))
+      .all())
       put('user', u.id, `${u.name} (${u.email})`, `/admin/people?q=${encodeURIComponent(u.email)}`);
   const seas = ids('season');
   if (seas.length)
-    for (const x of db().select({ id: seasons.id, name: seasons.name }).from(seasons).where(inArray(seasons.id, seas)).all())
+    for (const x of db()
+      .select({ id: seasons.id, name: seasons.name })
+      .from(seasons)
+      .where(inArray(seasons.id, seas))
+      .all())
       put('season', x.id, `season ${x.name}`, '/seasons');
   const subs = ids('subsystem');
   if (subs.length)
-    for (const x of db().select({ slug: subsystems.slug, name: subsystems.name }).from(subsystems).where(inArray(subsystems.slug, subs)).all())
+    for (const x of db()
+      .select({ slug: subsystems.slug, name: subsystems.name })
+      .from(subsystems)
+      .where(inArray(subsystems.slug, subs))
+      .all())
       put('subsystem', x.slug, x.name, `/subsystems/${x.slug}`);
   const inv = ids('invitation');
   if (inv.length)
-    for (const x of db().select({ id: invitations.id, name: invitations.name, email: invitations.email }).from(invitations).where(inArray(invitations.id, inv)).all())
+    for (const x of db()
+      .select({ id: invitations.id, name: invitations.name, email: invitations.email })
+      .from(invitations)
+      .where(inArray(invitations.id, inv))
+      .all())
       put('invitation', x.id, `${x.name} (${x.email})`, '/admin/invitations');
   const sugg = ids('guide-suggestion');
   const suggestionGuide = new Map<string, string>();
   if (sugg.length)
-    for (const x of db().select({ id: guideSuggestions.id, slug: guideSuggestions.guideSlug }).from(guideSuggestions).where(inArray(guideSuggestions.id, sugg)).all())
+    for (const x of db()
+      .select({ id: guideSuggestions.id, slug: guideSuggestions.guideSlug })
+      .from(guideSuggestions)
+      .where(inArray(guideSuggestions.id, sugg))
+      .all())
       suggestionGuide.set(x.id, x.slug);
   if (ids('guide').length || suggestionGuide.size) {
     const guides = new Map((await listGuides()).map((g) => [g.slug, g]));
@@ -106,7 +134,9 @@ export async function listAudit(q: AuditQuery) {
   return {
     entries: page.map((r) => {
       const failed = r.action === 'auth.sign-in-failed' && r.targetType === 'user' && !!r.targetId;
-      const resolved = r.targetType && r.targetId ? titles.get(`${r.targetType}:${r.targetId}`) : undefined;
+      // "Ana signed in: Ana" says nothing twice; a target that is the actor is left out.
+      const self = r.targetType === 'user' && !!r.actorId && r.targetId === r.actorId;
+      const resolved = r.targetType && r.targetId && !self ? titles.get(`${r.targetType}:${r.targetId}`) : undefined;
       return {
         id: r.id,
         at: r.at.toISOString(),
@@ -114,7 +144,7 @@ export async function listAudit(q: AuditQuery) {
         action: r.action,
         actionText: actionInWords(r.action),
         target: r.targetType ? `${r.targetType}${r.targetId ? `:${r.targetId}` : ''}` : null,
-        targetTitle: failed ? null : (resolved?.title ?? (r.targetId ? `${r.targetType} ${r.targetId}` : null)),
+        targetTitle: failed || self ? null : (resolved?.title ?? (r.targetId ? `${r.targetType} ${r.targetId}` : null)),
         targetUrl: failed ? null : (resolved?.url ?? null),
         detail: r.detail,
       };
