@@ -12,7 +12,13 @@ beforeAll(async () => {
   s = await sessionsForAllRoles();
 });
 
-type Entry = { actor: string; action: string; actionText: string; targetTitle: string | null; targetUrl: string | null };
+type Entry = {
+  actor: string;
+  action: string;
+  actionText: string;
+  targetTitle: string | null;
+  targetUrl: string | null;
+};
 const entries = async (q: Record<string, string> = {}): Promise<Entry[]> =>
   (await call(audit, 'GET', { session: s.lead, query: q })).body.entries;
 
@@ -41,9 +47,9 @@ describe('the audit log reads in words', () => {
     expect(rec.targetTitle).not.toMatch(/^record[: ]/);
     expect(rec.targetTitle!.length).toBeGreaterThan(5);
 
-    expect((await call(review, 'POST', { session: s.advisor, params: { slug: 'handover-checklist' }, body: {} })).status).toBe(
-      201,
-    );
+    expect(
+      (await call(review, 'POST', { session: s.advisor, params: { slug: 'handover-checklist' }, body: {} })).status,
+    ).toBe(201);
     const [g] = await entries({ action: 'guide.' });
     expect(g).toMatchObject({
       actionText: 'reviewed the guide',

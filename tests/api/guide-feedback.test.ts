@@ -64,7 +64,11 @@ describe('guide reviews from the app', () => {
     for (const role of ['member', 'alumni'] as const)
       expect((await call(review, 'POST', { session: s[role], params: { slug: STALE }, body: {} })).status).toBe(403);
     expect((await call(review, 'POST', { session: s.lead, params: { slug: 'nope' }, body: {} })).status).toBe(404);
-    const long = await call(review, 'POST', { session: s.lead, params: { slug: STALE }, body: { note: 'x'.repeat(1001) } });
+    const long = await call(review, 'POST', {
+      session: s.lead,
+      params: { slug: STALE },
+      body: { note: 'x'.repeat(1001) },
+    });
     expect(long.status).toBe(400);
     expect(long.body.error.issues[0].path).toBe('note');
   });
@@ -108,7 +112,11 @@ describe('suggested changes to a guide', () => {
   });
 
   it('advisors and leads list them by state; members and alumni may not (403)', async () => {
-    const open = await call(suggestions, 'GET', { session: s.advisor, params: { slug: FRESH }, query: { state: 'open' } });
+    const open = await call(suggestions, 'GET', {
+      session: s.advisor,
+      params: { slug: FRESH },
+      query: { state: 'open' },
+    });
     expect(open.status).toBe(200);
     expect(open.body.suggestions).toHaveLength(2);
     expect(open.body.suggestions.find((x: { id: string }) => x.id === id).author).toEqual(expect.any(String));
@@ -121,16 +129,20 @@ describe('suggested changes to a guide', () => {
 
   it('an advisor marks one done: it leaves the open list and the maintainer’s view, and carries who decided', async () => {
     for (const role of ['member', 'alumni'] as const)
-      expect((await call(suggestion, 'PATCH', { session: s[role], params: { id }, body: { state: 'done' } })).status).toBe(
-        403,
-      );
+      expect(
+        (await call(suggestion, 'PATCH', { session: s[role], params: { id }, body: { state: 'done' } })).status,
+      ).toBe(403);
     const done = await call(suggestion, 'PATCH', { session: s.advisor, params: { id }, body: { state: 'done' } });
     expect(done.status).toBe(200);
     expect(done.body.suggestion).toMatchObject({ state: 'done', decidedBy: expect.any(String) });
     expect(done.body.suggestion.decidedAt).toMatch(/^\d{4}-/);
     const open = await call(suggestions, 'GET', { session: s.lead, params: { slug: FRESH }, query: { state: 'open' } });
     expect(open.body.suggestions.map((x: { id: string }) => x.id)).not.toContain(id);
-    const doneList = await call(suggestions, 'GET', { session: s.lead, params: { slug: FRESH }, query: { state: 'done' } });
+    const doneList = await call(suggestions, 'GET', {
+      session: s.lead,
+      params: { slug: FRESH },
+      query: { state: 'done' },
+    });
     expect(doneList.body.suggestions.map((x: { id: string }) => x.id)).toEqual([id]);
     const maintainers = await openSuggestionsForMaintainers();
     expect(maintainers).toHaveLength(1);

@@ -30,7 +30,11 @@ describe('POST /api/people/{id}/nudge — a real reminder e-mail, audited', () =
     expect(mail.text).toContain('The pod trials are on Saturday.');
     expect(new URL(linkIn(mail.text)).pathname).toMatch(/^\/subsystems\/(propulsion|cooling)$/);
     const entries = (await call(audit, 'GET', { session: s.lead, query: { action: 'onboarding.' } })).body.entries;
-    expect(entries[0]).toMatchObject({ action: 'onboarding.nudge', actionText: 'nudged', targetTitle: expect.stringContaining('Jonas Lindqvist') });
+    expect(entries[0]).toMatchObject({
+      action: 'onboarding.nudge',
+      actionText: 'nudged',
+      targetTitle: expect.stringContaining('Jonas Lindqvist'),
+    });
   });
 
   it('only leads nudge (403); an unknown person is 404 and sends nothing', async () => {

@@ -191,7 +191,12 @@ describe('bringing a new member in', () => {
     expect(text).toContain('accepted the invitation and joined as');
     expect(text).not.toContain('invitation.create');
     expect(text).not.toContain('signed in');
-    expect(await lead.getByRole('table').getByRole('link', { name: new RegExp(NEWCOMER.name) }).count()).toBeGreaterThan(0);
+    expect(
+      await lead
+        .getByRole('table')
+        .getByRole('link', { name: new RegExp(NEWCOMER.name) })
+        .count(),
+    ).toBeGreaterThan(0);
     await shot(lead, 'admin-audit');
   });
 });

@@ -20,7 +20,13 @@ describe('scoreReadiness', () => {
 
   it('scores 0 for a subsystem with nothing handed over, and says what is missing', () => {
     const r = scoreReadiness(
-      { calculationsApply: true, acceptedDecisions: [], lessons: [], route: { items: 0, itemsFromSeason: 0, missingItems: 0 }, guides: [] },
+      {
+        calculationsApply: true,
+        acceptedDecisions: [],
+        lessons: [],
+        route: { items: 0, itemsFromSeason: 0, missingItems: 0 },
+        guides: [],
+      },
       NOW,
     );
     // Lessons count as handled when there are none to hand on (20 points); everything else is missing.
@@ -31,7 +37,10 @@ describe('scoreReadiness', () => {
   });
 
   it('does not ask for a linked calculation where no calculator applies (a per-subsystem setting)', () => {
-    const noCalc = { ...complete, acceptedDecisions: [{ id: 'd1', title: 'Rudder stock', reasoningWords: 300, calculations: 0 }] };
+    const noCalc = {
+      ...complete,
+      acceptedDecisions: [{ id: 'd1', title: 'Rudder stock', reasoningWords: 300, calculations: 0 }],
+    };
     const applies = scoreReadiness(noCalc, NOW);
     expect(applies.missing).toEqual(['Decision “Rudder stock” needs a linked calculation.']);
     expect(applies.score).toBe(65);
@@ -40,7 +49,11 @@ describe('scoreReadiness', () => {
     expect(exempt.score).toBe(100);
     expect(exempt.checks[0].label).toMatch(/no calculator applies/);
     const thin = scoreReadiness(
-      { ...noCalc, calculationsApply: false, acceptedDecisions: [{ id: 'd', title: 'T', reasoningWords: 5, calculations: 0 }] },
+      {
+        ...noCalc,
+        calculationsApply: false,
+        acceptedDecisions: [{ id: 'd', title: 'T', reasoningWords: 5, calculations: 0 }],
+      },
       NOW,
     );
     expect(thin.missing).toEqual(['Decision “T” needs its reasoning (5 words).']);

@@ -11,12 +11,19 @@ describe('rollover preview sentences', () => {
 
   it('writes sentences with names, from the current to the new season, never a slug or a dangling ";"', () => {
     const lines = rolloverSentences('2025–26', '2026–27', [
-      { userId: 'a', name: 'Jonas Lindqvist', change: 'continues', subsystemNames: ['Propulsion and motor drive', 'Cooling'] },
+      {
+        userId: 'a',
+        name: 'Jonas Lindqvist',
+        change: 'continues',
+        subsystemNames: ['Propulsion and motor drive', 'Cooling'],
+      },
       { userId: 'b', name: 'Hanna Voss', change: 'to-alumni', subsystemNames: ['Hull and foils'] },
       { userId: 'c', name: 'Ola Berg', change: 'to-alumni', subsystemNames: [] },
     ]);
     expect(lines[0]).toBe('2026–27 becomes the current season, and 2025–26 moves into the archive.');
-    expect(lines).toContain('Jonas Lindqvist continues as a member of 2026–27 and keeps Propulsion and motor drive and Cooling.');
+    expect(lines).toContain(
+      'Jonas Lindqvist continues as a member of 2026–27 and keeps Propulsion and motor drive and Cooling.',
+    );
     expect(lines).toContain(
       'Hanna Voss and Ola Berg become alumni: they keep reading and answering questions, but stop editing.',
     );

@@ -40,9 +40,16 @@ describe('text users read', () => {
 
 describe('guide headings (the sections a suggestion can point at)', () => {
   it('reads ## and ### headings, skipping fenced code and stripping marks', () => {
-    const md = ['# Title', '## First *part*', 'text', '```', '## not a heading', '```', '### Sub `code`', '#### deep'].join(
-      '\n',
-    );
+    const md = [
+      '# Title',
+      '## First *part*',
+      'text',
+      '```',
+      '## not a heading',
+      '```',
+      '### Sub `code`',
+      '#### deep',
+    ].join('\n');
     expect(guideHeadings(md)).toEqual([
       { depth: 2, text: 'First part' },
       { depth: 3, text: 'Sub code' },

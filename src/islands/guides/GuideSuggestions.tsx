@@ -124,7 +124,9 @@ function SuggestForm({ slug, sections }: { slug: string; sections: string[] }) {
 function SuggestionList({ slug }: { slug: string }) {
   const [state, setState] = useState<SuggestionState>('open');
   const key = `/api/guides/${slug}/suggestions?state=${state}`;
-  const { data, error, isLoading, mutate } = useSWR<{ suggestions: GuideSuggestion[] }>(key, fetcher);
+  const list = useSWR<{ suggestions: GuideSuggestion[] }, Error>(key, fetcher);
+  const { data, isLoading, mutate } = list;
+  const failedToLoad = !!list.error;
   const [failure, setFailure] = useState('');
   async function decide(id: string, next: SuggestionState) {
     setFailure('');
@@ -158,7 +160,7 @@ function SuggestionList({ slug }: { slug: string }) {
         </div>
       </div>
       {isLoading && <p className="text-sm text-muted">Loading the suggestions…</p>}
-      {error && (
+      {failedToLoad && (
         <p className="field-error" role="alert">
           Could not load the suggestions.
         </p>

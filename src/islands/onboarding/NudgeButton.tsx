@@ -36,7 +36,10 @@ export default function NudgeButton({ userId, name }: { userId: string; name: st
         {state === 'busy' ? 'Sending…' : 'Nudge'}
       </button>
       {text && (
-        <span className={state === 'error' ? 'field-error text-xs' : 'text-xs text-muted'} role={state === 'error' ? 'alert' : 'status'}>
+        <span
+          className={state === 'error' ? 'field-error text-xs' : 'text-xs text-muted'}
+          role={state === 'error' ? 'alert' : 'status'}
+        >
           {text}
         </span>
       )}

@@ -96,8 +96,8 @@ export default function Rollover({
         Roll over to a new season
       </h2>
       <p className="text-sm text-muted">
-        Members of {current.name} who do not continue become alumni: they keep reading and answering questions, but
-        stop editing. Leads and advisors keep their roles.
+        Members of {current.name} who do not continue become alumni: they keep reading and answering questions, but stop
+        editing. Leads and advisors keep their roles.
       </p>
       <div className="field max-w-xs">
         <label htmlFor="roll-target">New current season</label>

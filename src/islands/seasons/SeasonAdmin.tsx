@@ -103,8 +103,8 @@ function RolloverLauncher(props: { seasons: Season[]; members: RolloverMember[];
           Roll over to a new season
         </h2>
         <p className="text-sm text-muted">
-          At the end of a season: choose who continues; everyone else in {props.current?.name ?? 'the current season'} becomes
-          alumni. You see exactly what will change before anything does.
+          At the end of a season: choose who continues; everyone else in {props.current?.name ?? 'the current season'}{' '}
+          becomes alumni. You see exactly what will change before anything does.
         </p>
         <button type="button" className="btn btn-quiet self-start" onClick={() => setOpen(true)}>
           Start the rollover…

@@ -78,7 +78,11 @@ export async function listGuideSuggestions(slug: string, state?: SuggestionState
 
 /** An advisor or lead marks a suggestion done or declined (or opens it again). */
 export function decideSuggestion(id: string, state: SuggestionState, actor: Actor): GuideSuggestion {
-  const found = db().select({ id: guideSuggestions.id }).from(guideSuggestions).where(eq(guideSuggestions.id, id)).get();
+  const found = db()
+    .select({ id: guideSuggestions.id })
+    .from(guideSuggestions)
+    .where(eq(guideSuggestions.id, id))
+    .get();
   if (!found) throw notFound('That suggestion');
   const open = state === 'open';
   db()
@@ -99,6 +103,11 @@ export async function openSuggestionsForMaintainers() {
     .all()
     .map((r) => {
       const g = guides.get(r.guideSlug);
-      return { ...toSuggestion(r), guideTitle: g?.title ?? r.guideSlug, guideUrl: g?.url ?? null, filePath: g?.filePath ?? null };
+      return {
+        ...toSuggestion(r),
+        guideTitle: g?.title ?? r.guideSlug,
+        guideUrl: g?.url ?? null,
+        filePath: g?.filePath ?? null,
+      };
     });
 }

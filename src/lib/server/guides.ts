@@ -121,6 +121,12 @@ export async function reviewGuide(slug: string, note: string | undefined, actor:
     .insert(guideReviews)
     .values({ id, guideSlug: slug, reviewerId: actor.id, note: note || null, createdAt: new Date() })
     .run();
-  recordAudit({ actor, action: 'guide.review', targetType: 'guide', targetId: slug, detail: note ? { note } : undefined });
+  recordAudit({
+    actor,
+    action: 'guide.review',
+    targetType: 'guide',
+    targetId: slug,
+    detail: note ? { note } : undefined,
+  });
   return (await guideSummary(slug))!;
 }

@@ -29,8 +29,7 @@ export async function nudgeOnboarding(userId: string, note: string | undefined, 
   const routes = [];
   for (const s of season ? subsystemsOf(person.id, season.id) : []) {
     const r = await getRoute(s.slug, person.id);
-    if (r.progress.total > 0)
-      routes.push({ name: s.name, ...r.progress, url: `${base}/subsystems/${s.slug}#route-h` });
+    if (r.progress.total > 0) routes.push({ name: s.name, ...r.progress, url: `${base}/subsystems/${s.slug}#route-h` });
   }
   const mail = await sendMail(
     person.email,

@@ -15,7 +15,12 @@ export function createSubsystem(
   if (findSubsystem(input.slug)) throw conflict(`A subsystem “${input.slug}” already exists.`);
   db()
     .insert(subsystems)
-    .values({ ...input, calculationsApply: input.calculationsApply ?? true, position: listSubsystems().length, createdAt: new Date() })
+    .values({
+      ...input,
+      calculationsApply: input.calculationsApply ?? true,
+      position: listSubsystems().length,
+      createdAt: new Date(),
+    })
     .run();
   recordAudit({ actor, action: 'subsystem.create', targetType: 'subsystem', targetId: input.slug });
   return findSubsystem(input.slug)!;
@@ -36,7 +41,10 @@ export function updateSubsystem(
 ): SubsystemView {
   const slug = current.slug;
   if (patch.name === undefined && patch.summary === undefined && patch.calculationsApply === undefined)
-    throw invalidInput([{ path: '', message: 'Send a new name, summary or calculator setting.' }], 'Nothing to change.');
+    throw invalidInput(
+      [{ path: '', message: 'Send a new name, summary or calculator setting.' }],
+      'Nothing to change.',
+    );
   db().update(subsystems).set(patch).where(eq(subsystems.slug, slug)).run();
   recordAudit({ actor, action: 'subsystem.update', targetType: 'subsystem', targetId: slug, detail: patch });
   return { ...current, ...patch };

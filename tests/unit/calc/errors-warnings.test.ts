@@ -74,6 +74,8 @@ describe('warnings where specified', () => {
   });
 
   it('glycol coolant warns that its specific heat is a rule of thumb not checked against a table', () => {
-    expect(warnings('cooling', { coolant: 'glycol50' })).toMatch(/rule of thumb \(about ±3 %\), not checked against a published table/);
+    expect(warnings('cooling', { coolant: 'glycol50' })).toMatch(
+      /rule of thumb \(about ±3 %\), not checked against a published table/,
+    );
   });
 });
