@@ -64,7 +64,7 @@ describe('bringing a new member in', () => {
     // A second attempt that fails clears the line about the first success.
     await lead.getByLabel('E-mail').fill(NEWCOMER.email);
     await lead.getByLabel('Name').fill(NEWCOMER.name);
-    await lead.getByRole('button', { name: 'Send the invitation' }).click();
+    await lead.getByRole('button', { name: 'Send the invitation', exact: true }).click();
     await lead.getByRole('alert').first().waitFor();
     expect(await lead.getByRole('status').filter({ hasText: 'was invited' }).count()).toBe(0);
     inviteLink = await linkFromOutbox(lead, NEWCOMER.email, /invited you to Wakebook/);
