@@ -10,6 +10,15 @@ import prepareBundle from './integrations/prepare-bundle.mjs';
 
 // Astro 5.18 trusts the Host header only for listed domains; without them Astro.url is wrong and the
 // built-in origin check refuses same-site form posts. Extra hosts come from ALLOWED_HOSTS at build time.
+/** A guide's tables scroll sideways inside the reading column when wide, so keyboard users must reach them. */
+function rehypeFocusableTables() {
+  const visit = (node) => {
+    if (node.type === 'element' && node.tagName === 'table') node.properties = { ...node.properties, tabIndex: 0 };
+    for (const child of node.children ?? []) visit(child);
+  };
+  return visit;
+}
+
 const extraHosts = (process.env.ALLOWED_HOSTS ?? '')
   .split(',')
   .map((h) => h.trim())
@@ -19,7 +28,11 @@ export default defineConfig({
   output: 'server',
   adapter: node({ mode: 'middleware' }),
   // Formulas in guides ($…$ inline, $$…$$ on their own lines) become KaTeX HTML at build time: no client JS.
-  integrations: [react(), mdx({ remarkPlugins: [remarkMath], rehypePlugins: [rehypeKatex] }), prepareBundle()],
+  integrations: [
+    react(),
+    mdx({ remarkPlugins: [remarkMath], rehypePlugins: [rehypeKatex, rehypeFocusableTables] }),
+    prepareBundle(),
+  ],
   security: {
     checkOrigin: true,
     allowedDomains: ['localhost', '127.0.0.1', ...extraHosts].map((hostname) => ({ hostname })),
@@ -34,5 +47,7 @@ export default defineConfig({
   },
   vite: {
     plugins: [tailwindcss()],
+    // Fonts (KaTeX's small ones included) stay files from our origin: a data: URL would break font-src 'self'.
+    build: { assetsInlineLimit: (file) => (/\.(woff2?|ttf|otf)$/.test(file) ? false : undefined) },
   },
 });

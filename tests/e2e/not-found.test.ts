@@ -42,6 +42,19 @@ describe('not found', () => {
   });
 });
 
+describe('readiness bars', () => {
+  it('share one track length on the handover report and the subsystem list, so scores compare', async () => {
+    for (const path of ['/handover', '/subsystems']) {
+      await page.goto(`${baseUrl()}${path}`);
+      const widths = await page
+        .locator('main [data-readiness-track]')
+        .evaluateAll((els) => els.map((e) => Math.round(e.getBoundingClientRect().width)));
+      expect(widths.length, path).toBeGreaterThan(5);
+      expect(new Set(widths).size, `${path}: ${widths.join(', ')}`).toBe(1);
+    }
+  });
+});
+
 describe('account menu', () => {
   it('closes on Escape and gives focus back to its button', async () => {
     await page.goto(`${baseUrl()}/`);
