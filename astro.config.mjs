@@ -12,6 +12,8 @@ import prepareBundle from './integrations/prepare-bundle.mjs';
 // built-in origin check refuses same-site form posts. Extra hosts come from ALLOWED_HOSTS at build time.
 /** A guide's tables scroll sideways inside the reading column when wide, so keyboard users must reach them. */
 function rehypeFocusableTables() {
+  /** @typedef {{ type: string; tagName?: string; properties?: Record<string, unknown>; children?: HastNode[] }} HastNode */
+  /** @param {HastNode} node */
   const visit = (node) => {
     if (node.type === 'element' && node.tagName === 'table') node.properties = { ...node.properties, tabIndex: 0 };
     for (const child of node.children ?? []) visit(child);
