@@ -55,6 +55,24 @@ describe('readiness bars', () => {
   });
 });
 
+describe('seasons admin', () => {
+  it('offers no "Make current" on earlier seasons and opens the next season inside the rollover', async () => {
+    const lead = await (await browser.newContext({ viewport: { width: 1280, height: 900 } })).newPage();
+    await signIn(lead, 'lead@wakebook.test');
+    await lead.goto(`${baseUrl()}/seasons`);
+    await lead.locator('astro-island:not([ssr]) button').first().waitFor({ state: 'attached' });
+    expect(await lead.getByRole('button', { name: 'Make current' }).count()).toBe(0);
+    expect(await lead.getByText('Earlier than the current season').count()).toBe(2);
+    await lead.getByRole('button', { name: 'Start the rollover…' }).click();
+    // The demo has no season after 2025–26 (ends 2026-12-18): the wizard offers to open it, dated to follow on.
+    await lead.getByRole('heading', { name: 'Open the next season' }).waitFor();
+    expect(await lead.locator('#next-season-startsOn').inputValue()).toBe('2026-12-19');
+    expect(await lead.locator('#next-season-endsOn').inputValue()).toBe('2027-12-18');
+    await shot(lead, 'seasons-rollover-open-next');
+    await lead.context().close();
+  });
+});
+
 describe('account menu', () => {
   it('closes on Escape and gives focus back to its button', async () => {
     await page.goto(`${baseUrl()}/`);
