@@ -95,12 +95,15 @@ function latestAppReviews(slug?: string): Map<string, AppReview> {
   return out;
 }
 
+// One collator for every sort (String#localeCompare builds its comparison anew on each call).
+const byText = new Intl.Collator().compare;
+
 export async function listGuides(subsystem?: string): Promise<GuideSummary[]> {
   const entries = (await allGuides()).filter((e) => !subsystem || e.data.subsystem === subsystem);
   const reviews = latestAppReviews();
   return entries
     .map((e) => toGuideSummary(e, new Date(), reviews.get(e.id)))
-    .sort((a, b) => a.subsystem.localeCompare(b.subsystem) || a.order - b.order || a.title.localeCompare(b.title));
+    .sort((a, b) => byText(a.subsystem, b.subsystem) || a.order - b.order || byText(a.title, b.title));
 }
 
 export async function findGuide(slug: string): Promise<GuideEntry | undefined> {
