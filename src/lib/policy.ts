@@ -29,7 +29,11 @@ export type Action =
   | 'calculation:recompute'
   | 'onboarding:curate'
   | 'onboarding:follow'
-  | 'onboarding:see-all';
+  | 'onboarding:see-all'
+  | 'onboarding:nudge'
+  | 'guide:review'
+  | 'guide:suggest'
+  | 'guide:triage';
 
 /** What the rule needs to know about the thing acted on. */
 export interface Subject {
@@ -48,6 +52,9 @@ const POLICY: Record<Role, Partial<Record<Action, Rule>>> = {
     'record:comment': true,
     'onboarding:curate': true,
     'onboarding:follow': true,
+    'guide:review': true,
+    'guide:suggest': true,
+    'guide:triage': true,
   },
   member: {
     read: true,
@@ -59,11 +66,13 @@ const POLICY: Record<Role, Partial<Record<Action, Rule>>> = {
     'calculation:create': currentSeasonOnly,
     'calculation:recompute': currentSeasonOnly,
     'onboarding:follow': true,
+    'guide:suggest': true,
   },
   alumni: {
     read: true,
     'record:comment': true,
     'onboarding:follow': true,
+    'guide:suggest': true,
   },
 };
 
@@ -100,4 +109,8 @@ export const ALL_ACTIONS: Action[] = [
   'onboarding:curate',
   'onboarding:follow',
   'onboarding:see-all',
+  'onboarding:nudge',
+  'guide:review',
+  'guide:suggest',
+  'guide:triage',
 ];

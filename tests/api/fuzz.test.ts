@@ -31,6 +31,7 @@ const FIELDS: Record<string, Record<string, FieldType>> = {
   'POST /api/subsystems': { slug: 'string', name: 'string', summary: 'string' },
   'PATCH /api/subsystems/[slug]': { name: 'string', summary: 'string' },
   'PATCH /api/people/[id]': { role: 'string', subsystems: 'array' },
+  'POST /api/people/[id]/nudge': { note: 'string' },
   'POST /api/invitations': { email: 'string', name: 'string', role: 'string', subsystems: 'array' },
   'POST /api/digest/send': { days: 'number' },
   'POST /api/records': {
@@ -48,6 +49,9 @@ const FIELDS: Record<string, Record<string, FieldType>> = {
   'POST /api/calculators/[kind]/run': { inputs: 'object' },
   'POST /api/calculators/resistance/fit': { inputs: 'object', points: 'array', drivetrainEfficiency: 'number' },
   'POST /api/calculations': { kind: 'string', title: 'string', subsystem: 'string', inputs: 'object' },
+  'POST /api/guides/[slug]/review': { note: 'string' },
+  'POST /api/guides/[slug]/suggestions': { body: 'string', section: 'string' },
+  'PATCH /api/guides/suggestions/[id]': { state: 'string' },
   'PUT /api/onboarding/[subsystem]': { items: 'array' },
   'POST /api/onboarding/[subsystem]/progress': { itemId: 'string', done: 'boolean' },
 };

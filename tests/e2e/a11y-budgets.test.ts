@@ -49,6 +49,10 @@ const PAGES: PageCase[] = [
   { path: '/onboarding', as: 'lead', budgetKb: PLAIN },
   { path: '/admin', as: 'lead', budgetKb: PLAIN },
   { path: '/no-such-page', as: 'member', budgetKb: PLAIN },
+  { path: '/records/no-such-record', as: 'member', budgetKb: PLAIN },
+  { path: '/guides/hull-resistance-in-plain-terms', as: 'advisor', budgetKb: PLAIN },
+  { path: '/guides/suggestions', as: 'advisor', budgetKb: PLAIN },
+  { path: '/admin/audit', as: 'lead', budgetKb: PLAIN },
 ];
 
 let browser: Browser;

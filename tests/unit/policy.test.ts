@@ -29,6 +29,10 @@ const EXPECTED: Record<Action, Record<Role, Cell>> = {
   'onboarding:curate': { lead: Y, advisor: Y, member: N, alumni: N },
   'onboarding:follow': { lead: Y, advisor: Y, member: Y, alumni: Y },
   'onboarding:see-all': { lead: Y, advisor: N, member: N, alumni: N },
+  'onboarding:nudge': { lead: Y, advisor: N, member: N, alumni: N },
+  'guide:review': { lead: Y, advisor: Y, member: N, alumni: N },
+  'guide:suggest': { lead: Y, advisor: Y, member: Y, alumni: Y },
+  'guide:triage': { lead: Y, advisor: Y, member: N, alumni: N },
 };
 const ROLES: Role[] = ['lead', 'advisor', 'member', 'alumni'];
 

@@ -59,3 +59,26 @@ export function digestEmail(p: {
     footer: [`You receive this digest because you turned it on. Turn it off on your account page: ${p.accountUrl}`],
   });
 }
+
+export function onboardingNudgeEmail(p: {
+  name: string;
+  leadName: string;
+  routes: { name: string; done: number; total: number; url: string }[];
+  note?: string;
+}): RenderedEmail {
+  const first = p.routes.find((r) => r.done < r.total) ?? p.routes[0];
+  return renderEmail({
+    subject: `${p.leadName} asks you to carry on with your onboarding`,
+    preheader: first ? `${first.name}: ${first.done} of ${first.total} done.` : 'Your onboarding route is waiting.',
+    greeting: `Hello ${p.name},`,
+    paragraphs: [
+      `${p.leadName} is checking how the new members are getting on and asks you to carry on with your onboarding route in Wakebook: the guides, records and calculations the team picked for newcomers, in order.`,
+      ...(p.note ? [p.note] : []),
+      p.routes.length
+        ? `Where you are: ${p.routes.map((r) => `${r.name} ${r.done} of ${r.total}`).join('; ')}.`
+        : 'You have no subsystem yet; every subsystem page has a route you can follow.',
+    ],
+    ...(first ? { action: { label: `Open the ${first.name} route`, url: first.url } } : {}),
+    footer: ['You received this because a team lead sent you a reminder from the onboarding progress page.'],
+  });
+}
