@@ -44,6 +44,9 @@ export function canMove(kind: RecordKind, from: string, to: string): boolean {
   return nextStatuses(kind, from).some((s) => s === to);
 }
 
+/** A change note ("why this change") is one short sentence kept with the version it explains. */
+export const MAX_CHANGE_NOTE = 280;
+
 /** Superseding always names the record that replaces it. */
 export function needsReplacement(to: string): boolean {
   return to === 'superseded';
