@@ -55,3 +55,17 @@ export function needsReplacement(to: string): boolean {
 export function isValidStatus(kind: RecordKind, status: string): boolean {
   return STATUSES[kind].some((s) => s === status);
 }
+
+/**
+ * What a decision still needs before it can be accepted, in words for the facts panel; null when nothing is
+ * pending (accepted, or its story is over) and for lessons. Mirrors the server's rule in records/write.ts.
+ */
+export function acceptanceNeeds(r: { kind: RecordKind; status: string; reviewedCurrent: boolean }): string | null {
+  if (r.kind !== 'decision') return null;
+  if (r.status === 'draft')
+    return 'Still a draft: its author proposes it to the team, then an advisor or a lead reviews it.';
+  if (r.status !== 'proposed') return null;
+  return r.reviewedCurrent
+    ? 'Reviewed: ready to be accepted.'
+    : 'Waiting for a review: an advisor or a lead reviews this version, or accepts it.';
+}

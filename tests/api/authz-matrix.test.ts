@@ -56,8 +56,10 @@ const MATRIX: Record<string, Row> = {
   'POST /api/records': { allow: WRITERS },
   'GET /api/records/[id]': { allow: ALL, params: REC },
   'PATCH /api/records/[id]': { allow: WRITERS, params: REC },
+  // Drafts only, by their author or a lead: the demo record is accepted, so writers get 409 here, others 403.
+  'DELETE /api/records/[id]': { allow: WRITERS, params: REC },
   'GET /api/records/[id]/revisions': { allow: ALL, params: REC },
-  'POST /api/records/[id]/status': { allow: WRITERS, params: REC },
+  'POST /api/records/[id]/status': { allow: [...WRITERS, 'advisor'], params: REC },
   'POST /api/records/[id]/review': { allow: REVIEWERS, params: { id: 'nope' } },
   'GET /api/records/[id]/comments': { allow: ALL, params: REC },
   'POST /api/records/[id]/comments': { allow: ALL, params: { id: 'nope' } },

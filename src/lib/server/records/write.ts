@@ -311,6 +311,13 @@ export function changeStatus(
   return getRecordView(id)!;
 }
 
+/** Refuses, before anything is read, someone who may make no status move at all (alumni). */
+export function requireSomeStatusRight(actor: Actor): void {
+  const any = { seasonIsCurrent: true };
+  if (!(['record:status', 'record:accept', 'record:withdraw'] as const).some((a) => can(actor, a, any)))
+    throw forbidden('Your role may not change the status of records.');
+}
+
 function statusAction(to: RecordStatus) {
   return to === 'accepted' ? 'record:accept' : to === 'withdrawn' ? 'record:withdraw' : 'record:status';
 }
