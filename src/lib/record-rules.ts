@@ -9,6 +9,8 @@ import {
   type RecordStatus,
 } from './domain';
 
+import type { Action } from './policy';
+
 export type { RecordKind } from './domain';
 
 const DECISION_MOVES: Record<DecisionStatus, readonly DecisionStatus[]> = {
@@ -68,4 +70,9 @@ export function acceptanceNeeds(r: { kind: RecordKind; status: string; reviewedC
   return r.reviewedCurrent
     ? 'Reviewed: ready to be accepted.'
     : 'Waiting for a review: an advisor or a lead reviews this version, or accepts it.';
+}
+
+/** The permission a status move asks for (lib/policy.ts): advisors may accept and withdraw, nothing else. */
+export function actionForMove(to: string): Action {
+  return to === 'accepted' ? 'record:accept' : to === 'withdrawn' ? 'record:withdraw' : 'record:status';
 }

@@ -8,9 +8,9 @@ import { currentSeason, findSeason, findSubsystem } from '../seasons';
 import { existingCalculationIds } from '../calculations';
 import { processBody } from './body';
 import { getRecordView, recordExists, type RecordView } from './view';
-import { canMove, INITIAL_STATUS, isValidStatus, needsReplacement } from '../../record-rules';
+import { actionForMove, canMove, INITIAL_STATUS, isValidStatus, needsReplacement } from '../../record-rules';
 import type { RecordStatus, Role } from '../../domain';
-import { can } from '../../policy';
+import { can, type Action } from '../../policy';
 import type { RecordCreateInput, RecordPatchInput } from '../../schemas/records';
 import { onRecordChanged } from './hooks';
 
@@ -139,11 +139,7 @@ export function createRecord(input: RecordCreateInput, actor: Actor): RecordView
 }
 
 /** Loads a record and checks the actor may change it (members: current season only). */
-export function loadForWrite(
-  id: string,
-  actor: Actor,
-  action: 'record:edit' | 'record:status' | 'record:accept' | 'record:withdraw' | 'attachment:upload' = 'record:edit',
-) {
+export function loadForWrite(id: string, actor: Actor, action: Action = 'record:edit') {
   const current = getRecordView(id);
   if (!current) throw notFound('That record');
   if (!can(actor, action, { seasonIsCurrent: current.seasonIsCurrent })) {
@@ -223,7 +219,7 @@ export function changeStatus(
   input: { status: RecordStatus; supersededBy?: string; version?: number },
   actor: Actor,
 ): RecordView {
-  const current = loadForWrite(id, actor, statusAction(input.status));
+  const current = loadForWrite(id, actor, actionForMove(input.status));
   if (input.version !== undefined && input.version !== current.version) {
     throw conflict(`Someone saved version ${current.version} while you looked at version ${input.version}.`, {
       current,
@@ -316,10 +312,6 @@ export function requireSomeStatusRight(actor: Actor): void {
   const any = { seasonIsCurrent: true };
   if (!(['record:status', 'record:accept', 'record:withdraw'] as const).some((a) => can(actor, a, any)))
     throw forbidden('Your role may not change the status of records.');
-}
-
-function statusAction(to: RecordStatus) {
-  return to === 'accepted' ? 'record:accept' : to === 'withdrawn' ? 'record:withdraw' : 'record:status';
 }
 
 /**
