@@ -33,6 +33,7 @@ const MATRIX: Record<string, Row> = {
   'POST /api/auth/reset': { allow: 'public' },
   'GET /api/me': { allow: ALL },
   'PATCH /api/me': { allow: ALL },
+  'POST /api/account/password': { allow: ALL },
   'GET /api/seasons': { allow: ALL },
   'POST /api/seasons': { allow: LEAD },
   'PATCH /api/seasons/[id]': { allow: LEAD, params: { id: 'SEASON' } },
