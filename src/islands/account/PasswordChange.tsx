@@ -36,7 +36,10 @@ export default function PasswordChange() {
         setErrors(err.fieldErrors() as Partial<Record<Field, string>>);
         setMessage({
           kind: 'error',
-          text: err.status === 400 ? 'The password was not changed: see below.' : err.message,
+          text:
+            err.status === 400
+              ? 'The password was not changed: see the message under the field concerned.'
+              : err.message,
         });
       } else setMessage({ kind: 'error', text: 'Could not reach the server; the password was not changed.' });
     } finally {
@@ -92,7 +95,7 @@ export default function PasswordChange() {
         {message && (
           <p
             role={message.kind === 'error' ? 'alert' : 'status'}
-            className={message.kind === 'error' ? 'alert' : 'notice'}
+            className={message.kind === 'error' ? 'alert' : 'rounded bg-accent-soft px-3 py-2 text-sm'}
           >
             {message.text}
           </p>

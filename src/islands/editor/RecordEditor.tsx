@@ -505,34 +505,29 @@ export default function RecordEditor({
         <p className="field-error">{errors.calculationIds ?? errors.relatedRecordIds}</p>
       )}
 
-      {record && (
-        <div className="field max-w-xl">
-          <label htmlFor="rec-change-note">
-            Why this change <span className="font-normal text-muted">(optional, shown in the history)</span>
-          </label>
-          <input
-            id="rec-change-note"
-            className="input"
-            value={changeNote}
-            maxLength={MAX_CHANGE_NOTE}
-            onChange={(e) => setChangeNote(e.target.value)}
-            placeholder="e.g. Added the bollard pull results"
-            aria-invalid={errors.changeNote ? true : undefined}
-            aria-describedby={errors.changeNote ? 'rec-change-note-error' : 'rec-change-note-help'}
-          />
-          {errors.changeNote ? (
-            <p id="rec-change-note-error" className="field-error">
-              {errors.changeNote}
-            </p>
-          ) : (
-            <p id="rec-change-note-help" className="text-xs text-muted">
-              A sentence for whoever reads the history next season. Up to {MAX_CHANGE_NOTE} characters.
-            </p>
-          )}
-        </div>
-      )}
-
-      <div className="sticky bottom-0 flex flex-wrap items-center gap-3 border-t border-line bg-paper py-3">
+      <div className="sticky bottom-0 flex flex-wrap items-end gap-3 border-t border-line bg-paper py-3">
+        {record && (
+          <div className="field min-w-0 flex-[1_1_22rem]">
+            <label htmlFor="rec-change-note" className="text-sm">
+              Why this change <span className="font-normal text-muted">(optional, shown in the history)</span>
+            </label>
+            <input
+              id="rec-change-note"
+              className="input"
+              value={changeNote}
+              maxLength={MAX_CHANGE_NOTE}
+              onChange={(e) => setChangeNote(e.target.value)}
+              placeholder="e.g. Added the bollard pull results"
+              aria-invalid={errors.changeNote ? true : undefined}
+              aria-describedby={errors.changeNote ? 'rec-change-note-error' : undefined}
+            />
+            {errors.changeNote && (
+              <p id="rec-change-note-error" className="field-error">
+                {errors.changeNote}
+              </p>
+            )}
+          </div>
+        )}
         <button type="submit" className="btn btn-primary" disabled={saving}>
           {saving
             ? 'Saving…'
