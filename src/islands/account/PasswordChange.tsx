@@ -33,7 +33,7 @@ export default function PasswordChange() {
       });
     } catch (err) {
       if (err instanceof ApiError) {
-        setErrors(err.fieldErrors() as Partial<Record<Field, string>>);
+        setErrors(err.fieldErrors());
         setMessage({
           kind: 'error',
           text:

@@ -81,8 +81,12 @@ export default function RecordEditor({
   const [fields, setFields] = useState<Fields>(initialFields);
   const [version, setVersion] = useState(record?.version ?? 0);
   const [saved, setSaved] = useState(() => JSON.stringify({ fields: initialFields, body: initialBody }));
+  // A draft kept in this browser that differs from what the server has is offered back (read once, on mount).
+  const [restorable, setRestorable] = useState<Draft | null>(() => {
+    const d = readDraft(key);
+    return d && JSON.stringify({ fields: d.fields, body: d.body }) !== saved ? d : null;
+  });
   const [bodyJson, setBodyJson] = useState<JSONContent>(initialBody);
-  const [restorable, setRestorable] = useState<Draft | null>(null);
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [message, setMessage] = useState<{ tone: 'ok' | 'error'; text: string } | null>(null);
   const [saving, setSaving] = useState(false);
@@ -107,13 +111,6 @@ export default function RecordEditor({
   });
 
   const dirty = JSON.stringify({ fields, body: bodyJson }) !== saved;
-
-  // Offer a local draft that differs from what the server has.
-  useEffect(() => {
-    const d = readDraft(key);
-    if (d && JSON.stringify({ fields: d.fields, body: d.body }) !== saved) setRestorable(d);
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [key]);
 
   // Keep unsaved work in this browser, so a reload or a crash loses nothing.
   useEffect(() => {

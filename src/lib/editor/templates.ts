@@ -70,7 +70,7 @@ const NEEDED: Record<RecordKind, readonly string[]> = {
 };
 
 export function thinSections(kind: RecordKind, doc: unknown): string[] {
-  const blocks = ((doc as JSONContent | null)?.content ?? []) as JSONContent[];
+  const blocks = (doc as JSONContent | null)?.content ?? [];
   const written = new Map<string, boolean>();
   let current: string | null = null;
   for (const b of blocks) {

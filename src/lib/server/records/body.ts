@@ -73,7 +73,7 @@ export function processBody(input: unknown, { repair = false } = {}): ProcessedB
   let cleaned: JSONContent;
   try {
     // A root that was only an empty list comes back null and is refused below as not a document.
-    cleaned = withoutPrompts(clean(input as JSONContent, 0, repair) ?? { type: 'empty list' });
+    cleaned = withoutPrompts(clean(input, 0, repair) ?? { type: 'empty list' });
   } catch (e) {
     if (e instanceof BodyProblem) throw fail(e.message);
     throw e;
@@ -172,7 +172,9 @@ function cleanAttrs(type: string, given: unknown, repair: boolean): Record<strin
 function keepOnlyLinkHref(n: JSONContent): JSONContent {
   const out: JSONContent = { ...n };
   if (n.marks)
-    out.marks = n.marks.map((m) => (m.type === 'link' ? { type: 'link', attrs: { href: m.attrs?.href } } : m));
+    out.marks = n.marks.map((m) =>
+      m.type === 'link' ? { type: 'link', attrs: { href: m.attrs?.href as unknown } } : m,
+    );
   if (n.content) out.content = n.content.map(keepOnlyLinkHref);
   return out;
 }
