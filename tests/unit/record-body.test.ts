@@ -169,7 +169,9 @@ describe('normalising what the editor sends', () => {
       const json = JSON.stringify(out.doc);
       expect(json).not.toContain('italic');
       for (const prompt of SECTION_PROMPTS) expect(out.text).not.toContain(prompt);
-      expect(out.text.split('\n').filter(Boolean)).toEqual(kind === 'decision' ? [...DECISION_SECTIONS] : [...LESSON_SECTIONS]);
+      expect(out.text.split('\n').filter(Boolean)).toEqual(
+        kind === 'decision' ? [...DECISION_SECTIONS] : [...LESSON_SECTIONS],
+      );
     }
   });
 });
