@@ -81,12 +81,13 @@ export default function RecordEditor({
   const [fields, setFields] = useState<Fields>(initialFields);
   const [version, setVersion] = useState(record?.version ?? 0);
   const [saved, setSaved] = useState(() => JSON.stringify({ fields: initialFields, body: initialBody }));
-  // A draft kept in this browser that differs from what the server has is offered back (read once, on mount).
+  const [bodyJson, setBodyJson] = useState<JSONContent>(initialBody);
+  // Offer a local draft that differs from what the server has. The island renders only in the browser
+  // (`client:only`), so the draft is read once, as it mounts; key and record do not change while it lives.
   const [restorable, setRestorable] = useState<Draft | null>(() => {
     const d = readDraft(key);
     return d && JSON.stringify({ fields: d.fields, body: d.body }) !== saved ? d : null;
   });
-  const [bodyJson, setBodyJson] = useState<JSONContent>(initialBody);
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [message, setMessage] = useState<{ tone: 'ok' | 'error'; text: string } | null>(null);
   const [saving, setSaving] = useState(false);

@@ -23,6 +23,7 @@ class PreparedSessionAdapter extends DrizzleSQLiteAdapter {
     'SELECT s.id AS sid, s.user_id AS uid, s.expires_at AS exp, u.email AS email, u.name AS name, u.role AS role FROM sessions s JOIN users u ON u.id = s.user_id WHERE s.id = ?',
   );
 
+  // better-sqlite3 answers synchronously; the adapter interface wants a promise.
   override getSessionAndUser(sessionId: string): Promise<[DatabaseSession | null, DatabaseUser | null]> {
     const row = this.lookup.get(sessionId) as
       { sid: string; uid: string; exp: number; email: string; name: string; role: Role } | undefined;
