@@ -22,6 +22,9 @@ export type Action =
   | 'record:create'
   | 'record:edit'
   | 'record:status'
+  | 'record:accept' // a decision: accept it (a member needs a review of the current version first; see records/write.ts)
+  | 'record:withdraw' // a decision: withdraw it
+  | 'record:discard' // a draft: delete it for good
   | 'record:review'
   | 'record:comment'
   | 'attachment:upload'
@@ -39,15 +42,21 @@ export type Action =
 export interface Subject {
   /** The record or calculation belongs to the current season. */
   seasonIsCurrent?: boolean;
+  /** The record or calculation was written by the person asking. */
+  isOwn?: boolean;
 }
 
 type Rule = boolean | ((subject: Subject) => boolean);
 const currentSeasonOnly: Rule = (s) => s.seasonIsCurrent === true;
+const ownOnly: Rule = (s) => s.isOwn === true;
 
 const POLICY: Record<Role, Partial<Record<Action, Rule>>> = {
   lead: {}, // leads may do everything; see can()
   advisor: {
     read: true,
+    // Advisors decide on decisions (accept, withdraw) but never write their text.
+    'record:accept': true,
+    'record:withdraw': true,
     'record:review': true,
     'record:comment': true,
     'onboarding:curate': true,
@@ -61,6 +70,9 @@ const POLICY: Record<Role, Partial<Record<Action, Rule>>> = {
     'record:create': true,
     'record:edit': currentSeasonOnly,
     'record:status': currentSeasonOnly,
+    'record:accept': currentSeasonOnly,
+    'record:withdraw': currentSeasonOnly,
+    'record:discard': ownOnly,
     'record:comment': true,
     'attachment:upload': currentSeasonOnly,
     'calculation:create': currentSeasonOnly,
@@ -101,6 +113,9 @@ export const ALL_ACTIONS: Action[] = [
   'record:create',
   'record:edit',
   'record:status',
+  'record:accept',
+  'record:withdraw',
+  'record:discard',
   'record:review',
   'record:comment',
   'attachment:upload',

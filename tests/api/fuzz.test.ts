@@ -25,6 +25,7 @@ const FIELDS: Record<string, Record<string, FieldType>> = {
   'POST /api/auth/request-reset': { email: 'string' },
   'POST /api/auth/reset': { token: 'string', password: 'string' },
   'PATCH /api/me': { digestOptIn: 'boolean' },
+  'POST /api/account/password': { currentPassword: 'string', newPassword: 'string' },
   'POST /api/seasons': { name: 'string', startsOn: 'string', endsOn: 'string', phase: 'string' },
   'PATCH /api/seasons/[id]': { name: 'string', phase: 'string', startsOn: 'string', current: 'boolean' },
   'POST /api/seasons/[id]/rollover': { continuing: 'array', confirm: 'boolean' },
@@ -42,6 +43,8 @@ const FIELDS: Record<string, Record<string, FieldType>> = {
     calculationIds: 'array',
   },
   'PATCH /api/records/[id]': { version: 'number', title: 'string', body: 'object', relatedRecordIds: 'array' },
+  // Reads no body (its file's PATCH does); whatever is sent, an accepted record is never discarded.
+  'DELETE /api/records/[id]': { version: 'number' },
   'POST /api/records/[id]/status': { status: 'string', supersededBy: 'string', version: 'number' },
   'POST /api/records/[id]/review': { note: 'string' },
   'POST /api/records/[id]/comments': { body: 'string', parentId: 'string' },

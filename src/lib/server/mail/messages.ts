@@ -44,6 +44,25 @@ export function resetEmail(p: { name: string; url: string; expiresAt: Date }): R
   });
 }
 
+export function passwordChangedEmail(p: { name: string; at: Date; otherSessions: number; resetUrl: string }) {
+  const others =
+    p.otherSessions === 0
+      ? 'You were not signed in anywhere else.'
+      : `${p.otherSessions === 1 ? 'One other device or browser was' : `${p.otherSessions} other devices or browsers were`} signed out.`;
+  return renderEmail({
+    subject: 'Your Wakebook password was changed',
+    preheader: `Changed on ${fmtDate(p.at)} at ${p.at.toISOString().slice(11, 16)} UTC.`,
+    greeting: `Hello ${p.name},`,
+    paragraphs: [
+      `The password of your Wakebook account was changed on ${fmtDate(p.at)} at ${p.at.toISOString().slice(11, 16)} UTC, by someone signed in as you who knew the old one. ${others}`,
+      'If that was you, there is nothing more to do.',
+      'If it was not you, choose a new password now with the link below (it sends a reset link to this address), and tell one of your team leads.',
+    ],
+    action: { label: 'Reset my password', url: p.resetUrl },
+    footer: ['You receive this message whenever your password changes; it cannot be turned off.'],
+  });
+}
+
 export function digestEmail(p: {
   name: string;
   since: Date;
