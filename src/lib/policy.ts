@@ -24,6 +24,7 @@ export type Action =
   | 'record:status'
   | 'record:review'
   | 'record:comment'
+  | 'question:mark-answered'
   | 'attachment:upload'
   | 'calculation:create'
   | 'calculation:recompute'
@@ -35,10 +36,13 @@ export type Action =
 export interface Subject {
   /** The record or calculation belongs to the current season. */
   seasonIsCurrent?: boolean;
+  /** The caller asked the question or wrote the record it is on. */
+  isOwn?: boolean;
 }
 
 type Rule = boolean | ((subject: Subject) => boolean);
 const currentSeasonOnly: Rule = (s) => s.seasonIsCurrent === true;
+const ownOnly: Rule = (s) => s.isOwn === true;
 
 const POLICY: Record<Role, Partial<Record<Action, Rule>>> = {
   lead: {}, // leads may do everything; see can()
@@ -46,6 +50,7 @@ const POLICY: Record<Role, Partial<Record<Action, Rule>>> = {
     read: true,
     'record:review': true,
     'record:comment': true,
+    'question:mark-answered': true,
     'onboarding:curate': true,
     'onboarding:follow': true,
   },
@@ -55,6 +60,7 @@ const POLICY: Record<Role, Partial<Record<Action, Rule>>> = {
     'record:edit': currentSeasonOnly,
     'record:status': currentSeasonOnly,
     'record:comment': true,
+    'question:mark-answered': ownOnly,
     'attachment:upload': currentSeasonOnly,
     'calculation:create': currentSeasonOnly,
     'calculation:recompute': currentSeasonOnly,
@@ -63,6 +69,7 @@ const POLICY: Record<Role, Partial<Record<Action, Rule>>> = {
   alumni: {
     read: true,
     'record:comment': true,
+    'question:mark-answered': ownOnly,
     'onboarding:follow': true,
   },
 };
@@ -94,6 +101,7 @@ export const ALL_ACTIONS: Action[] = [
   'record:status',
   'record:review',
   'record:comment',
+  'question:mark-answered',
   'attachment:upload',
   'calculation:create',
   'calculation:recompute',

@@ -3,11 +3,13 @@ import type { Role } from '../../src/lib/domain';
 import { can, ALL_ACTIONS, type Action } from '../../src/lib/policy';
 
 // The permissions of PRODUCT.md ("People and roles"), written out in full so a change to the policy
-// shows up here as a deliberate edit. C = only for the current season's work.
+// shows up here as a deliberate edit. C = only for the current season's work; O = only one's own (the question
+// one asked, or one on a record one wrote).
 const Y = true;
 const N = false;
 const C = 'current' as const;
-type Cell = boolean | typeof C;
+const O = 'own' as const;
+type Cell = boolean | typeof C | typeof O;
 const EXPECTED: Record<Action, Record<Role, Cell>> = {
   read: { lead: Y, advisor: Y, member: Y, alumni: Y },
   'season:manage': { lead: Y, advisor: N, member: N, alumni: N },
@@ -23,6 +25,7 @@ const EXPECTED: Record<Action, Record<Role, Cell>> = {
   'record:status': { lead: Y, advisor: N, member: C, alumni: N },
   'record:review': { lead: Y, advisor: Y, member: N, alumni: N },
   'record:comment': { lead: Y, advisor: Y, member: Y, alumni: Y },
+  'question:mark-answered': { lead: Y, advisor: Y, member: O, alumni: O },
   'attachment:upload': { lead: Y, advisor: N, member: C, alumni: N },
   'calculation:create': { lead: Y, advisor: N, member: C, alumni: N },
   'calculation:recompute': { lead: Y, advisor: N, member: C, alumni: N },
@@ -40,8 +43,20 @@ describe('policy: every role × action', () => {
   for (const action of ALL_ACTIONS) {
     for (const role of ROLES) {
       const cell = EXPECTED[action][role];
-      it(`${role} ${cell === C ? 'may, in the current season only,' : cell ? 'may' : 'may not'} ${action}`, () => {
-        if (cell === C) {
+      const how =
+        cell === C
+          ? 'may, in the current season only,'
+          : cell === O
+            ? 'may, for their own only,'
+            : cell
+              ? 'may'
+              : 'may not';
+      it(`${role} ${how} ${action}`, () => {
+        if (cell === O) {
+          expect(can({ role }, action, { isOwn: true })).toBe(true);
+          expect(can({ role }, action, { isOwn: false, seasonIsCurrent: true })).toBe(false);
+          expect(can({ role }, action)).toBe(false);
+        } else if (cell === C) {
           expect(can({ role }, action, { seasonIsCurrent: true })).toBe(true);
           expect(can({ role }, action, { seasonIsCurrent: false })).toBe(false);
           expect(can({ role }, action)).toBe(false);

@@ -1,101 +1,192 @@
-import { useState, type FormEvent } from 'react';
+import { useId, useState, type FormEvent } from 'react';
 import useSWR from 'swr';
 import { apiFetch, ApiError, fetcher } from '~/lib/client/api';
+import { can } from '~/lib/policy';
+import type { CommentKind, Role } from '~/lib/domain';
 
-interface Comment {
+export interface CommentItem {
   id: string;
+  kind: CommentKind;
   body: string;
-  parentId: string | null;
+  replyTo: string | null;
   createdAt: string;
+  authorId: string | null;
   author: string;
   authorRole: string | null;
+  answeredAt: string | null;
+  answeredBy: string | null;
 }
 
-/** Questions and answers on a record; alumni answer the new cohort here. */
+/**
+ * Questions and notes on a record, each with its answers under it. A question's asker, the record's author, an
+ * advisor or a lead can mark it answered; asking e-mails the record's author and the subsystem's earlier owners.
+ */
 export default function Comments({
   recordId,
-  canComment,
+  recordAuthorId,
+  me,
   initial,
 }: {
   recordId: string;
-  canComment: boolean;
-  initial: Comment[];
+  recordAuthorId: string | null;
+  me: { id: string; role: Role };
+  initial: CommentItem[];
 }) {
   const key = `/api/records/${recordId}/comments`;
-  const { data, mutate } = useSWR<{ comments: Comment[] }>(key, fetcher, {
+  const { data, mutate } = useSWR<{ comments: CommentItem[] }>(key, fetcher, {
     fallbackData: { comments: initial },
     revalidateOnMount: false,
   });
   const comments = data?.comments ?? [];
-  const roots = comments.filter((c) => !c.parentId || !comments.some((p) => p.id === c.parentId));
-  const replies = (id: string) => comments.filter((c) => c.parentId === id);
+  const canComment = can(me, 'record:comment');
+  const roots = comments.filter((c) => !c.replyTo || !comments.some((p) => p.id === c.replyTo));
+  const replies = (id: string) => comments.filter((c) => c.replyTo === id);
+  const questions = roots.filter((c) => c.kind === 'question');
+  const open = questions.filter((c) => !c.answeredAt).length;
   return (
     <section aria-labelledby="comments-h" className="flex flex-col gap-4">
       <h2 id="comments-h" className="text-lg font-semibold">
-        Questions and answers ({comments.length})
+        Questions and notes ({roots.length})
       </h2>
+      {questions.length > 0 && (
+        <p className="text-sm text-muted">
+          {open === 0
+            ? 'Every question here is answered.'
+            : `${open} open question${open === 1 ? '' : 's'}: the record’s author and the people who looked after this subsystem in earlier seasons were told.`}
+        </p>
+      )}
       {comments.length === 0 && (
         <p className="text-sm text-muted">
-          No questions yet. Ask here: alumni who wrote or lived this record get to answer.
+          Nothing asked yet. A question reaches whoever wrote this record and the people who looked after its subsystem
+          in earlier seasons.
         </p>
       )}
       <ol className="flex flex-col gap-3">
-        {roots.map((c) => (
-          <li key={c.id} className="rounded-lg border border-line bg-surface p-3">
-            <CommentBody c={c} />
-            {replies(c.id).length > 0 && (
-              <ol className="mt-3 flex flex-col gap-2 border-l-2 border-line pl-3">
-                {replies(c.id).map((r) => (
-                  <li key={r.id}>
-                    <CommentBody c={r} />
-                  </li>
-                ))}
-              </ol>
-            )}
-            {canComment && (
-              <CommentForm recordId={recordId} parentId={c.id} label="Answer" onDone={() => mutate()} compact />
-            )}
-          </li>
-        ))}
+        {roots.map((c) => {
+          const mayMark =
+            c.kind === 'question' &&
+            !c.answeredAt &&
+            can(me, 'question:mark-answered', { isOwn: c.authorId === me.id || recordAuthorId === me.id });
+          return (
+            <li
+              key={c.id}
+              id={`comment-${c.id}`}
+              className="scroll-mt-24 rounded-lg border border-line bg-surface p-3"
+              aria-label={c.kind === 'question' ? `Question from ${c.author}` : `Note from ${c.author}`}
+            >
+              <CommentBody c={c} />
+              {replies(c.id).length > 0 && (
+                <ol
+                  className="mt-3 flex flex-col gap-2 border-l-2 border-line pl-3"
+                  aria-label={c.kind === 'question' ? 'Answers' : 'Replies'}
+                >
+                  {replies(c.id).map((r) => (
+                    <li key={r.id} id={`comment-${r.id}`}>
+                      <CommentBody c={r} />
+                    </li>
+                  ))}
+                </ol>
+              )}
+              <div className="flex flex-wrap items-start gap-3">
+                {canComment && (
+                  <CommentForm
+                    recordId={recordId}
+                    replyTo={c.id}
+                    label={c.kind === 'question' ? 'Answer' : 'Reply'}
+                    onDone={() => void mutate()}
+                  />
+                )}
+                {mayMark && <MarkAnswered id={c.id} onDone={() => void mutate()} />}
+              </div>
+            </li>
+          );
+        })}
       </ol>
-      {canComment && <CommentForm recordId={recordId} label="Ask a question or add a note" onDone={() => mutate()} />}
+      {canComment && (
+        <CommentForm recordId={recordId} label="Ask a question or add a note" onDone={() => void mutate()} />
+      )}
     </section>
   );
 }
 
-function CommentBody({ c }: { c: Comment }) {
+function CommentBody({ c }: { c: CommentItem }) {
   return (
     <div>
-      <p className="text-sm">
+      <p className="flex flex-wrap items-baseline gap-x-2 text-sm">
+        {c.kind === 'question' && !c.replyTo && (
+          <span className={c.answeredAt ? 'status status-accepted' : 'status status-open'}>
+            <span aria-hidden="true">{c.answeredAt ? '✓' : '?'}</span>
+            {c.answeredAt ? 'Answered question' : 'Open question'}
+          </span>
+        )}
         <strong>{c.author}</strong>
-        {c.authorRole && <span className="text-muted"> · {c.authorRole}</span>}{' '}
+        {c.authorRole && <span className="text-muted">{c.authorRole}</span>}
         <time className="text-muted tabular" dateTime={c.createdAt}>
-          · {c.createdAt.slice(0, 10)}
+          {c.createdAt.slice(0, 10)}
         </time>
       </p>
       <p className="mt-1 whitespace-pre-line">{c.body}</p>
+      {c.answeredAt && (
+        <p className="mt-1 text-xs text-muted">
+          Marked answered by {c.answeredBy} on {c.answeredAt.slice(0, 10)}
+        </p>
+      )}
+    </div>
+  );
+}
+
+function MarkAnswered({ id, onDone }: { id: string; onDone: () => void }) {
+  const [busy, setBusy] = useState(false);
+  const [error, setError] = useState('');
+  return (
+    <div className="mt-2">
+      <button
+        type="button"
+        className="btn btn-quiet text-sm"
+        disabled={busy}
+        onClick={async () => {
+          setBusy(true);
+          setError('');
+          try {
+            await apiFetch(`/api/comments/${id}/answered`, { method: 'POST', json: {} });
+            onDone();
+          } catch (e) {
+            setError(e instanceof ApiError ? e.message : 'Could not reach the server; try again.');
+          } finally {
+            setBusy(false);
+          }
+        }}
+      >
+        {busy ? 'Marking…' : 'Mark answered'}
+      </button>
+      {error && (
+        <p role="alert" className="field-error">
+          {error}
+        </p>
+      )}
     </div>
   );
 }
 
 function CommentForm({
   recordId,
-  parentId,
+  replyTo,
   label,
   onDone,
-  compact = false,
 }: {
   recordId: string;
-  parentId?: string;
+  replyTo?: string;
   label: string;
   onDone: () => void;
-  compact?: boolean;
 }) {
+  const compact = !!replyTo;
   const [body, setBody] = useState('');
+  const [kind, setKind] = useState<CommentKind>('question');
   const [open, setOpen] = useState(!compact);
   const [error, setError] = useState('');
   const [busy, setBusy] = useState(false);
-  const id = `comment-${parentId ?? 'new'}`;
+  const id = `comment-form-${replyTo ?? 'new'}`;
+  const kindName = useId();
   if (!open)
     return (
       <button type="button" className="mt-2 text-sm text-accent underline" onClick={() => setOpen(true)}>
@@ -109,7 +200,7 @@ function CommentForm({
     try {
       await apiFetch(`/api/records/${recordId}/comments`, {
         method: 'POST',
-        json: { body, ...(parentId ? { parentId } : {}) },
+        json: replyTo ? { body, replyTo } : { body, kind },
       });
       setBody('');
       if (compact) setOpen(false);
@@ -125,10 +216,35 @@ function CommentForm({
     }
   }
   return (
-    <form onSubmit={submit} className="mt-2 flex flex-col gap-2" noValidate>
+    <form onSubmit={submit} className="mt-2 flex w-full flex-col gap-2" noValidate>
       <label htmlFor={id} className={compact ? 'sr-only' : 'text-sm font-semibold'}>
         {label}
       </label>
+      {!compact && (
+        <fieldset className="flex flex-wrap gap-4 text-sm">
+          <legend className="sr-only">What are you writing?</legend>
+          <label className="flex items-center gap-1.5">
+            <input
+              type="radio"
+              name={kindName}
+              value="question"
+              checked={kind === 'question'}
+              onChange={() => setKind('question')}
+            />
+            A question (the people who know are told)
+          </label>
+          <label className="flex items-center gap-1.5">
+            <input
+              type="radio"
+              name={kindName}
+              value="note"
+              checked={kind === 'note'}
+              onChange={() => setKind('note')}
+            />
+            A note
+          </label>
+        </fieldset>
+      )}
       <textarea
         id={id}
         className="input min-h-20"
@@ -144,7 +260,7 @@ function CommentForm({
         </p>
       )}
       <button type="submit" className="btn btn-quiet self-start text-sm" disabled={busy}>
-        {busy ? 'Posting…' : compact ? 'Post answer' : 'Post'}
+        {busy ? 'Posting…' : compact ? `Post ${label.toLowerCase()}` : kind === 'question' ? 'Ask' : 'Post note'}
       </button>
     </form>
   );

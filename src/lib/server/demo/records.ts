@@ -3,7 +3,7 @@ import { resolve } from 'node:path';
 import { parse as parseYaml } from 'yaml';
 import { z } from 'zod';
 import { attachments, comments, recordCalculations, recordLinks, recordRevisions, records } from '../db/schema';
-import { LESSON_SOURCES, RECORD_KINDS, RECORD_STATUSES } from '../../domain';
+import { COMMENT_KINDS, LESSON_SOURCES, RECORD_KINDS, RECORD_STATUSES } from '../../domain';
 import { newId } from '../ids';
 import { processBody } from '../records/body';
 import { sniffType } from '../filetype';
@@ -29,7 +29,21 @@ const frontSchema = z.object({
   reviewedBy: z.email().optional(),
   reviewedOn: dateish.optional(),
   attachments: z.array(z.string()).default([]),
-  comments: z.array(z.object({ author: z.email(), at: dateish, body: z.string() })).default([]),
+  comments: z
+    .array(
+      z.object({
+        /** A name for this comment inside the file, so an answer can say which question it answers. */
+        key: z.string().optional(),
+        author: z.email(),
+        at: dateish,
+        body: z.string(),
+        kind: z.enum(COMMENT_KINDS).default('note'),
+        replyTo: z.string().optional(),
+        answeredBy: z.email().optional(),
+        answeredOn: dateish.optional(),
+      }),
+    )
+    .default([]),
 });
 
 export type DemoRecord = z.infer<typeof frontSchema> & { markdown: string };
@@ -99,7 +113,6 @@ export function seedRecords(
     if (!seasonId) throw new Error(`demo record ${r.id}: unknown season ${r.season}`);
     const body = processBody(markdownToDoc(linkMentions(r.markdown, titles)));
     const authorId = user(r.author);
-    const lastComment = r.comments.reduce((t, c) => Math.max(t, c.at.getTime()), r.createdAt.getTime());
     tx.insert(records)
       .values({
         id: r.id,
@@ -115,7 +128,9 @@ export function seedRecords(
         bodyText: body.text,
         version: 1,
         createdAt: r.createdAt,
-        updatedAt: new Date(lastComment),
+        // The date of the current (only) version. A comment is not a version: taking the newest comment's date
+        // here once made the facts panel disagree with the history.
+        updatedAt: r.createdAt,
         updatedById: authorId,
         reviewedById: r.reviewedBy ? user(r.reviewedBy) : null,
         reviewedAt: r.reviewedOn ?? null,
@@ -136,14 +151,23 @@ export function seedRecords(
         createdAt: r.createdAt,
       })
       .run();
+    const commentIds = new Map<string, string>();
     for (const c of r.comments) {
+      const id = newId();
+      if (c.key) commentIds.set(c.key, id);
+      const parentId = c.replyTo ? commentIds.get(c.replyTo) : null;
+      if (parentId === undefined) throw new Error(`demo record ${r.id}: no earlier comment “${c.replyTo}”`);
       tx.insert(comments)
         .values({
-          id: newId(),
+          id,
           recordId: r.id,
           authorId: user(c.author),
+          parentId,
+          kind: c.replyTo ? 'note' : c.kind,
           body: plainMentions(c.body, titles),
           createdAt: c.at,
+          answeredAt: c.answeredOn ?? null,
+          answeredById: c.answeredBy ? user(c.answeredBy) : null,
         })
         .run();
     }
