@@ -20,7 +20,7 @@ export interface Block {
   /** Heading level (2, 3). */
   level?: number;
   /** The list the block sits in, innermost last: bullets, numbers or a task list (with the box's state). */
-  lists: { type: 'bullet' | 'ordered' | 'task'; checked?: boolean }[];
+  lists: { type: 'bullet' | 'ordered' | 'task'; checked?: boolean; number?: number }[];
   quote: boolean;
   runs: Run[];
 }
@@ -33,6 +33,8 @@ export interface Piece {
   op: PieceOp;
   /** The text is unchanged but its marks changed: what they were and are, in words. */
   markChange?: { before: string[]; after: string[] };
+  /** With markChange: the marks the older text had. */
+  oldMarks?: Mark[];
 }
 
 export type BlockOp = 'same' | 'changed' | 'added' | 'removed';
@@ -100,7 +102,13 @@ export function blocksOf(doc: unknown): Block[] {
         case 'taskItem': {
           const type: Block['lists'][number]['type'] =
             child.type === 'taskItem' ? 'task' : node.type === 'orderedList' ? 'ordered' : 'bullet';
-          const item = type === 'task' ? { type, checked: child.attrs?.checked === true } : { type };
+          const number = (node.content ?? []).indexOf(child) + Number(node.attrs?.start ?? 1);
+          const item =
+            type === 'task'
+              ? { type, checked: child.attrs?.checked === true }
+              : type === 'ordered'
+                ? { type, number }
+                : { type };
           walk(child, [...lists, item], quote);
           break;
         }
@@ -220,7 +228,7 @@ export function diffRuns(
         prev.text += (gap?.text ?? '') + newer.text;
       } else {
         marks++;
-        pieces.push({ text: newer.text, marks: newer.marks, op: 'same', markChange: change });
+        pieces.push({ text: newer.text, marks: newer.marks, op: 'same', markChange: change, oldMarks: older.marks });
       }
     }
     i += n;

@@ -94,6 +94,7 @@ describe('diffRuns: word by word', () => {
     const changed = d.pieces.find((x) => x.markChange)!;
     expect(changed.text).toBe('castle nut');
     expect(changed.markChange).toEqual({ before: [], after: ['bold'] });
+    expect(changed.oldMarks).toEqual([]);
     expect(d.inserted + d.deleted).toBe(0);
   });
 
