@@ -270,8 +270,14 @@ function tidy(pieces: Piece[]): Piece[] {
 }
 
 function similarity(a: Block, b: Block): number {
-  const wa = new Set(blockText(a).toLowerCase().split(/\s+/).filter(Boolean));
-  const wb = new Set(blockText(b).toLowerCase().split(/\s+/).filter(Boolean));
+  const words = (x: Block) =>
+    new Set(
+      blockText(x)
+        .toLowerCase()
+        .match(/[\p{L}\p{N}]+/gu) ?? [],
+    );
+  const wa = words(a);
+  const wb = words(b);
   if (wa.size === 0 && wb.size === 0) return 1;
   let shared = 0;
   for (const w of wa) if (wb.has(w)) shared++;
@@ -338,9 +344,11 @@ export function diffDocs(older: unknown, newer: unknown): DocDiff {
       added = b.slice(j0, j0 + n);
       j0 += n;
     }
+    // One block replaced by one block of the same kind is an edit of it, however much it changed.
+    const oneForOne = removed.length === 1 && added.length === 1 && removed[0].kind === added[0].kind;
     let j = 0;
     for (const old of removed) {
-      const match = added.findIndex((n, k) => k >= j && similarity(old, n) >= 0.3);
+      const match = oneForOne ? 0 : added.findIndex((n, k) => k >= j && similarity(old, n) >= 0.3);
       if (match === -1) {
         blocks.push(whole(old, 'del', stats));
         continue;

@@ -182,7 +182,7 @@ describe('questions', () => {
     const ID = 'demo-rec-2526-parts-lead-time'; // propulsion, written by the lead; Priya owned propulsion before
     const m = await signedIn('member@wakebook.test');
     await m.page.goto(`${baseUrl()}/records/${ID}`);
-    await m.page.getByLabel('Ask a question or add a note').fill('Which seal grease did you use on the pod shaft?');
+    await m.page.getByLabel('Ask a question or add a note').fill('Which foundry cast the 2025 propeller, and what did they quote?');
     await m.page.getByRole('button', { name: 'Ask' }).click();
     const item = m.page.getByRole('listitem', { name: 'Question from Jonas Lindqvist' }).last();
     await item.getByText('Open question').waitFor();
@@ -190,15 +190,15 @@ describe('questions', () => {
     const al = await signedIn('alumni@wakebook.test', 390, 844);
     await al.page.goto(`${baseUrl()}/`);
     expect(await al.page.getByRole('region', { name: 'Questions for you' }).textContent()).toContain(
-      'Which seal grease',
+      'Which foundry cast',
     );
     await shot(al.page, 'home-alumni-phone');
     await al.page.goto(`${baseUrl()}/records/${ID}`);
     const q = al.page.getByRole('listitem', { name: 'Question from Jonas Lindqvist' }).last();
     await q.getByRole('button', { name: 'Answer' }).click();
-    await q.getByRole('textbox').fill('A marine grease, reapplied after every race.');
+    await q.getByRole('textbox').fill('A small foundry by the harbour; six weeks quoted, nine taken.');
     await q.getByRole('button', { name: 'Post answer' }).click();
-    await q.getByText('A marine grease, reapplied after every race.').waitFor();
+    await q.getByText('A small foundry by the harbour; six weeks quoted, nine taken.').waitFor();
     // Alumni may not mark someone else's question answered: no button.
     expect(await q.getByRole('button', { name: 'Mark answered' }).count()).toBe(0);
 

@@ -145,6 +145,18 @@ describe('diffDocs', () => {
     });
   });
 
+  it('one short paragraph replaced by another in the same place is an edit of it', () => {
+    const d = diffDocs(doc(p('An 80 A fuse.')), doc(p('A 100 A fuse at the pack end.')));
+    expect(d.blocks.map((b) => b.op)).toEqual(['changed']);
+    expect(ops(d.blocks[0].pieces)).toEqual([
+      'del:An 80',
+      'ins:A 100',
+      'same: A fuse',
+      'ins: at the pack end',
+      'same:.',
+    ]);
+  });
+
   it('a title diff is word by word', () => {
     expect(ops(diffTitles('Run one propeller', 'Run two propellers'))).toEqual([
       'same:Run ',

@@ -28,8 +28,10 @@ const CHOICES: { value: SectionChoice; label: string }[] = [
   { value: 'both', label: 'Merge both' },
 ];
 
+/** A section's text without its heading, which the section's legend already shows. */
 function sectionDoc(p: SectionPair, side: 'mine' | 'theirs') {
-  return { type: 'doc', content: p[side]?.nodes ?? [] };
+  const nodes = p[side]?.nodes ?? [];
+  return { type: 'doc', content: p.title && nodes[0]?.type === 'heading' ? nodes.slice(1) : nodes };
 }
 
 export default function ConflictView({
