@@ -35,9 +35,29 @@ describe('demo dates', () => {
         .find((x) => x.version === r.version)!;
       expect(r.updatedAt.toISOString(), r.id).toBe(rev.createdAt.toISOString());
     }
-    // The record where the facts panel once said 2026-03-21 (a comment's day) and the history 2025-11-14.
+    // The record where the facts panel once said 2026-03-21 (a comment's day) and the history 2025-11-14: its
+    // current version is now dated by the day it was saved, and its first by the day it was written.
     const two = rows.find((r) => r.id === 'demo-rec-2526-two-propellers')!;
-    expect(two.updatedAt.toISOString().slice(0, 10)).toBe('2025-11-14');
+    expect(two.version).toBe(4);
+    expect(two.updatedAt.toISOString().slice(0, 10)).toBe('2026-03-22');
+    expect(two.createdAt.toISOString().slice(0, 10)).toBe('2025-11-14');
+  });
+
+  it('the demo has a record with several versions: edits with notes, a mark change and an acceptance', () => {
+    const h = recordHistory('demo-rec-2526-two-propellers')!;
+    expect(h.versions.map((v) => [v.version, v.status, v.editor])).toEqual([
+      [1, 'proposed', 'Jonas Lindqvist'],
+      [2, 'proposed', 'Jonas Lindqvist'],
+      [3, 'accepted', 'Dr. Felix Arnaud'],
+      [4, 'accepted', 'Jonas Lindqvist'],
+    ]);
+    expect(h.versions[1].changeNote).toContain('recomputed endurance calculation');
+    expect(h.versions[1].words).toMatchObject({ marks: 1 });
+    expect(h.versions[2]).toMatchObject({ statusChange: { from: 'proposed', to: 'accepted' }, changeNote: null });
+    expect(h.versions[3].words?.inserted).toBeGreaterThan(20);
+    // Reviewed on the day of version 3, so the facts panel can say it changed since.
+    const two = db().select().from(records).where(eq(records.id, 'demo-rec-2526-two-propellers')).get()!;
+    expect(two.reviewedVersion).toBe(3);
   });
 });
 

@@ -53,7 +53,7 @@ const CALCS = {
   "demo-calc-energy-2324": "2023–24", "demo-calc-solar-2324": "2023–24",
 };
 const ALLOWED_KEYS = new Set(["id", "kind", "title", "subsystem", "season", "status", "author", "createdAt", "source",
-  "calculations", "related", "supersedes", "reviewedBy", "reviewedOn", "attachments", "comments"]);
+  "calculations", "related", "supersedes", "reviewedBy", "reviewedOn", "attachments", "comments", "firstStatus", "versions"]);
 const REVIEWERS = new Set(["advisor@wakebook.test", "ruth.calloway@wakebook.test"]);
 
 const errors = [];
