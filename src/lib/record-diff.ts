@@ -137,7 +137,8 @@ function shapeOf(b: Block): string {
   return [kind, ...where].join(', ');
 }
 
-const markKey = (m: Mark) => (m.type === 'link' ? `link:${String(m.attrs?.href ?? '')}` : m.type);
+const markKey = (m: Mark) =>
+  m.type === 'link' ? `link:${typeof m.attrs?.href === 'string' ? m.attrs.href : ''}` : m.type;
 const marksKey = (marks: Mark[]) => marks.map(markKey).sort().join('|');
 
 const MARK_WORDS: Record<string, string> = {

@@ -182,7 +182,9 @@ describe('questions', () => {
     const ID = 'demo-rec-2526-parts-lead-time'; // propulsion, written by the lead; Priya owned propulsion before
     const m = await signedIn('member@wakebook.test');
     await m.page.goto(`${baseUrl()}/records/${ID}`);
-    await m.page.getByLabel('Ask a question or add a note').fill('Which foundry cast the 2025 propeller, and what did they quote?');
+    await m.page
+      .getByLabel('Ask a question or add a note')
+      .fill('Which foundry cast the 2025 propeller, and what did they quote?');
     await m.page.getByRole('button', { name: 'Ask' }).click();
     const item = m.page.getByRole('listitem', { name: 'Question from Jonas Lindqvist' }).last();
     await item.getByText('Open question').waitFor();

@@ -164,7 +164,7 @@ export default function ConflictView({
           onClick={() =>
             onApply({
               title: titleChoice === 'mine' ? mine.title : theirs.title,
-              body: mergeSections(pairs, choices) as JSONContent,
+              body: mergeSections(pairs, choices),
             })
           }
         >

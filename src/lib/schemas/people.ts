@@ -65,4 +65,3 @@ export const mePatchSchema = z
     error: 'Send digestOptIn, notifyQuestions or notifyAnswers.',
     path: ['digestOptIn'],
   });
-export type MePatch = z.infer<typeof mePatchSchema>;

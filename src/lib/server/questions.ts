@@ -199,9 +199,9 @@ export async function addComment(
     const recipients = questionRecipients(record, actor.id);
     const who = people(recipients.map((r) => r.id));
     await Promise.all(
-      recipients.map(({ id: uid, reason }) => {
+      recipients.flatMap(({ id: uid, reason }) => {
         const u = who.get(uid);
-        if (!u?.notifyQuestions) return null;
+        if (!u?.notifyQuestions) return [];
         return sendMail(
           u.email,
           questionEmail({
