@@ -38,7 +38,7 @@ export default async function setup(project: TestProject) {
     await new Promise((r) => setTimeout(r, 200));
   }
   project.provide('e2eBaseUrl', base);
-  return async () => {
+  return () => {
     server?.kill('SIGTERM');
   };
 }

@@ -2,7 +2,7 @@ import { useDeferredValue, useMemo, useState, type FormEvent } from 'react';
 import { getCalculator, runCalculator } from '~/lib/calc';
 import type { InputMeta } from '~/lib/calc/types';
 import { apiFetch, ApiError } from '~/lib/client/api';
-import { formatNumber } from '~/lib/format';
+import { formatNumber, plainText } from '~/lib/format';
 import LineChart from '../ui/LineChart';
 import GridTable from './GridTable';
 
@@ -22,7 +22,7 @@ function initialRaw(inputs: InputMeta[], given: Record<string, unknown> = {}): R
   const raw: Raw = {};
   for (const m of inputs) {
     const v = given[m.name] ?? (m.optional ? undefined : m.default);
-    raw[m.name] = v === undefined || v === null ? '' : String(v);
+    raw[m.name] = plainText(v);
   }
   return raw;
 }

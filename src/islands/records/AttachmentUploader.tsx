@@ -1,4 +1,5 @@
 import { useRef, useState, type DragEvent } from 'react';
+import { apiErrorMessage } from '~/lib/client/api';
 
 interface Upload {
   name: string;
@@ -32,12 +33,7 @@ export default function AttachmentUploader({ recordId, maxMb }: { recordId: stri
         xhr.onload = () => {
           if (xhr.status === 201) update(i, { state: 'done', progress: 1 });
           else {
-            let message = `Upload failed (${xhr.status}).`;
-            try {
-              message = JSON.parse(xhr.responseText).error.message;
-            } catch {
-              // keep the generic message
-            }
+            const message = apiErrorMessage(xhr.responseText) ?? `Upload failed (${xhr.status}).`;
             update(i, { state: 'error', message });
           }
         };

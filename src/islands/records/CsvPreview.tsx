@@ -6,8 +6,9 @@ import { parseCsv, numericColumns } from '~/lib/csv';
 export default function CsvPreview({ url, name }: { url: string; name: string }) {
   const [text, setText] = useState<string | null>(null);
   const [error, setError] = useState('');
-  const [x, setX] = useState(0);
-  const [ys, setYs] = useState<number[]>([]);
+  // What the person picked; until then the first numeric column runs along x and the next two are drawn.
+  const [xPicked, setX] = useState<number | null>(null);
+  const [ysPicked, setYs] = useState<number[] | null>(null);
 
   useEffect(() => {
     fetch(url, { credentials: 'same-origin' })
@@ -18,12 +19,8 @@ export default function CsvPreview({ url, name }: { url: string; name: string })
 
   const table = useMemo(() => (text ? parseCsv(text, 20_000) : null), [text]);
   const numeric = useMemo(() => (table ? numericColumns(table) : []), [table]);
-  useEffect(() => {
-    if (numeric.length >= 2 && ys.length === 0) {
-      setX(numeric[0]);
-      setYs(numeric.slice(1, 3));
-    }
-  }, [numeric, ys.length]);
+  const x = xPicked ?? numeric[0] ?? 0;
+  const ys = ysPicked ?? numeric.slice(1, 3);
 
   if (error) return <p className="text-sm text-muted">{error}</p>;
   if (!table) return <p className="text-sm text-muted">Loading {name}…</p>;
@@ -65,7 +62,7 @@ export default function CsvPreview({ url, name }: { url: string; name: string })
                 <input
                   type="checkbox"
                   checked={ys.includes(i)}
-                  onChange={() => setYs((v) => (v.includes(i) ? v.filter((k) => k !== i) : [...v, i]))}
+                  onChange={() => setYs(ys.includes(i) ? ys.filter((k) => k !== i) : [...ys, i])}
                 />
                 {table.header[i]}
               </label>

@@ -31,7 +31,7 @@ export default function LineChart({
     const first = datasets[0].set;
     const units = [...new Set(datasets.flatMap((d) => d.set.y.map((y) => y.unit)))];
     const tables = datasets.map((d) => [d.set.x.values, ...d.set.y.map((y) => y.values)] as uPlot.AlignedData);
-    const data = datasets.length === 1 ? tables[0] : uPlot.join(tables as never);
+    const data = datasets.length === 1 ? tables[0] : uPlot.join(tables);
     const lines: uPlot.Series[] = [];
     datasets.forEach((d, di) =>
       d.set.y.forEach((y, yi) => {

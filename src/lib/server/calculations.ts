@@ -190,10 +190,7 @@ export function getCalculation(id: string): CalculationView | null {
     .innerJoin(records, eq(records.id, recordCalculations.recordId))
     .where(and(eq(recordCalculations.calculationId, id), isNull(records.deletedAt)))
     .all();
-  const stored = (latest?.series ?? null) as {
-    series?: CalculationView['series'];
-    grid?: CalculationView['grid'];
-  } | null;
+  const stored = latest?.series ?? null;
   const c = row.c;
   return {
     id: c.id,
