@@ -28,6 +28,12 @@ interface Node {
   marks?: { type: string }[];
 }
 
+/** Comments load their JavaScript when they come into view: scroll there and wait until the island is live. */
+async function commentsReady(page: Page) {
+  await page.getByRole('heading', { name: /^Questions and notes/ }).scrollIntoViewIfNeeded();
+  await page.locator('astro-island[component-url*="Comments"]:not([ssr])').waitFor({ state: 'attached' });
+}
+
 /** Edits a record through the API in the page's session: `change` rewrites its document in place. */
 async function editRecord(page: Page, id: string, change: (doc: Node) => void, extra: Record<string, unknown> = {}) {
   const got = await page.request.get(`${baseUrl()}/api/records/${id}`);
@@ -182,10 +188,11 @@ describe('questions', () => {
     const ID = 'demo-rec-2526-parts-lead-time'; // propulsion, written by the lead; Priya owned propulsion before
     const m = await signedIn('member@wakebook.test');
     await m.page.goto(`${baseUrl()}/records/${ID}`);
+    await commentsReady(m.page);
     await m.page
       .getByLabel('Ask a question or add a note')
       .fill('Which foundry cast the 2025 propeller, and what did they quote?');
-    await m.page.getByRole('button', { name: 'Ask' }).click();
+    await m.page.getByRole('button', { name: 'Ask', exact: true }).click();
     const item = m.page.getByRole('listitem', { name: 'Question from Jonas Lindqvist' }).last();
     await item.getByText('Open question').waitFor();
 
@@ -196,6 +203,7 @@ describe('questions', () => {
     );
     await shot(al.page, 'home-alumni-phone');
     await al.page.goto(`${baseUrl()}/records/${ID}`);
+    await commentsReady(al.page);
     const q = al.page.getByRole('listitem', { name: 'Question from Jonas Lindqvist' }).last();
     await q.getByRole('button', { name: 'Answer' }).click();
     await q.getByRole('textbox').fill('A small foundry by the harbour; six weeks quoted, nine taken.');
@@ -205,6 +213,7 @@ describe('questions', () => {
     expect(await q.getByRole('button', { name: 'Mark answered' }).count()).toBe(0);
 
     await m.page.reload();
+    await commentsReady(m.page);
     const mine = m.page.getByRole('listitem', { name: 'Question from Jonas Lindqvist' }).last();
     await mine.getByRole('button', { name: 'Mark answered' }).click();
     await mine.getByText('Answered question').waitFor();

@@ -1,8 +1,7 @@
-import { useId, useState, type FormEvent } from 'react';
+import { useState, type FormEvent } from 'react';
 import useSWR from 'swr';
 import { apiFetch, ApiError, fetcher } from '~/lib/client/api';
-import { can } from '~/lib/policy';
-import type { CommentKind, Role } from '~/lib/domain';
+import type { CommentKind } from '~/lib/domain';
 
 export interface CommentItem {
   id: string;
@@ -29,7 +28,11 @@ export default function Comments({
 }: {
   recordId: string;
   recordAuthorId: string | null;
-  me: { id: string; role: Role };
+  /**
+   * Who is reading and what the policy lets them do (decided on the server with can(), so the policy table does
+   * not ship to the browser): comment, mark any question answered, or only their own or those on their record.
+   */
+  me: { id: string; canComment: boolean; markAny: boolean; markOwn: boolean };
   initial: CommentItem[];
 }) {
   const key = `/api/records/${recordId}/comments`;
@@ -38,35 +41,21 @@ export default function Comments({
     revalidateOnMount: false,
   });
   const comments = data?.comments ?? [];
-  const canComment = can(me, 'record:comment');
+  const canComment = me.canComment;
   const roots = comments.filter((c) => !c.replyTo || !comments.some((p) => p.id === c.replyTo));
   const replies = (id: string) => comments.filter((c) => c.replyTo === id);
-  const questions = roots.filter((c) => c.kind === 'question');
-  const open = questions.filter((c) => !c.answeredAt).length;
   return (
     <section aria-labelledby="comments-h" className="flex flex-col gap-4">
       <h2 id="comments-h" className="text-lg font-semibold">
         Questions and notes ({roots.length})
       </h2>
-      {questions.length > 0 && (
-        <p className="text-sm text-muted">
-          {open === 0
-            ? 'Every question here is answered.'
-            : `${open} open question${open === 1 ? '' : 's'}: the record’s author and the people who looked after this subsystem in earlier seasons were told.`}
-        </p>
-      )}
-      {comments.length === 0 && (
-        <p className="text-sm text-muted">
-          Nothing asked yet. A question reaches whoever wrote this record and the people who looked after its subsystem
-          in earlier seasons.
-        </p>
-      )}
+      {comments.length === 0 && <p className="text-sm text-muted">Nothing asked yet.</p>}
       <ol className="flex flex-col gap-3">
         {roots.map((c) => {
           const mayMark =
             c.kind === 'question' &&
             !c.answeredAt &&
-            can(me, 'question:mark-answered', { isOwn: c.authorId === me.id || recordAuthorId === me.id });
+            (me.markAny || (me.markOwn && (c.authorId === me.id || recordAuthorId === me.id)));
           return (
             <li
               key={c.id}
@@ -135,9 +124,32 @@ function CommentBody({ c }: { c: CommentItem }) {
   );
 }
 
-function MarkAnswered({ id, onDone }: { id: string; onDone: () => void }) {
+/** Sends one request and shows its error; `run` returns whether it worked. */
+function useSend() {
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState('');
+  async function run(url: string, json: object, field?: string) {
+    setBusy(true);
+    setError('');
+    try {
+      await apiFetch(url, { method: 'POST', json });
+      return true;
+    } catch (e) {
+      setError(
+        e instanceof ApiError
+          ? ((field && e.fieldErrors()[field]) ?? e.message)
+          : 'Could not reach the server; your text is still here.',
+      );
+      return false;
+    } finally {
+      setBusy(false);
+    }
+  }
+  return { busy, error, run };
+}
+
+function MarkAnswered({ id, onDone }: { id: string; onDone: () => void }) {
+  const { busy, error, run } = useSend();
   return (
     <div className="mt-2">
       <button
@@ -145,19 +157,10 @@ function MarkAnswered({ id, onDone }: { id: string; onDone: () => void }) {
         className="btn btn-quiet text-sm"
         disabled={busy}
         onClick={async () => {
-          setBusy(true);
-          setError('');
-          try {
-            await apiFetch(`/api/comments/${id}/answered`, { method: 'POST', json: {} });
-            onDone();
-          } catch (e) {
-            setError(e instanceof ApiError ? e.message : 'Could not reach the server; try again.');
-          } finally {
-            setBusy(false);
-          }
+          if (await run(`/api/comments/${id}/answered`, {})) onDone();
         }}
       >
-        {busy ? 'Marking…' : 'Mark answered'}
+        Mark answered
       </button>
       {error && (
         <p role="alert" className="field-error">
@@ -179,72 +182,31 @@ function CommentForm({
   label: string;
   onDone: () => void;
 }) {
-  const compact = !!replyTo;
   const [body, setBody] = useState('');
-  const [kind, setKind] = useState<CommentKind>('question');
-  const [open, setOpen] = useState(!compact);
-  const [error, setError] = useState('');
-  const [busy, setBusy] = useState(false);
+  const [open, setOpen] = useState(!replyTo);
+  const { busy, error, run } = useSend();
   const id = `comment-form-${replyTo ?? 'new'}`;
-  const kindName = useId();
   if (!open)
     return (
       <button type="button" className="mt-2 text-sm text-accent underline" onClick={() => setOpen(true)}>
         {label}
       </button>
     );
-  async function submit(e: FormEvent) {
+  async function submit(e: FormEvent<HTMLFormElement>) {
     e.preventDefault();
-    setBusy(true);
-    setError('');
-    try {
-      await apiFetch(`/api/records/${recordId}/comments`, {
-        method: 'POST',
-        json: replyTo ? { body, replyTo } : { body, kind },
-      });
+    // A new comment's kind is the button pressed: “Ask” or “Add as a note”.
+    const kind = (e.nativeEvent as SubmitEvent).submitter?.getAttribute('value') ?? 'question';
+    if (await run(`/api/records/${recordId}/comments`, replyTo ? { body, replyTo } : { body, kind }, 'body')) {
       setBody('');
-      if (compact) setOpen(false);
+      if (replyTo) setOpen(false);
       onDone();
-    } catch (err) {
-      setError(
-        err instanceof ApiError
-          ? (err.fieldErrors().body ?? err.message)
-          : 'Could not reach the server; your text is still here.',
-      );
-    } finally {
-      setBusy(false);
     }
   }
   return (
     <form onSubmit={submit} className="mt-2 flex w-full flex-col gap-2" noValidate>
-      <label htmlFor={id} className={compact ? 'sr-only' : 'text-sm font-semibold'}>
+      <label htmlFor={id} className={replyTo ? 'sr-only' : 'text-sm font-semibold'}>
         {label}
       </label>
-      {!compact && (
-        <fieldset className="flex flex-wrap gap-4 text-sm">
-          <legend className="sr-only">What are you writing?</legend>
-          <label className="flex items-center gap-1.5">
-            <input
-              type="radio"
-              name={kindName}
-              value="question"
-              checked={kind === 'question'}
-              onChange={() => setKind('question')}
-            />
-            A question (the people who know are told)
-          </label>
-          <label className="flex items-center gap-1.5">
-            <input
-              type="radio"
-              name={kindName}
-              value="note"
-              checked={kind === 'note'}
-              onChange={() => setKind('note')}
-            />
-            A note
-          </label>
-        </fieldset>
-      )}
       <textarea
         id={id}
         className="input min-h-20"
@@ -259,9 +221,16 @@ function CommentForm({
           {error}
         </p>
       )}
-      <button type="submit" className="btn btn-quiet self-start text-sm" disabled={busy}>
-        {busy ? 'Posting…' : compact ? `Post ${label.toLowerCase()}` : kind === 'question' ? 'Ask' : 'Post note'}
-      </button>
+      <p className="flex flex-wrap gap-2">
+        <button type="submit" value="question" className="btn btn-quiet text-sm" disabled={busy}>
+          {replyTo ? `Post ${label.toLowerCase()}` : 'Ask'}
+        </button>
+        {!replyTo && (
+          <button type="submit" value="note" className="btn btn-quiet text-sm" disabled={busy}>
+            Add as a note
+          </button>
+        )}
+      </p>
     </form>
   );
 }
