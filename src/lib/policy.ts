@@ -27,6 +27,7 @@ export type Action =
   | 'record:discard' // a draft: delete it for good
   | 'record:review'
   | 'record:comment'
+  | 'question:mark-answered'
   | 'attachment:upload'
   | 'calculation:create'
   | 'calculation:recompute'
@@ -42,7 +43,7 @@ export type Action =
 export interface Subject {
   /** The record or calculation belongs to the current season. */
   seasonIsCurrent?: boolean;
-  /** The record or calculation was written by the person asking. */
+  /** The caller wrote the record or calculation, or asked the question (or wrote the record it is on). */
   isOwn?: boolean;
 }
 
@@ -59,6 +60,7 @@ const POLICY: Record<Role, Partial<Record<Action, Rule>>> = {
     'record:withdraw': true,
     'record:review': true,
     'record:comment': true,
+    'question:mark-answered': true,
     'onboarding:curate': true,
     'onboarding:follow': true,
     'guide:review': true,
@@ -74,6 +76,7 @@ const POLICY: Record<Role, Partial<Record<Action, Rule>>> = {
     'record:withdraw': currentSeasonOnly,
     'record:discard': ownOnly,
     'record:comment': true,
+    'question:mark-answered': ownOnly,
     'attachment:upload': currentSeasonOnly,
     'calculation:create': currentSeasonOnly,
     'calculation:recompute': currentSeasonOnly,
@@ -83,6 +86,7 @@ const POLICY: Record<Role, Partial<Record<Action, Rule>>> = {
   alumni: {
     read: true,
     'record:comment': true,
+    'question:mark-answered': ownOnly,
     'onboarding:follow': true,
     'guide:suggest': true,
   },
@@ -118,6 +122,7 @@ export const ALL_ACTIONS: Action[] = [
   'record:discard',
   'record:review',
   'record:comment',
+  'question:mark-answered',
   'attachment:upload',
   'calculation:create',
   'calculation:recompute',

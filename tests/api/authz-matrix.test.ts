@@ -66,6 +66,9 @@ const MATRIX: Record<string, Row> = {
   'GET /api/records/[id]/comments': { allow: ALL, params: REC },
   'POST /api/records/[id]/comments': { allow: ALL, params: { id: 'nope' } },
   'POST /api/records/[id]/attachments': { allow: WRITERS, params: REC },
+  // Who may mark a question answered depends on the question (asker, record author): tests/api/questions.test.ts.
+  'POST /api/comments/[id]/answered': { allow: ALL, params: { id: 'nope' } },
+  'GET /api/questions': { allow: ALL },
   'GET /api/attachments/[id]': { allow: ALL, params: { id: 'nope' } },
   'GET /api/calculators': { allow: ALL },
   'POST /api/calculators/[kind]/run': { allow: ALL, params: { kind: 'cable' } },

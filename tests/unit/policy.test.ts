@@ -3,7 +3,8 @@ import type { Role } from '../../src/lib/domain';
 import { can, ALL_ACTIONS, type Action } from '../../src/lib/policy';
 
 // The permissions of PRODUCT.md ("People and roles"), written out in full so a change to the policy
-// shows up here as a deliberate edit. C = only for the current season's work; O = only one's own.
+// shows up here as a deliberate edit. C = only for the current season's work; O = only one's own (the question
+// one asked, or one on a record one wrote).
 const Y = true;
 const N = false;
 const C = 'current' as const;
@@ -28,6 +29,7 @@ const EXPECTED: Record<Action, Record<Role, Cell>> = {
   'record:discard': { lead: Y, advisor: N, member: O, alumni: N },
   'record:review': { lead: Y, advisor: Y, member: N, alumni: N },
   'record:comment': { lead: Y, advisor: Y, member: Y, alumni: Y },
+  'question:mark-answered': { lead: Y, advisor: Y, member: O, alumni: O },
   'attachment:upload': { lead: Y, advisor: N, member: C, alumni: N },
   'calculation:create': { lead: Y, advisor: N, member: C, alumni: N },
   'calculation:recompute': { lead: Y, advisor: N, member: C, alumni: N },

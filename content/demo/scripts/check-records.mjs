@@ -53,7 +53,7 @@ const CALCS = {
   "demo-calc-energy-2324": "2023–24", "demo-calc-solar-2324": "2023–24",
 };
 const ALLOWED_KEYS = new Set(["id", "kind", "title", "subsystem", "season", "status", "author", "createdAt", "source",
-  "calculations", "related", "supersedes", "reviewedBy", "reviewedOn", "attachments", "comments"]);
+  "calculations", "related", "supersedes", "reviewedBy", "reviewedOn", "attachments", "comments", "firstStatus", "versions"]);
 const REVIEWERS = new Set(["advisor@wakebook.test", "ruth.calloway@wakebook.test"]);
 
 const errors = [];
@@ -186,10 +186,20 @@ for (const { file, data: r, body } of records) {
     if (!Array.isArray(r.comments) || r.comments.length === 0) err(file, "comments must be a non-empty list");
     else {
       let prev = "";
+      const keys = new Map();
       r.comments.forEach((c, i) => {
         const where = `comment ${i + 1}`;
         if (!c || typeof c !== "object") { err(file, `${where} is not a mapping`); return; }
-        for (const k of Object.keys(c)) if (!["author", "at", "body"].includes(k)) err(file, `${where}: unknown key ${k}`);
+        for (const k of Object.keys(c))
+          if (!["author", "at", "body", "key", "kind", "replyTo", "answeredBy", "answeredOn"].includes(k)) err(file, `${where}: unknown key ${k}`);
+        if (c.kind !== undefined && !["question", "note"].includes(c.kind)) err(file, `${where}: kind is question or note`);
+        if (c.key !== undefined) keys.set(c.key, c);
+        if (c.replyTo !== undefined && !keys.has(c.replyTo)) err(file, `${where}: replies to ${c.replyTo}, which comes nowhere before it`);
+        if (c.replyTo !== undefined && c.kind === "question") err(file, `${where}: a reply cannot be a question`);
+        if ((c.answeredBy === undefined) !== (c.answeredOn === undefined)) err(file, `${where}: answeredBy and answeredOn go together`);
+        if (c.answeredBy !== undefined && c.kind !== "question") err(file, `${where}: only a question is answered`);
+        if (c.answeredBy !== undefined && !PEOPLE.has(c.answeredBy)) err(file, `${where}: answeredBy ${c.answeredBy} not in team.json`);
+        if (c.answeredOn !== undefined && isoDateTime(c.answeredOn) < isoDateTime(c.at)) err(file, `${where}: answered before it was asked`);
         if (!PEOPLE.has(c.author)) err(file, `${where}: author ${c.author} not in team.json`);
         const at = isoDateTime(c.at);
         if (!at) err(file, `${where}: at is not an ISO date-time: ${c.at}`);

@@ -10,6 +10,7 @@ import { LESSON_SOURCES, type LessonSource, type RecordKind } from '~/lib/domain
 import Toolbar from './Toolbar';
 import LinkPicker, { type PickOption } from './LinkPicker';
 import { draftKey, readDraft, writeDraft, clearDraft, type Draft } from './drafts';
+import ConflictView from './ConflictView';
 
 export interface EditableRecord {
   id: string;
@@ -45,7 +46,6 @@ interface Fields {
 interface Conflict {
   version: number;
   title: string;
-  bodyHtml: string;
   body: JSONContent;
   updatedBy: string | null;
 }
@@ -214,20 +214,18 @@ export default function RecordEditor({
           const cur = e.body.error.current as {
             version: number;
             title: string;
-            bodyHtml: string;
             body: JSONContent;
             updatedBy: { name: string } | null;
           };
           setConflict({
             version: cur.version,
             title: cur.title,
-            bodyHtml: cur.bodyHtml,
             body: cur.body,
             updatedBy: cur.updatedBy?.name ?? null,
           });
           setMessage({
             tone: 'error',
-            text: 'Not saved: someone else saved this record while you were editing. Your text is safe here; choose below how to combine the two.',
+            text: 'Not saved: someone else saved this record while you were editing. Your text is safe here; the sections that differ are below.',
           });
         } else if (e instanceof ApiError) {
           setErrors(e.fieldErrors());
@@ -276,30 +274,18 @@ export default function RecordEditor({
     setMessage({ tone: 'ok', text: `Loaded version ${conflict.version}. Edit and save, or leave without saving.` });
   };
 
-  const mergeBelow = () => {
+  const applyChoices = (result: { title: string; body: JSONContent }) => {
     if (!conflict || !editor) return;
-    const mine = editor.getJSON().content ?? [];
-    const theirs = conflict.body.content ?? [];
-    const merged: JSONContent = {
-      type: 'doc',
-      content: [
-        ...mine,
-        { type: 'horizontalRule' },
-        {
-          type: 'heading',
-          attrs: { level: 2 },
-          content: [
-            { type: 'text', text: `Their version ${conflict.version} — merge what you need, then delete this part` },
-          ],
-        },
-        ...theirs,
-      ],
-    };
-    editor.commands.setContent(merged);
-    setBodyJson(merged);
+    writeDraft(key, { fields, body: editor.getJSON(), baseVersion: version, savedAt: new Date().toISOString() });
+    editor.commands.setContent(result.body);
+    setBodyJson(result.body);
+    setFields((f) => ({ ...f, title: result.title }));
     setVersion(conflict.version);
     setConflict(null);
-    setMessage({ tone: 'ok', text: 'Both texts are in the editor now: theirs below the line. Merge them, then save.' });
+    setMessage({
+      tone: 'ok',
+      text: 'Your choices are in the editor now, on top of their version. Check the text, then save.',
+    });
   };
 
   const keepMine = () => {
@@ -346,45 +332,13 @@ export default function RecordEditor({
         </p>
       )}
       {conflict && (
-        <section className="card flex flex-col gap-3" aria-labelledby="conflict-h">
-          <h2 id="conflict-h" className="text-lg font-semibold">
-            Two versions of this record
-          </h2>
-          <div className="grid gap-4 md:grid-cols-2">
-            <div>
-              <p className="eyebrow">Yours (not saved yet)</p>
-              <p className="font-semibold">{fields.title}</p>
-              <div
-                className="prose-wb max-h-80 overflow-auto rounded border border-line p-3 text-sm"
-                dangerouslySetInnerHTML={{ __html: editor.getHTML() }}
-              />
-            </div>
-            <div>
-              <p className="eyebrow">
-                Theirs: version {conflict.version}
-                {conflict.updatedBy ? ` by ${conflict.updatedBy}` : ''}
-              </p>
-              <p className="font-semibold">{conflict.title}</p>
-              {/* Rendered by the server from a validated document, never from client HTML. */}
-              <div
-                className="prose-wb max-h-80 overflow-auto rounded border border-line p-3 text-sm"
-                dangerouslySetInnerHTML={{ __html: conflict.bodyHtml }}
-              />
-            </div>
-          </div>
-          <div className="flex flex-wrap gap-2">
-            <button type="button" className="btn btn-primary" onClick={mergeBelow}>
-              Merge: put theirs below mine
-            </button>
-            <button type="button" className="btn btn-quiet" onClick={keepMine}>
-              Save mine as the newer version
-            </button>
-            <button type="button" className="btn btn-quiet" onClick={takeTheirs}>
-              Take theirs
-            </button>
-          </div>
-          <p className="text-xs text-muted">Whichever you choose, every saved version stays in the record’s history.</p>
-        </section>
+        <ConflictView
+          mine={{ title: fields.title, body: bodyJson }}
+          theirs={conflict}
+          onApply={applyChoices}
+          onKeepMine={keepMine}
+          onTakeTheirs={takeTheirs}
+        />
       )}
 
       <div className="field">

@@ -1,132 +1,210 @@
 import { useState, type FormEvent } from 'react';
 import useSWR from 'swr';
 import { apiFetch, ApiError, fetcher } from '~/lib/client/api';
+import type { CommentKind } from '~/lib/domain';
 
-interface Comment {
+export interface CommentItem {
   id: string;
+  kind: CommentKind;
   body: string;
-  parentId: string | null;
+  replyTo: string | null;
   createdAt: string;
+  authorId: string | null;
   author: string;
   authorRole: string | null;
+  answeredAt: string | null;
+  answeredBy: string | null;
 }
 
-/** Questions and answers on a record; alumni answer the new cohort here. */
+/**
+ * Questions and notes on a record, each with its answers under it. A question's asker, the record's author, an
+ * advisor or a lead can mark it answered; asking e-mails the record's author and the subsystem's earlier owners.
+ */
 export default function Comments({
   recordId,
-  canComment,
+  recordAuthorId,
+  me,
   initial,
 }: {
   recordId: string;
-  canComment: boolean;
-  initial: Comment[];
+  recordAuthorId: string | null;
+  /**
+   * Who is reading and what the policy lets them do (decided on the server with can(), so the policy table does
+   * not ship to the browser): comment, mark any question answered, or only their own or those on their record.
+   */
+  me: { id: string; canComment: boolean; markAny: boolean; markOwn: boolean };
+  initial: CommentItem[];
 }) {
   const key = `/api/records/${recordId}/comments`;
-  const { data, mutate } = useSWR<{ comments: Comment[] }>(key, fetcher, {
+  const { data, mutate } = useSWR<{ comments: CommentItem[] }>(key, fetcher, {
     fallbackData: { comments: initial },
     revalidateOnMount: false,
   });
   const comments = data?.comments ?? [];
-  const roots = comments.filter((c) => !c.parentId || !comments.some((p) => p.id === c.parentId));
-  const replies = (id: string) => comments.filter((c) => c.parentId === id);
+  const canComment = me.canComment;
+  const roots = comments.filter((c) => !c.replyTo || !comments.some((p) => p.id === c.replyTo));
+  const replies = (id: string) => comments.filter((c) => c.replyTo === id);
   return (
     <section aria-labelledby="comments-h" className="flex flex-col gap-4">
       <h2 id="comments-h" className="text-lg font-semibold">
-        Questions and answers ({comments.length})
+        Questions and notes ({roots.length})
       </h2>
-      {comments.length === 0 && (
-        <p className="text-sm text-muted">
-          No questions yet. Ask here: alumni who wrote or lived this record get to answer.
-        </p>
-      )}
+      {comments.length === 0 && <p className="text-sm text-muted">Nothing asked yet.</p>}
       <ol className="flex flex-col gap-3">
-        {roots.map((c) => (
-          <li key={c.id} className="rounded-lg border border-line bg-surface p-3">
-            <CommentBody c={c} />
-            {replies(c.id).length > 0 && (
-              <ol className="mt-3 flex flex-col gap-2 border-l-2 border-line pl-3">
-                {replies(c.id).map((r) => (
-                  <li key={r.id}>
-                    <CommentBody c={r} />
-                  </li>
-                ))}
-              </ol>
-            )}
-            {canComment && (
-              <CommentForm recordId={recordId} parentId={c.id} label="Answer" onDone={() => mutate()} compact />
-            )}
-          </li>
-        ))}
+        {roots.map((c) => {
+          const mayMark =
+            c.kind === 'question' &&
+            !c.answeredAt &&
+            (me.markAny || (me.markOwn && (c.authorId === me.id || recordAuthorId === me.id)));
+          return (
+            <li
+              key={c.id}
+              id={`comment-${c.id}`}
+              className="scroll-mt-24 rounded-lg border border-line bg-surface p-3"
+              aria-label={c.kind === 'question' ? `Question from ${c.author}` : `Note from ${c.author}`}
+            >
+              <CommentBody c={c} />
+              {replies(c.id).length > 0 && (
+                <ol
+                  className="mt-3 flex flex-col gap-2 border-l-2 border-line pl-3"
+                  aria-label={c.kind === 'question' ? 'Answers' : 'Replies'}
+                >
+                  {replies(c.id).map((r) => (
+                    <li key={r.id} id={`comment-${r.id}`}>
+                      <CommentBody c={r} />
+                    </li>
+                  ))}
+                </ol>
+              )}
+              <div className="flex flex-wrap items-start gap-3">
+                {canComment && (
+                  <CommentForm
+                    recordId={recordId}
+                    replyTo={c.id}
+                    label={c.kind === 'question' ? 'Answer' : 'Reply'}
+                    onDone={() => void mutate()}
+                  />
+                )}
+                {mayMark && <MarkAnswered id={c.id} onDone={() => void mutate()} />}
+              </div>
+            </li>
+          );
+        })}
       </ol>
-      {canComment && <CommentForm recordId={recordId} label="Ask a question or add a note" onDone={() => mutate()} />}
+      {canComment && (
+        <CommentForm recordId={recordId} label="Ask a question or add a note" onDone={() => void mutate()} />
+      )}
     </section>
   );
 }
 
-function CommentBody({ c }: { c: Comment }) {
+function CommentBody({ c }: { c: CommentItem }) {
   return (
     <div>
-      <p className="text-sm">
+      <p className="flex flex-wrap items-baseline gap-x-2 text-sm">
+        {c.kind === 'question' && !c.replyTo && (
+          <span className={c.answeredAt ? 'status status-accepted' : 'status status-open'}>
+            <span aria-hidden="true">{c.answeredAt ? '✓' : '?'}</span>
+            {c.answeredAt ? 'Answered question' : 'Open question'}
+          </span>
+        )}
         <strong>{c.author}</strong>
-        {c.authorRole && <span className="text-muted"> · {c.authorRole}</span>}{' '}
+        {c.authorRole && <span className="text-muted">{c.authorRole}</span>}
         <time className="text-muted tabular" dateTime={c.createdAt}>
-          · {c.createdAt.slice(0, 10)}
+          {c.createdAt.slice(0, 10)}
         </time>
       </p>
       <p className="mt-1 whitespace-pre-line">{c.body}</p>
+      {c.answeredAt && (
+        <p className="mt-1 text-xs text-muted">
+          Marked answered by {c.answeredBy} on {c.answeredAt.slice(0, 10)}
+        </p>
+      )}
+    </div>
+  );
+}
+
+/** Sends one request and shows its error; `run` returns whether it worked. */
+function useSend() {
+  const [busy, setBusy] = useState(false);
+  const [error, setError] = useState('');
+  async function run(url: string, json: object, field?: string) {
+    setBusy(true);
+    setError('');
+    try {
+      await apiFetch(url, { method: 'POST', json });
+      return true;
+    } catch (e) {
+      setError(
+        e instanceof ApiError
+          ? ((field && e.fieldErrors()[field]) ?? e.message)
+          : 'Could not reach the server; your text is still here.',
+      );
+      return false;
+    } finally {
+      setBusy(false);
+    }
+  }
+  return { busy, error, run };
+}
+
+function MarkAnswered({ id, onDone }: { id: string; onDone: () => void }) {
+  const { busy, error, run } = useSend();
+  return (
+    <div className="mt-2">
+      <button
+        type="button"
+        className="btn btn-quiet text-sm"
+        disabled={busy}
+        onClick={async () => {
+          if (await run(`/api/comments/${id}/answered`, {})) onDone();
+        }}
+      >
+        Mark answered
+      </button>
+      {error && (
+        <p role="alert" className="field-error">
+          {error}
+        </p>
+      )}
     </div>
   );
 }
 
 function CommentForm({
   recordId,
-  parentId,
+  replyTo,
   label,
   onDone,
-  compact = false,
 }: {
   recordId: string;
-  parentId?: string;
+  replyTo?: string;
   label: string;
   onDone: () => void;
-  compact?: boolean;
 }) {
   const [body, setBody] = useState('');
-  const [open, setOpen] = useState(!compact);
-  const [error, setError] = useState('');
-  const [busy, setBusy] = useState(false);
-  const id = `comment-${parentId ?? 'new'}`;
+  const [open, setOpen] = useState(!replyTo);
+  const { busy, error, run } = useSend();
+  const id = `comment-form-${replyTo ?? 'new'}`;
   if (!open)
     return (
       <button type="button" className="mt-2 text-sm text-accent underline" onClick={() => setOpen(true)}>
         {label}
       </button>
     );
-  async function submit(e: FormEvent) {
+  async function submit(e: FormEvent<HTMLFormElement>) {
     e.preventDefault();
-    setBusy(true);
-    setError('');
-    try {
-      await apiFetch(`/api/records/${recordId}/comments`, {
-        method: 'POST',
-        json: { body, ...(parentId ? { parentId } : {}) },
-      });
+    // A new comment's kind is the button pressed: “Ask” or “Add as a note”.
+    const kind = (e.nativeEvent as SubmitEvent).submitter?.getAttribute('value') ?? 'question';
+    if (await run(`/api/records/${recordId}/comments`, replyTo ? { body, replyTo } : { body, kind }, 'body')) {
       setBody('');
-      if (compact) setOpen(false);
+      if (replyTo) setOpen(false);
       onDone();
-    } catch (err) {
-      setError(
-        err instanceof ApiError
-          ? (err.fieldErrors().body ?? err.message)
-          : 'Could not reach the server; your text is still here.',
-      );
-    } finally {
-      setBusy(false);
     }
   }
   return (
-    <form onSubmit={submit} className="mt-2 flex flex-col gap-2" noValidate>
-      <label htmlFor={id} className={compact ? 'sr-only' : 'text-sm font-semibold'}>
+    <form onSubmit={submit} className="mt-2 flex w-full flex-col gap-2" noValidate>
+      <label htmlFor={id} className={replyTo ? 'sr-only' : 'text-sm font-semibold'}>
         {label}
       </label>
       <textarea
@@ -143,9 +221,16 @@ function CommentForm({
           {error}
         </p>
       )}
-      <button type="submit" className="btn btn-quiet self-start text-sm" disabled={busy}>
-        {busy ? 'Posting…' : compact ? 'Post answer' : 'Post'}
-      </button>
+      <p className="flex flex-wrap gap-2">
+        <button type="submit" value="question" className="btn btn-quiet text-sm" disabled={busy}>
+          {replyTo ? `Post ${label.toLowerCase()}` : 'Ask'}
+        </button>
+        {!replyTo && (
+          <button type="submit" value="note" className="btn btn-quiet text-sm" disabled={busy}>
+            Add as a note
+          </button>
+        )}
+      </p>
     </form>
   );
 }

@@ -50,9 +50,21 @@ export const peopleQuerySchema = z.object({
 });
 export type PeopleQuery = z.infer<typeof peopleQuerySchema>;
 
-export const mePatchSchema = z.object({
-  digestOptIn: z.boolean({ error: 'Send true or false.' }),
-});
+const onOff = z.boolean({ error: 'Send true or false.' });
+
+/** A person's own e-mail choices; send any of them. */
+export const mePatchSchema = z
+  .object({
+    digestOptIn: onOff.optional(),
+    /** E-mail me new questions on my records and on subsystems I owned in an earlier season. */
+    notifyQuestions: onOff.optional(),
+    /** E-mail me answers to my questions. */
+    notifyAnswers: onOff.optional(),
+  })
+  .refine((v) => Object.values(v).some((x) => x !== undefined), {
+    error: 'Send digestOptIn, notifyQuestions or notifyAnswers.',
+    path: ['digestOptIn'],
+  });
 
 /** A lead's reminder to carry on with onboarding, with an optional line of their own. */
 export const nudgeSchema = z.object({ note: typedText().trim().max(500).optional() });

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { typedLine, typedText } from './text';
-import { LESSON_SOURCES, RECORD_KINDS, RECORD_STATUSES } from '../domain';
+import { COMMENT_KINDS, LESSON_SOURCES, RECORD_KINDS, RECORD_STATUSES } from '../domain';
 import { MAX_CHANGE_NOTE } from '../record-rules';
 
 const id = z
@@ -71,9 +71,26 @@ export const recordListQuerySchema = z.object({
   cursor: z.string().max(100).optional(),
 });
 
-export const commentInputSchema = z.object({
-  body: typedText().trim().min(1, 'Write something first.').max(5000, 'Keep a comment under 5,000 characters.'),
-  parentId: id.optional(),
+/**
+ * A question or a note on a record; an answer is a reply (`replyTo`) to a question. `parentId` is the name the first
+ * API used for `replyTo` and is still accepted.
+ */
+export const commentInputSchema = z
+  .object({
+    body: typedText().trim().min(1, 'Write something first.').max(5000, 'Keep a comment under 5,000 characters.'),
+    kind: z.enum(COMMENT_KINDS, { error: 'Choose “question” or “note”.' }).optional(),
+    replyTo: id.optional(),
+    parentId: id.optional(),
+  })
+  .transform(({ parentId, replyTo, ...rest }) => ({ ...rest, replyTo: replyTo ?? parentId }));
+export type CommentInput = z.infer<typeof commentInputSchema>;
+
+export const QUESTION_STATES = ['open', 'answered'] as const;
+export type QuestionState = (typeof QUESTION_STATES)[number];
+
+export const questionsQuerySchema = z.object({
+  state: z.enum(QUESTION_STATES, { error: 'Use “open” or “answered”.' }).optional().or(z.literal('')),
+  subsystem: slug.optional().or(z.literal('')),
 });
 
 export const reviewInputSchema = z.object({ note: typedText().trim().max(1000).optional() });

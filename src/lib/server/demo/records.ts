@@ -3,7 +3,7 @@ import { resolve } from 'node:path';
 import { parse as parseYaml } from 'yaml';
 import { z } from 'zod';
 import { attachments, comments, recordCalculations, recordLinks, recordRevisions, records } from '../db/schema';
-import { LESSON_SOURCES, RECORD_KINDS, RECORD_STATUSES } from '../../domain';
+import { COMMENT_KINDS, LESSON_SOURCES, RECORD_KINDS, RECORD_STATUSES } from '../../domain';
 import { newId } from '../ids';
 import { processBody } from '../records/body';
 import { sniffType } from '../filetype';
@@ -29,7 +29,38 @@ const frontSchema = z.object({
   reviewedBy: z.email().optional(),
   reviewedOn: dateish.optional(),
   attachments: z.array(z.string()).default([]),
-  comments: z.array(z.object({ author: z.email(), at: dateish, body: z.string() })).default([]),
+  /** The status of the first version when later versions changed it (default: the record's status). */
+  firstStatus: z.enum(RECORD_STATUSES).optional(),
+  /**
+   * Versions after the first, oldest first. The file's text is the newest; each version says what it changed
+   * (`was` → `now`), so the earlier texts are the file's text with those changes undone, newest first.
+   */
+  versions: z
+    .array(
+      z.object({
+        at: dateish,
+        author: z.email(),
+        note: z.string().optional(),
+        status: z.enum(RECORD_STATUSES).optional(),
+        changes: z.array(z.object({ was: z.string(), now: z.string() })).default([]),
+      }),
+    )
+    .default([]),
+  comments: z
+    .array(
+      z.object({
+        /** A name for this comment inside the file, so an answer can say which question it answers. */
+        key: z.string().optional(),
+        author: z.email(),
+        at: dateish,
+        body: z.string(),
+        kind: z.enum(COMMENT_KINDS).default('note'),
+        replyTo: z.string().optional(),
+        answeredBy: z.email().optional(),
+        answeredOn: dateish.optional(),
+      }),
+    )
+    .default([]),
 });
 
 export type DemoRecord = z.infer<typeof frontSchema> & { markdown: string };
@@ -46,6 +77,46 @@ export function loadDemoRecords(dir: string): DemoRecord[] {
       if (!m) throw new Error(`demo record ${f}: no front matter`);
       return { ...frontSchema.parse(parseYaml(m[1])), markdown: m[2] };
     });
+}
+
+interface DemoVersion {
+  version: number;
+  at: Date;
+  author: string;
+  note: string;
+  status: DemoRecord['status'];
+  markdown: string;
+}
+
+/** Every version of a demo record, oldest first, each with its full text (see `versions` in the front matter). */
+function demoVersions(r: DemoRecord): DemoVersion[] {
+  const texts = [r.markdown];
+  for (const v of [...r.versions].reverse()) {
+    let text = texts[0];
+    for (const c of v.changes) {
+      if (text.split(c.now).length !== 2) throw new Error(`demo record ${r.id}: “${c.now}” is not in the text once`);
+      text = text.replace(c.now, () => c.was);
+    }
+    texts.unshift(text);
+  }
+  let status = r.firstStatus ?? r.status;
+  const out: DemoVersion[] = [
+    { version: 1, at: r.createdAt, author: r.author, note: 'Created', status, markdown: texts[0] },
+  ];
+  r.versions.forEach((v, i) => {
+    const before = status;
+    status = v.status ?? status;
+    out.push({
+      version: i + 2,
+      at: v.at,
+      author: v.author,
+      note: v.note ?? (before !== status ? `Status: ${before} → ${status}` : ''),
+      status,
+      markdown: texts[i + 1],
+    });
+  });
+  if (status !== r.status) throw new Error(`demo record ${r.id}: its versions end as ${status}, not ${r.status}`);
+  return out;
 }
 
 /** Demo prose names other records and calculations by id; in the app they become links with their titles. */
@@ -97,9 +168,22 @@ export function seedRecords(
   for (const r of list) {
     const seasonId = ids.seasonIdByName.get(r.season);
     if (!seasonId) throw new Error(`demo record ${r.id}: unknown season ${r.season}`);
-    const body = processBody(markdownToDoc(linkMentions(r.markdown, titles)));
+    const versions = demoVersions(r).map((v) => ({
+      ...v,
+      body: processBody(markdownToDoc(linkMentions(v.markdown, titles))),
+    }));
+    const newest = versions[versions.length - 1];
+    const body = newest.body;
     const authorId = user(r.author);
-    const lastComment = r.comments.reduce((t, c) => Math.max(t, c.at.getTime()), r.createdAt.getTime());
+    // A review covers the newest version that existed on the day of the review.
+    const reviewedVersion = r.reviewedOn
+      ? Math.max(
+          1,
+          ...versions
+            .filter((v) => v.at.toISOString().slice(0, 10) <= r.reviewedOn!.toISOString().slice(0, 10))
+            .map((v) => v.version),
+        )
+      : null;
     tx.insert(records)
       .values({
         id: r.id,
@@ -113,37 +197,50 @@ export function seedRecords(
         body: body.doc,
         bodyHtml: body.html,
         bodyText: body.text,
-        version: 1,
+        version: newest.version,
         createdAt: r.createdAt,
-        updatedAt: new Date(lastComment),
-        updatedById: authorId,
+        // The date of the current version. A comment is not a version: taking the newest comment's date here
+        // once made the facts panel disagree with the history.
+        updatedAt: newest.at,
+        updatedById: user(newest.author),
         reviewedById: r.reviewedBy ? user(r.reviewedBy) : null,
         reviewedAt: r.reviewedOn ?? null,
-        reviewedVersion: r.reviewedBy ? 1 : null,
+        reviewedVersion: r.reviewedBy ? reviewedVersion : null,
       })
       .run();
-    tx.insert(recordRevisions)
-      .values({
-        id: newId(),
-        recordId: r.id,
-        version: 1,
-        title: r.title,
-        status: r.status,
-        body: body.doc,
-        bodyText: body.text,
-        editorId: authorId,
-        note: 'Created',
-        createdAt: r.createdAt,
-      })
-      .run();
-    for (const c of r.comments) {
-      tx.insert(comments)
+    for (const v of versions) {
+      tx.insert(recordRevisions)
         .values({
           id: newId(),
           recordId: r.id,
+          version: v.version,
+          title: r.title,
+          status: v.status,
+          body: v.body.doc,
+          bodyText: v.body.text,
+          editorId: user(v.author),
+          note: v.note || null,
+          createdAt: v.at,
+        })
+        .run();
+    }
+    const commentIds = new Map<string, string>();
+    for (const c of r.comments) {
+      const id = newId();
+      if (c.key) commentIds.set(c.key, id);
+      const parentId = c.replyTo ? commentIds.get(c.replyTo) : null;
+      if (parentId === undefined) throw new Error(`demo record ${r.id}: no earlier comment “${c.replyTo}”`);
+      tx.insert(comments)
+        .values({
+          id,
+          recordId: r.id,
           authorId: user(c.author),
+          parentId,
+          kind: c.replyTo ? 'note' : c.kind,
           body: plainMentions(c.body, titles),
           createdAt: c.at,
+          answeredAt: c.answeredOn ?? null,
+          answeredById: c.answeredBy ? user(c.answeredBy) : null,
         })
         .run();
     }

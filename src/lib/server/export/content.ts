@@ -3,7 +3,8 @@ import { stringify } from 'yaml';
 import { asc, eq, isNull } from 'drizzle-orm';
 import { db } from '../db/client';
 import { calculations, records, seasons, subsystems } from '../db/schema';
-import { getRecordView, listComments, type RecordRef, type RecordView } from '../records/view';
+import { getRecordView, type RecordRef, type RecordView } from '../records/view';
+import { listComments } from '../questions';
 import { getCalculation } from '../calculations';
 import { listPeople } from '../people';
 import { docToMarkdown, escapeText as md } from './markdown';
@@ -154,7 +155,7 @@ export function recordMarkdown(id: string, paths: Map<string, string>, calcPaths
     lines.push('', '## Questions and answers', '');
     for (const c of qa)
       lines.push(
-        `- **${md(c.author)}**, ${c.createdAt.slice(0, 10)}${c.parentId ? ' (answer)' : ''}: ${md(c.body.replace(/\n+/g, ' '))}`,
+        `- **${md(c.author)}**, ${c.createdAt.slice(0, 10)}${c.parentId ? ' (answer)' : c.kind === 'question' ? (c.answeredAt ? ' (question, answered)' : ' (question)') : ''}: ${md(c.body.replace(/\n+/g, ' '))}`,
       );
   }
   return lines.join('\n') + '\n';

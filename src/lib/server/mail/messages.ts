@@ -101,3 +101,55 @@ export function onboardingNudgeEmail(p: {
     footer: ['You received this because a team lead sent you a reminder from the onboarding progress page.'],
   });
 }
+
+/** Why a person is asked: they wrote the record, or they owned its subsystem in an earlier season. */
+export type QuestionReason = 'author' | 'earlier-owner';
+
+export function questionEmail(p: {
+  name: string;
+  askerName: string;
+  recordTitle: string;
+  subsystemName: string;
+  body: string;
+  reason: QuestionReason;
+  url: string;
+  accountUrl: string;
+}): RenderedEmail {
+  const why =
+    p.reason === 'author'
+      ? `You wrote “${p.recordTitle}”, so you may know the answer.`
+      : `You looked after ${p.subsystemName} in an earlier season, so you may know the answer.`;
+  return renderEmail({
+    subject: `${p.askerName} asked about “${p.recordTitle}”`,
+    preheader: p.body.slice(0, 120),
+    greeting: `Hello ${p.name},`,
+    paragraphs: [`${p.askerName} asked a question on “${p.recordTitle}” (${p.subsystemName}):`, p.body, why],
+    action: { label: 'Read and answer', url: p.url },
+    footer: [
+      `You can turn off e-mails about new questions on your account page: ${p.accountUrl}`,
+      'Answering is never required; even a short “we never tested that” helps the next team.',
+    ],
+  });
+}
+
+export function answerEmail(p: {
+  name: string;
+  answererName: string;
+  recordTitle: string;
+  question: string;
+  body: string;
+  url: string;
+  accountUrl: string;
+}): RenderedEmail {
+  return renderEmail({
+    subject: `${p.answererName} answered your question on “${p.recordTitle}”`,
+    preheader: p.body.slice(0, 120),
+    greeting: `Hello ${p.name},`,
+    paragraphs: [`You asked: “${p.question}”`, `${p.answererName} answered:`, p.body],
+    action: { label: 'Read the answer', url: p.url },
+    footer: [
+      'When your question is settled, mark it answered on the record so others can see it.',
+      `You can turn off e-mails about answers on your account page: ${p.accountUrl}`,
+    ],
+  });
+}

@@ -372,29 +372,3 @@ export function reviewRecord(id: string, note: string | undefined, actor: Actor)
   });
   return getRecordView(id)!;
 }
-
-export function addComment(recordId: string, input: { body: string; parentId?: string }, actor: Actor) {
-  if (!recordExists(recordId)) throw notFound('That record');
-  if (input.parentId) {
-    const parent = db()
-      .select({ id: comments.id })
-      .from(comments)
-      .where(and(eq(comments.id, input.parentId), eq(comments.recordId, recordId)))
-      .get();
-    if (!parent) throw invalidInput([{ path: 'parentId', message: 'That comment is not on this record.' }]);
-  }
-  const id = newId();
-  db()
-    .insert(comments)
-    .values({
-      id,
-      recordId,
-      authorId: actor.id,
-      parentId: input.parentId ?? null,
-      body: input.body,
-      createdAt: new Date(),
-    })
-    .run();
-  recordAudit({ actor, action: 'record.comment', targetType: 'record', targetId: recordId, detail: { comment: id } });
-  return id;
-}
