@@ -109,7 +109,7 @@ export default function CalculatorForm({
         </button>
       </form>
 
-      <section aria-labelledby={`results-${kind}`} aria-live="polite" className="flex flex-col gap-4">
+      <section aria-labelledby={`results-${kind}`} aria-live="polite" className="flex min-w-0 flex-col gap-4">
         <h2 id={`results-${kind}`} className="text-lg font-semibold">
           Results
         </h2>
@@ -149,6 +149,9 @@ export default function CalculatorForm({
             {!embedded && datasets.map((d, i) => <LineChart key={i} datasets={d} />)}
             {embedded && datasets[0] && <LineChart datasets={datasets[0]} height={220} />}
             {run.result.grid && <GridTable grid={run.result.grid} />}
+            {run.result.grids?.map((g) => (
+              <GridTable key={g.title} grid={g} />
+            ))}
           </>
         )}
         {!embedded && canSave && run.ok && (

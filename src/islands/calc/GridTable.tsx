@@ -1,7 +1,10 @@
 import type { Grid } from '~/lib/calc/types';
 import { formatNumber } from '~/lib/format';
 
-/** A heat map as a table: each cell is coloured by value and also prints its number (never colour alone). */
+/**
+ * A heat map as a table: each cell is coloured by value and also prints its number (never colour alone). Cells that
+ * fail a check are greyed out and struck through; picks are outlined and named in text.
+ */
 export default function GridTable({ grid, highlight }: { grid: Grid; highlight?: { x: number; y: number }[] }) {
   const values = grid.z.values.flat().filter((v): v is number => typeof v === 'number' && Number.isFinite(v));
   const lo = Math.min(...values);
@@ -11,8 +14,11 @@ export default function GridTable({ grid, highlight }: { grid: Grid; highlight?:
     const t = (v - lo) / (hi - lo);
     return `color-mix(in oklab, var(--wb-accent) ${Math.round(10 + t * 70)}%, var(--wb-surface))`;
   };
-  const isHighlighted = (xi: number, yi: number) =>
-    highlight?.some((h) => h.x === grid.x.values[xi] && h.y === grid.y.values[yi]);
+  const marks = [...(highlight ?? []).map((h) => ({ ...h, label: 'best' })), ...(grid.picks ?? [])];
+  const pickAt = (xi: number, yi: number) =>
+    marks.find((h) => h.x === grid.x.values[xi] && h.y === grid.y.values[yi])?.label;
+  const isFailed = (xi: number, yi: number) => grid.failed?.[yi]?.[xi] === true;
+  const anyFailed = grid.failed?.some((row) => row.some(Boolean)) ?? false;
   return (
     <div className="overflow-x-auto">
       <table className="tabular border-collapse text-xs">
@@ -20,6 +26,8 @@ export default function GridTable({ grid, highlight }: { grid: Grid; highlight?:
           {grid.title} — {grid.z.label}
           {grid.z.unit ? ` (${grid.z.unit})` : ''}; rows: {grid.y.label}, columns: {grid.x.label}. Empty cells: no
           operating point.
+          {anyFailed && ` Greyed, struck-through cells: ${grid.failedLabel ?? 'fail a check'}.`}
+          {marks.length > 0 && ` Outlined: ${marks.map((m) => m.label).join(', ')}.`}
         </caption>
         <thead>
           <tr>
@@ -39,19 +47,26 @@ export default function GridTable({ grid, highlight }: { grid: Grid; highlight?:
               <th scope="row" className="border border-line px-1.5 py-1">
                 {formatNumber(grid.y.values[yi], 2)}
               </th>
-              {row.map((v, xi) => (
-                <td
-                  key={xi}
-                  className="border border-line px-1.5 py-1 text-right"
-                  style={{
-                    background: shade(v),
-                    outline: isHighlighted(xi, yi) ? '2px solid var(--wb-amber)' : undefined,
-                  }}
-                >
-                  {v === null ? '' : formatNumber(v, 2)}
-                  {isHighlighted(xi, yi) && <span className="sr-only"> (best)</span>}
-                </td>
-              ))}
+              {row.map((v, xi) => {
+                const failed = isFailed(xi, yi);
+                const pick = pickAt(xi, yi);
+                return (
+                  <td
+                    key={xi}
+                    className={`border border-line px-1.5 py-1 text-right${failed ? ' text-muted line-through' : ''}`}
+                    style={{
+                      background: failed ? 'var(--wb-line)' : shade(v),
+                      outline: pick ? '2px solid var(--wb-amber)' : undefined,
+                    }}
+                    data-failed={failed || undefined}
+                    data-pick={pick}
+                  >
+                    {v === null ? '' : formatNumber(v, 2)}
+                    {failed && <span className="sr-only"> ({grid.failedLabel ?? 'fails a check'})</span>}
+                    {pick && <span className="sr-only"> ({pick})</span>}
+                  </td>
+                );
+              })}
             </tr>
           ))}
         </tbody>

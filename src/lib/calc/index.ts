@@ -1,3 +1,4 @@
+import { batteryCalculator } from './battery';
 import { cableCalculator } from './cable';
 import { coolingCalculator } from './cooling';
 import { energyCalculator } from './energy';
@@ -6,6 +7,7 @@ import { propellerCalculator } from './propeller';
 import { raceCalculator } from './race';
 import { resistanceCalculator } from './resistance';
 import { solarCalculator } from './solar';
+import { sprintCalculator } from './sprint';
 import { sweepCalculator } from './sweep';
 import type { CalcResult, Calculator } from './types';
 import { waterCalculator } from './water';
@@ -22,6 +24,9 @@ export const calculators = Object.freeze({
   cable: cableCalculator,
   race: raceCalculator,
   'propeller-sweep': sweepCalculator,
+  // issue 15 (motor envelope, sprint, battery)
+  sprint: sprintCalculator,
+  battery: batteryCalculator,
 } as const);
 
 export type CalculatorKind = keyof typeof calculators;

@@ -95,3 +95,35 @@ export const SRC_ETB_EG: Source = {
     'The Engineering ToolBox, "Ethylene Glycol Heat-Transfer Fluid", table of dynamic viscosity of ethylene glycol solutions (% by volume).',
   use: 'Viscosity of a 50 % (by volume) ethylene-glycol coolant for the pipe Reynolds number.',
 };
+
+// --- issue 15, sections 1, 2 and 5 (motor envelope, sprint, cavitation, battery pack) ---
+export const SRC_IF97_PSAT: Source = {
+  citation:
+    'IAPWS R7-97(2012), "Revised Release on the IAPWS Industrial Formulation 1997 for the Thermodynamic Properties of Water and Steam", region 4 saturation-pressure equation (Eqs. 29–30, Table 34; verification values Table 35).',
+  use: 'Vapour pressure of water for the cavitation number.',
+};
+export const SRC_SHARQAWY_PV: Source = {
+  citation:
+    'M.H. Sharqawy, J.H. Lienhard V & S.M. Zubair (2010), "Thermophysical properties of seawater: a review of existing correlations and data", Desalination and Water Treatment 16, 354–380, Eq. 6 (after R.A. Robinson 1954).',
+  use: 'Vapour pressure of seawater relative to pure water.',
+};
+export const SRC_BURRILL: Source = {
+  citation:
+    'L.C. Burrill (1943), "Developments in propeller design and manufacture for merchant ships", Trans. Institution of Engineers and Shipbuilders in Scotland 86; L.C. Burrill & A. Emerson (1963), "Propeller cavitation: further tests on 16 in. propeller models in the King’s College cavitation tunnel", Trans. North East Coast Institution of Engineers and Shipbuilders 79, 295–320; as reproduced in J. Carlton, "Marine Propellers and Propulsion", Butterworth-Heinemann (cavitation chapter). Limit line used: 5 % back cavitation, τ_c = 0.1082·ln σ₀.₇R + 0.2675 for 0.16 ≤ σ₀.₇R ≤ 1.5 (logarithmic fit of the diagram’s line published in the open-source heliceb-automation propeller tool, cavitation.py).',
+  use: 'Thrust loading coefficient τ_c = T/(A_P·½ρV_R²) with A_P = A_D(1.067 − 0.229·P/D), and its limit at the cavitation number σ₀.₇R.',
+};
+export const SRC_KELLER: Source = {
+  citation:
+    'J. auf’m Keller (1966), "Enige aspecten bij het ontwerpen van scheepsschroeven", Schip en Werf 33; as given in J. Carlton, "Marine Propellers and Propulsion", Butterworth-Heinemann (blade area selection), and in G. Kuiper (1992), "The Wageningen Propeller Series", MARIN publication 92-001.',
+  use: 'Minimum blade area ratio A_E/A_0 = (1.3 + 0.3·Z)·T/((p_atm + ρgh − p_v)·D²) + k.',
+};
+export const SRC_BATTERY_ECM: Source = {
+  citation:
+    'G.L. Plett (2015), "Battery Management Systems, Volume I: Battery Modeling", Artech House, ch. 2 (equivalent-circuit cell: terminal voltage = open-circuit voltage − i·R₀); cells in series add voltage and resistance, strings in parallel divide resistance and add capacity.',
+  use: 'Pack voltage, resistance, current for a power load from P = I·(V − I·R), heat I²R.',
+};
+export const SRC_QUADRATIC_DRAG: Source = {
+  citation:
+    'Standing start with constant thrust and quadratic drag, v(t) = v_t·tanh(t/τ), x(t) = v_t·τ·ln cosh(t/τ) (closed form used to check the integrator; e.g. J.R. Taylor (2005), "Classical Mechanics", University Science Books, §2.4).',
+  use: 'Check of the time integration of m·dv/dt = T(1 − t) − R.',
+};

@@ -52,12 +52,19 @@ export interface Grid {
   y: Axis;
   /** values are [yIndex][xIndex] */
   z: { name: string; label: string; unit: string; values: (number | null)[][] };
+  /** cells that fail a check ([yIndex][xIndex]); shown greyed out, with `failedLabel` saying why */
+  failed?: boolean[][];
+  failedLabel?: string;
+  /** cells to mark, e.g. the best pick, by their x and y values */
+  picks?: { x: number; y: number; label: string }[];
 }
 
 export interface CalcResult<O> {
   outputs: O;
   series?: Record<string, SeriesSet>;
   grid?: Grid;
+  /** further grids, shown after `grid` */
+  grids?: Grid[];
   warnings: string[];
 }
 

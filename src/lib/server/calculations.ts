@@ -41,6 +41,7 @@ export interface CalculationView {
   warnings: string[];
   series: CalcResult<Outputs>['series'] | null;
   grid: CalcResult<Outputs>['grid'] | null;
+  grids: NonNullable<CalcResult<Outputs>['grids']>;
   engineVersion: string;
   currentEngineVersion: string | null;
   computedAt: string;
@@ -116,7 +117,7 @@ function insertResult(
       calculationId,
       engineVersion: run.engineVersion,
       outputs: run.result.outputs,
-      series: { series: run.result.series ?? null, grid: run.result.grid ?? null },
+      series: { series: run.result.series ?? null, grid: run.result.grid ?? null, grids: run.result.grids ?? [] },
       warnings: run.result.warnings,
       computedById: actorId,
       computedAt: at,
@@ -209,6 +210,7 @@ export function getCalculation(id: string): CalculationView | null {
     warnings: latest?.warnings ?? [],
     series: stored?.series ?? null,
     grid: stored?.grid ?? null,
+    grids: stored?.grids ?? [],
     engineVersion: latest?.engineVersion ?? '',
     currentEngineVersion: getCalculator(c.kind)?.engineVersion ?? null,
     computedAt: (latest?.computedAt ?? c.createdAt).toISOString(),
