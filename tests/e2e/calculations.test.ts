@@ -70,7 +70,14 @@ describe('calculators as a member uses them', () => {
 
   it('recomputes with today’s engine and reports that nothing changed', async () => {
     await page.goto(savedUrl);
-    await page.getByRole('button', { name: /Recompute/ }).click();
+    const button = page.getByRole('button', { name: /Recompute/ });
+    // The button's island hydrates when it scrolls into view: a click before that would be lost.
+    await button.scrollIntoViewIfNeeded();
+    await page.waitForFunction(() => {
+      const b = [...document.querySelectorAll('button')].find((x) => /Recompute/.test(x.textContent ?? ''));
+      return b !== undefined && !b.closest('astro-island[ssr]');
+    });
+    await button.click();
     await page.getByText('No output changed.').waitFor();
   });
 

@@ -2,7 +2,9 @@ import { batteryCalculator } from './battery';
 import { cableCalculator } from './cable';
 import { coolingCalculator } from './cooling';
 import { energyCalculator } from './energy';
+import { foilCalculator } from './foil';
 import { OutOfRangeError } from './errors';
+import { planingCalculator } from './planing';
 import { propellerCalculator } from './propeller';
 import { raceCalculator } from './race';
 import { resistanceCalculator } from './resistance';
@@ -27,6 +29,9 @@ export const calculators = Object.freeze({
   // issue 15 (motor envelope, sprint, battery)
   sprint: sprintCalculator,
   battery: batteryCalculator,
+  // issue 15 sections 3–4 (planing, foils)
+  planing: planingCalculator,
+  foil: foilCalculator,
 } as const);
 
 export type CalculatorKind = keyof typeof calculators;

@@ -10,6 +10,8 @@ describe('every calculator', () => {
       'cable',
       'cooling',
       'energy',
+      'foil',
+      'planing',
       'propeller',
       'propeller-sweep',
       'race',
