@@ -3,11 +3,24 @@ import { defineConfig } from 'astro/config';
 import node from '@astrojs/node';
 import react from '@astrojs/react';
 import mdx from '@astrojs/mdx';
+import remarkMath from 'remark-math';
+import rehypeKatex from 'rehype-katex';
 import tailwindcss from '@tailwindcss/vite';
 import prepareBundle from './integrations/prepare-bundle.mjs';
 
 // Astro 5.18 trusts the Host header only for listed domains; without them Astro.url is wrong and the
 // built-in origin check refuses same-site form posts. Extra hosts come from ALLOWED_HOSTS at build time.
+/** A guide's tables scroll sideways inside the reading column when wide, so keyboard users must reach them. */
+function rehypeFocusableTables() {
+  /** @typedef {{ type: string; tagName?: string; properties?: Record<string, unknown>; children?: HastNode[] }} HastNode */
+  /** @param {HastNode} node */
+  const visit = (node) => {
+    if (node.type === 'element' && node.tagName === 'table') node.properties = { ...node.properties, tabIndex: 0 };
+    for (const child of node.children ?? []) visit(child);
+  };
+  return visit;
+}
+
 const extraHosts = (process.env.ALLOWED_HOSTS ?? '')
   .split(',')
   .map((h) => h.trim())
@@ -16,7 +29,12 @@ const extraHosts = (process.env.ALLOWED_HOSTS ?? '')
 export default defineConfig({
   output: 'server',
   adapter: node({ mode: 'middleware' }),
-  integrations: [react(), mdx(), prepareBundle()],
+  // Formulas in guides ($…$ inline, $$…$$ on their own lines) become KaTeX HTML at build time: no client JS.
+  integrations: [
+    react(),
+    mdx({ remarkPlugins: [remarkMath], rehypePlugins: [rehypeKatex, rehypeFocusableTables] }),
+    prepareBundle(),
+  ],
   security: {
     checkOrigin: true,
     allowedDomains: ['localhost', '127.0.0.1', ...extraHosts].map((hostname) => ({ hostname })),
@@ -31,5 +49,7 @@ export default defineConfig({
   },
   vite: {
     plugins: [tailwindcss()],
+    // Fonts (KaTeX's small ones included) stay files from our origin: a data: URL would break font-src 'self'.
+    build: { assetsInlineLimit: (file) => (/\.(woff2?|ttf|otf)$/.test(file) ? false : undefined) },
   },
 });

@@ -22,6 +22,9 @@ export type Action =
   | 'record:create'
   | 'record:edit'
   | 'record:status'
+  | 'record:accept' // a decision: accept it (a member needs a review of the current version first; see records/write.ts)
+  | 'record:withdraw' // a decision: withdraw it
+  | 'record:discard' // a draft: delete it for good
   | 'record:review'
   | 'record:comment'
   | 'attachment:upload'
@@ -29,41 +32,59 @@ export type Action =
   | 'calculation:recompute'
   | 'onboarding:curate'
   | 'onboarding:follow'
-  | 'onboarding:see-all';
+  | 'onboarding:see-all'
+  | 'onboarding:nudge'
+  | 'guide:review'
+  | 'guide:suggest'
+  | 'guide:triage';
 
 /** What the rule needs to know about the thing acted on. */
 export interface Subject {
   /** The record or calculation belongs to the current season. */
   seasonIsCurrent?: boolean;
+  /** The record or calculation was written by the person asking. */
+  isOwn?: boolean;
 }
 
 type Rule = boolean | ((subject: Subject) => boolean);
 const currentSeasonOnly: Rule = (s) => s.seasonIsCurrent === true;
+const ownOnly: Rule = (s) => s.isOwn === true;
 
 const POLICY: Record<Role, Partial<Record<Action, Rule>>> = {
   lead: {}, // leads may do everything; see can()
   advisor: {
     read: true,
+    // Advisors decide on decisions (accept, withdraw) but never write their text.
+    'record:accept': true,
+    'record:withdraw': true,
     'record:review': true,
     'record:comment': true,
     'onboarding:curate': true,
     'onboarding:follow': true,
+    'guide:review': true,
+    'guide:suggest': true,
+    'guide:triage': true,
   },
   member: {
     read: true,
     'record:create': true,
     'record:edit': currentSeasonOnly,
     'record:status': currentSeasonOnly,
+    'record:accept': currentSeasonOnly,
+    'record:withdraw': currentSeasonOnly,
+    'record:discard': ownOnly,
     'record:comment': true,
     'attachment:upload': currentSeasonOnly,
     'calculation:create': currentSeasonOnly,
     'calculation:recompute': currentSeasonOnly,
     'onboarding:follow': true,
+    'guide:suggest': true,
   },
   alumni: {
     read: true,
     'record:comment': true,
     'onboarding:follow': true,
+    'guide:suggest': true,
   },
 };
 
@@ -92,6 +113,9 @@ export const ALL_ACTIONS: Action[] = [
   'record:create',
   'record:edit',
   'record:status',
+  'record:accept',
+  'record:withdraw',
+  'record:discard',
   'record:review',
   'record:comment',
   'attachment:upload',
@@ -100,4 +124,8 @@ export const ALL_ACTIONS: Action[] = [
   'onboarding:curate',
   'onboarding:follow',
   'onboarding:see-all',
+  'onboarding:nudge',
+  'guide:review',
+  'guide:suggest',
+  'guide:triage',
 ];

@@ -2,6 +2,8 @@
 // Pure: the server gathers the facts, this scores them, so the rule is one readable, tested function.
 
 export interface ReadinessFacts {
+  /** Calculators apply to this subsystem: accepted decisions are then expected to link a calculation. */
+  calculationsApply: boolean;
   acceptedDecisions: { id: string; title: string; reasoningWords: number; calculations: number }[];
   lessons: { id: string; title: string; status: string; onRoute: boolean }[];
   route: { items: number; itemsFromSeason: number; missingItems: number };
@@ -42,19 +44,24 @@ const WEIGHTS = { decisions: 35, lessons: 20, route: 20, guides: 25 } as const;
 export function scoreReadiness(f: ReadinessFacts, now: Date): Readiness {
   const checks: ReadinessCheck[] = [];
 
-  const complete = f.acceptedDecisions.filter((d) => d.reasoningWords >= MIN_REASONING_WORDS && d.calculations > 0);
+  const needsCalculation = f.calculationsApply;
+  const complete = f.acceptedDecisions.filter(
+    (d) => d.reasoningWords >= MIN_REASONING_WORDS && (!needsCalculation || d.calculations > 0),
+  );
   const decisionMissing: string[] = [];
   if (f.acceptedDecisions.length === 0) decisionMissing.push('No accepted decision recorded this season.');
   for (const d of f.acceptedDecisions) {
     const gaps = [
       d.reasoningWords < MIN_REASONING_WORDS ? `its reasoning (${d.reasoningWords} words)` : '',
-      d.calculations === 0 ? 'a linked calculation' : '',
+      needsCalculation && d.calculations === 0 ? 'a linked calculation' : '',
     ].filter(Boolean);
     if (gaps.length) decisionMissing.push(`Decision “${d.title}” needs ${gaps.join(' and ')}.`);
   }
   checks.push({
     key: 'decisions',
-    label: 'Each accepted decision has its reasoning and a linked calculation',
+    label: needsCalculation
+      ? 'Each accepted decision has its reasoning and a linked calculation'
+      : 'Each accepted decision has its reasoning (no calculator applies to this subsystem)',
     weight: WEIGHTS.decisions,
     fraction: f.acceptedDecisions.length ? complete.length / f.acceptedDecisions.length : 0,
     missing: decisionMissing,

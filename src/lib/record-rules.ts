@@ -9,6 +9,8 @@ import {
   type RecordStatus,
 } from './domain';
 
+import type { Action } from './policy';
+
 export type { RecordKind } from './domain';
 
 const DECISION_MOVES: Record<DecisionStatus, readonly DecisionStatus[]> = {
@@ -44,6 +46,9 @@ export function canMove(kind: RecordKind, from: string, to: string): boolean {
   return nextStatuses(kind, from).some((s) => s === to);
 }
 
+/** A change note ("why this change") is one short sentence kept with the version it explains. */
+export const MAX_CHANGE_NOTE = 280;
+
 /** Superseding always names the record that replaces it. */
 export function needsReplacement(to: string): boolean {
   return to === 'superseded';
@@ -51,4 +56,23 @@ export function needsReplacement(to: string): boolean {
 
 export function isValidStatus(kind: RecordKind, status: string): boolean {
   return STATUSES[kind].some((s) => s === status);
+}
+
+/**
+ * What a decision still needs before it can be accepted, in words for the facts panel; null when nothing is
+ * pending (accepted, or its story is over) and for lessons. Mirrors the server's rule in records/write.ts.
+ */
+export function acceptanceNeeds(r: { kind: RecordKind; status: string; reviewedCurrent: boolean }): string | null {
+  if (r.kind !== 'decision') return null;
+  if (r.status === 'draft')
+    return 'Still a draft: its author proposes it to the team, then an advisor or a lead reviews it.';
+  if (r.status !== 'proposed') return null;
+  return r.reviewedCurrent
+    ? 'Reviewed: ready to be accepted.'
+    : 'Waiting for a review: an advisor or a lead reviews this version, or accepts it.';
+}
+
+/** The permission a status move asks for (lib/policy.ts): advisors may accept and withdraw, nothing else. */
+export function actionForMove(to: string): Action {
+  return to === 'accepted' ? 'record:accept' : to === 'withdrawn' ? 'record:withdraw' : 'record:status';
 }

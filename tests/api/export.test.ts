@@ -2,11 +2,11 @@ import { describe, it, expect, beforeAll } from 'vitest';
 import { readdirSync, writeFileSync, mkdtempSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { tmpdir } from 'node:os';
-import yauzl from 'yauzl';
 import Database from 'better-sqlite3';
 import { parse as parseYaml } from 'yaml';
 import { isNull, count } from 'drizzle-orm';
 import { call } from '../setup/http';
+import { unzip } from '../setup/zip';
 import { seedDemo, sessionsForAllRoles, type DemoRole } from '../setup/db';
 import * as exportRoute from '../../src/pages/api/export';
 import * as backupRoute from '../../src/pages/api/backup';
@@ -21,30 +21,6 @@ beforeAll(async () => {
   await seedDemo();
   s = await sessionsForAllRoles();
 });
-
-/** Every entry of a zip, name → bytes, read with yauzl (an independent reader). */
-function unzip(bytes: Uint8Array): Promise<Map<string, Buffer>> {
-  return new Promise((resolve, reject) => {
-    yauzl.fromBuffer(Buffer.from(bytes), { lazyEntries: true }, (err, zip) => {
-      if (err || !zip) return reject(err ?? new Error('yauzl opened no zip'));
-      const out = new Map<string, Buffer>();
-      zip.on('entry', (entry: yauzl.Entry) => {
-        zip.openReadStream(entry, (e, stream) => {
-          if (e || !stream) return reject(e ?? new Error(`yauzl could not read ${entry.fileName}`));
-          const chunks: Buffer[] = [];
-          stream.on('data', (c: Buffer) => chunks.push(c));
-          stream.on('end', () => {
-            out.set(entry.fileName, Buffer.concat(chunks));
-            zip.readEntry();
-          });
-        });
-      });
-      zip.on('end', () => resolve(out));
-      zip.on('error', reject);
-      zip.readEntry();
-    });
-  });
-}
 
 function frontMatter(md: string): Record<string, unknown> {
   const m = /^---\n([\s\S]*?)\n---\n/.exec(md);

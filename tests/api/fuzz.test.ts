@@ -25,12 +25,14 @@ const FIELDS: Record<string, Record<string, FieldType>> = {
   'POST /api/auth/request-reset': { email: 'string' },
   'POST /api/auth/reset': { token: 'string', password: 'string' },
   'PATCH /api/me': { digestOptIn: 'boolean' },
+  'POST /api/account/password': { currentPassword: 'string', newPassword: 'string' },
   'POST /api/seasons': { name: 'string', startsOn: 'string', endsOn: 'string', phase: 'string' },
   'PATCH /api/seasons/[id]': { name: 'string', phase: 'string', startsOn: 'string', current: 'boolean' },
   'POST /api/seasons/[id]/rollover': { continuing: 'array', confirm: 'boolean' },
   'POST /api/subsystems': { slug: 'string', name: 'string', summary: 'string' },
   'PATCH /api/subsystems/[slug]': { name: 'string', summary: 'string' },
   'PATCH /api/people/[id]': { role: 'string', subsystems: 'array' },
+  'POST /api/people/[id]/nudge': { note: 'string' },
   'POST /api/invitations': { email: 'string', name: 'string', role: 'string', subsystems: 'array' },
   'POST /api/digest/send': { days: 'number' },
   'POST /api/records': {
@@ -41,6 +43,8 @@ const FIELDS: Record<string, Record<string, FieldType>> = {
     calculationIds: 'array',
   },
   'PATCH /api/records/[id]': { version: 'number', title: 'string', body: 'object', relatedRecordIds: 'array' },
+  // Reads no body (its file's PATCH does); whatever is sent, an accepted record is never discarded.
+  'DELETE /api/records/[id]': { version: 'number' },
   'POST /api/records/[id]/status': { status: 'string', supersededBy: 'string', version: 'number' },
   'POST /api/records/[id]/review': { note: 'string' },
   'POST /api/records/[id]/comments': { body: 'string', parentId: 'string' },
@@ -48,6 +52,9 @@ const FIELDS: Record<string, Record<string, FieldType>> = {
   'POST /api/calculators/[kind]/run': { inputs: 'object' },
   'POST /api/calculators/resistance/fit': { inputs: 'object', points: 'array', drivetrainEfficiency: 'number' },
   'POST /api/calculations': { kind: 'string', title: 'string', subsystem: 'string', inputs: 'object' },
+  'POST /api/guides/[slug]/review': { note: 'string' },
+  'POST /api/guides/[slug]/suggestions': { body: 'string', section: 'string' },
+  'PATCH /api/guides/suggestions/[id]': { state: 'string' },
   'PUT /api/onboarding/[subsystem]': { items: 'array' },
   'POST /api/onboarding/[subsystem]/progress': { itemId: 'string', done: 'boolean' },
 };

@@ -316,7 +316,7 @@ describe('status and lineage', () => {
     expect(
       (await call(status, 'POST', { session: s.member, params: { id: r.id }, body: { status: 'proposed' } })).status,
     ).toBe(200);
-    const acc = await call(status, 'POST', { session: s.member, params: { id: r.id }, body: { status: 'accepted' } });
+    const acc = await call(status, 'POST', { session: s.advisor, params: { id: r.id }, body: { status: 'accepted' } });
     expect(acc.body.record.status).toBe('accepted');
     expect(
       (await call(status, 'POST', { session: s.member, params: { id: r.id }, body: { status: 'open' } })).status,
@@ -326,7 +326,7 @@ describe('status and lineage', () => {
   it('superseding needs the replacing record, and both show the link', async () => {
     const old = await create();
     await call(status, 'POST', { session: s.member, params: { id: old.id }, body: { status: 'proposed' } });
-    await call(status, 'POST', { session: s.member, params: { id: old.id }, body: { status: 'accepted' } });
+    await call(status, 'POST', { session: s.advisor, params: { id: old.id }, body: { status: 'accepted' } });
     const missing = await call(status, 'POST', {
       session: s.member,
       params: { id: old.id },
@@ -335,6 +335,8 @@ describe('status and lineage', () => {
     expect(missing.status).toBe(400);
     expect(missing.body.error.issues[0].path).toBe('supersededBy');
     const newer = await create('member', { title: 'Use a 10 mm² main cable after all' });
+    await call(status, 'POST', { session: s.member, params: { id: newer.id }, body: { status: 'proposed' } });
+    await call(status, 'POST', { session: s.lead, params: { id: newer.id }, body: { status: 'accepted' } });
     const sup = await call(status, 'POST', {
       session: s.member,
       params: { id: old.id },

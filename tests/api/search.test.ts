@@ -206,12 +206,19 @@ describe('fresh after writes through the real routes', () => {
       expect(r.status).toBe(201);
       return r.body.record.id as string;
     };
-    const old = await make('Marsupial harness fuse 60 A');
-    for (const st of ['proposed', 'accepted'])
+    // Acceptance needs an advisor or a lead (or their review); a decision is replaced only by an accepted one.
+    const proposeAndAccept = async (id: string) => {
       expect(
-        (await call(status, 'POST', { session: s.member, params: { id: old }, body: { status: st } })).status,
+        (await call(status, 'POST', { session: s.member, params: { id }, body: { status: 'proposed' } })).status,
       ).toBe(200);
+      expect(
+        (await call(status, 'POST', { session: s.advisor, params: { id }, body: { status: 'accepted' } })).status,
+      ).toBe(200);
+    };
+    const old = await make('Marsupial harness fuse 60 A');
+    await proposeAndAccept(old);
     const newer = await make('Marsupial harness fuse 80 A');
+    await proposeAndAccept(newer);
     expect(
       (
         await call(status, 'POST', {
@@ -223,7 +230,7 @@ describe('fresh after writes through the real routes', () => {
     ).toBe(200);
     const hits = (await search({ q: 'marsupial harness' })).hits;
     expect(hits.find((h) => h.id === old)?.status).toBe('superseded');
-    expect(hits.find((h) => h.id === newer)?.status).toBe('draft');
+    expect(hits.find((h) => h.id === newer)?.status).toBe('accepted');
   });
 
   it('a saved calculation is found by its title and notes', async () => {

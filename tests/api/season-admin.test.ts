@@ -50,6 +50,35 @@ describe('seasons', () => {
     ).toBe(404);
   });
 
+  it('rollover refuses a season that does not start after the current one (409), and writes nothing', async () => {
+    const all = (await call(seasons, 'GET', { session: s.lead })).body.seasons;
+    const earlier = all.find((x: { name: string }) => x.name === '2024–25');
+    const res = await call(rollover, 'POST', {
+      session: s.lead,
+      params: { id: earlier.id },
+      body: { continuing: [], confirm: true },
+    });
+    expect(res.status).toBe(409);
+    expect(res.body.error.code).toBe('conflict');
+    expect(res.body.error.message).toMatch(/later season/);
+    const still = (await call(seasons, 'GET', { session: s.lead })).body.seasons.find(
+      (x: { current: boolean }) => x.current,
+    );
+    expect(still.name).toBe('2025–26');
+    const people2 = (await call(people, 'GET', { session: s.lead })).body.people;
+    expect(people2.find((p: { name: string }) => p.name === 'Hanna Voss').role).toBe('member');
+  });
+
+  it('rollover without a list keeps every member of the current season, with subsystem names', async () => {
+    const preview = await call(rollover, 'POST', { session: s.lead, params: { id: newId }, body: {} });
+    expect(preview.status).toBe(200);
+    const changes = preview.body.changes as { name: string; change: string; subsystemNames: string[] }[];
+    expect(changes.length).toBeGreaterThan(0);
+    expect(changes.every((c) => c.change === 'continues')).toBe(true);
+    const jonas = changes.find((c) => c.name === 'Jonas Lindqvist')!;
+    expect([...jonas.subsystemNames].sort()).toEqual(['Cooling', 'Propulsion and motor drive']);
+  });
+
   it('rollover previews exactly what will change, and only writes with confirm', async () => {
     const members = (await call(people, 'GET', { session: s.lead })).body.people;
     const jonas = members.find((p: { name: string }) => p.name === 'Jonas Lindqvist');

@@ -25,7 +25,7 @@ describe('GET /api/seasons and /api/subsystems', () => {
     expect([...starts].sort().reverse()).toEqual(starts);
   });
 
-  it('lists the subsystems with slug, name and summary', async () => {
+  it('lists the subsystems with slug, name, summary and whether calculators apply', async () => {
     const res = await call(subsystems, 'GET', { session: await sessionFor('member') });
     expect(res.status).toBe(200);
     expect(res.body.subsystems.length).toBeGreaterThanOrEqual(6);
@@ -33,6 +33,7 @@ describe('GET /api/seasons and /api/subsystems', () => {
       slug: expect.any(String),
       name: expect.any(String),
       summary: expect.any(String),
+      calculationsApply: expect.any(Boolean),
     });
   });
 

@@ -19,10 +19,18 @@ interface PageCase {
 const PLAIN = 80;
 const CHART = 200; // calculators and CSV plots load uPlot and the engine; not budgeted by the issue, kept in check here
 const EDITOR = 220;
+// A record page with its islands (status moves, review, questions, discard) on React's 64 kB runtime: 82–84 kB
+// measured when these pages were first listed here (issue 13); they had no budget before. Kept in check, not hidden.
+const RECORD = 90;
 const PAGES: PageCase[] = [
   { path: '/sign-in', as: null, budgetKb: PLAIN },
   { path: '/', as: 'member', budgetKb: PLAIN },
   { path: '/', as: 'lead', budgetKb: PLAIN },
+  { path: '/', as: 'advisor', budgetKb: PLAIN }, // decisions waiting for a review
+  { path: '/account', as: 'member', budgetKb: PLAIN },
+  { path: '/records/demo-rec-2526-throttle-soft-start', as: 'advisor', budgetKb: RECORD },
+  { path: '/records/demo-rec-2526-throttle-soft-start', as: 'member', budgetKb: RECORD },
+  { path: '/records/demo-rec-2526-hull-sprint-foil', as: 'lead', budgetKb: RECORD }, // a draft: Discard draft is offered
   { path: '/subsystems', as: 'member', budgetKb: PLAIN },
   { path: '/subsystems/propulsion', as: 'member', budgetKb: PLAIN },
   { path: '/subsystems/propulsion', as: 'advisor', budgetKb: PLAIN },
@@ -49,6 +57,10 @@ const PAGES: PageCase[] = [
   { path: '/onboarding', as: 'lead', budgetKb: PLAIN },
   { path: '/admin', as: 'lead', budgetKb: PLAIN },
   { path: '/no-such-page', as: 'member', budgetKb: PLAIN },
+  { path: '/records/no-such-record', as: 'member', budgetKb: PLAIN },
+  { path: '/guides/hull-resistance-in-plain-terms', as: 'advisor', budgetKb: PLAIN },
+  { path: '/guides/suggestions', as: 'advisor', budgetKb: PLAIN },
+  { path: '/admin/audit', as: 'lead', budgetKb: PLAIN },
 ];
 
 let browser: Browser;

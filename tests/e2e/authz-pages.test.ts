@@ -25,6 +25,7 @@ const PAGES: Record<string, { url: string; expect: Partial<Record<Who, number>> 
   'subsystems/[slug].astro': { url: '/subsystems/propulsion', expect: { out: 302, ...everyone } },
   'guides/index.astro': { url: '/guides', expect: { out: 302, ...everyone } },
   'guides/[slug].astro': { url: '/guides/reading-an-open-water-diagram', expect: { out: 302, ...everyone } },
+  'guides/suggestions.astro': { url: '/guides/suggestions', expect: { out: 302, ...ok(['advisor', 'lead']) } },
   'records/index.astro': { url: '/records', expect: { out: 302, ...everyone } },
   'records/new.astro': { url: '/records/new?kind=lesson', expect: { out: 302, ...ok(['member', 'lead']) } },
   'records/[id]/index.astro': { url: '/records/demo-rec-2526-two-propellers', expect: { out: 302, ...everyone } },

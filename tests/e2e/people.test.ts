@@ -61,7 +61,16 @@ describe('bringing a new member in', () => {
       .waitFor();
     await lead.getByRole('row').filter({ hasText: NEWCOMER.email }).filter({ hasText: 'Pending' }).waitFor();
     await shot(lead, 'admin-invitations');
+    // A second attempt that fails clears the line about the first success.
+    await lead.getByLabel('E-mail').fill(NEWCOMER.email);
+    await lead.getByLabel('Name').fill(NEWCOMER.name);
+    await lead.getByRole('button', { name: 'Send the invitation', exact: true }).click();
+    await lead.getByRole('alert').first().waitFor();
+    expect(await lead.getByRole('status').filter({ hasText: 'was invited' }).count()).toBe(0);
     inviteLink = await linkFromOutbox(lead, NEWCOMER.email, /invited you to Wakebook/);
+    // The outbox shows the e-mail's links as links.
+    const mailLink = lead.getByTestId('mail-text').first().getByRole('link').first();
+    expect(await mailLink.getAttribute('href')).toBe(inviteLink);
     expect(new URL(inviteLink).pathname).toMatch(/^\/invite\/[A-Za-z0-9_-]{20,}$/);
     await lead.getByText('As the recipient sees it (HTML)').first().click();
     await lead.frameLocator('iframe').first().getByRole('link', { name: 'Accept the invitation' }).waitFor();
@@ -88,6 +97,11 @@ describe('bringing a new member in', () => {
       page.getByRole('button', { name: 'Join and sign in' }).click(),
     ]);
     await page.getByLabel(`Account menu for ${NEWCOMER.name}`).waitFor();
+    // The first visit welcomes them and starts their onboarding, not "Welcome back".
+    expect(await page.getByRole('heading', { level: 1 }).textContent()).toContain('Welcome to Wakebook, Noor');
+    const start = page.getByRole('link', { name: 'Start your onboarding' });
+    expect(await start.getAttribute('href')).toBe('/subsystems/solar#route-h');
+    await shot(page, 'welcome-first-visit');
     // Signing out and in again with the chosen password works.
     await page.getByLabel(`Account menu for ${NEWCOMER.name}`).click();
     await Promise.all([page.waitForURL(/\/sign-in/), page.getByRole('button', { name: 'Sign out' }).click()]);
@@ -172,9 +186,18 @@ describe('bringing a new member in', () => {
     await lead.getByLabel('What').selectOption('invitation.');
     await Promise.all([lead.waitForURL(/action=invitation/), lead.getByRole('button', { name: 'Filter' }).click()]);
     const text = await lead.getByRole('table').textContent();
-    expect(text).toContain('invitation.create');
-    expect(text).toContain('invitation.accept');
-    expect(text).not.toContain('auth.sign-in');
+    // Actions in words, targets as linked names, never dotted codes.
+    expect(text).toContain('invited');
+    expect(text).toContain('accepted the invitation and joined as');
+    expect(text).not.toContain('invitation.create');
+    expect(text).not.toContain('signed in');
+    expect(
+      await lead
+        .getByRole('table')
+        .getByRole('link', { name: new RegExp(NEWCOMER.name) })
+        .count(),
+    ).toBeGreaterThan(0);
+    await shot(lead, 'admin-audit');
   });
 });
 

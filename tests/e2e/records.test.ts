@@ -117,13 +117,30 @@ describe('decision records in the browser', () => {
     await shot(page, 'record-attachments');
   });
 
+  /** The member proposes (past the thin-decision warning); an advisor, in a browser of their own, accepts. */
+  async function proposeAndAccept(url: string) {
+    await page.goto(url);
+    await page.getByRole('button', { name: /Propose to the team/ }).click();
+    // A decision with nothing under its options or consequences asks once more.
+    const anyway = page.getByRole('button', { name: 'Propose it anyway' });
+    const waiting = page.getByText('Waiting for a review');
+    await anyway.or(waiting).first().waitFor();
+    if (await anyway.isVisible()) await anyway.click();
+    await waiting.waitFor();
+    const advisorCtx = await browser.newContext({ viewport: { width: 1280, height: 1000 } });
+    const advisor = await advisorCtx.newPage();
+    await signIn(advisor, 'advisor@wakebook.test');
+    await advisor.goto(url);
+    await advisor.getByRole('button', { name: /Mark accepted/ }).click();
+    await advisor.getByText('To be accepted').waitFor({ state: 'detached' });
+    await advisorCtx.close();
+  }
+
   it('supersedes it with a newer record; both show the link', async () => {
     const id = recordUrl.split('/').pop()!;
     // Move the first decision to accepted so it can be superseded.
+    await proposeAndAccept(recordUrl);
     await page.goto(recordUrl);
-    await page.getByRole('button', { name: /Propose to the team/ }).click();
-    await page.getByRole('button', { name: /Mark accepted/ }).waitFor();
-    await page.getByRole('button', { name: /Mark accepted/ }).click();
     await page.getByRole('button', { name: /Supersede/ }).waitFor();
     // Write the replacement.
     await page.goto(`${baseUrl()}/records/new?kind=decision&subsystem=battery`);
@@ -135,6 +152,8 @@ describe('decision records in the browser', () => {
       page.getByRole('button', { name: 'Create decision record' }).click(),
     ]);
     const newerUrl = page.url();
+    // Only an accepted decision can replace one.
+    await proposeAndAccept(newerUrl);
     await page.goto(recordUrl);
     await page.getByRole('button', { name: /Supersede/ }).click();
     const select = page.getByLabel('Which decision replaces this one?');

@@ -20,6 +20,7 @@ vi.mock('astro:content', async () => {
         collection: 'guides',
         data: guideSchema.parse(yaml.parse(front)),
         body: text,
+        filePath: path.join(base, file),
       };
     });
   return {

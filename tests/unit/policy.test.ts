@@ -3,11 +3,12 @@ import type { Role } from '../../src/lib/domain';
 import { can, ALL_ACTIONS, type Action } from '../../src/lib/policy';
 
 // The permissions of PRODUCT.md ("People and roles"), written out in full so a change to the policy
-// shows up here as a deliberate edit. C = only for the current season's work.
+// shows up here as a deliberate edit. C = only for the current season's work; O = only one's own.
 const Y = true;
 const N = false;
 const C = 'current' as const;
-type Cell = boolean | typeof C;
+const O = 'own' as const;
+type Cell = boolean | typeof C | typeof O;
 const EXPECTED: Record<Action, Record<Role, Cell>> = {
   read: { lead: Y, advisor: Y, member: Y, alumni: Y },
   'season:manage': { lead: Y, advisor: N, member: N, alumni: N },
@@ -21,6 +22,10 @@ const EXPECTED: Record<Action, Record<Role, Cell>> = {
   'record:create': { lead: Y, advisor: N, member: Y, alumni: N },
   'record:edit': { lead: Y, advisor: N, member: C, alumni: N },
   'record:status': { lead: Y, advisor: N, member: C, alumni: N },
+  // Advisors accept and withdraw decisions; a member's acceptance also needs a review (tests/api/record-acceptance).
+  'record:accept': { lead: Y, advisor: Y, member: C, alumni: N },
+  'record:withdraw': { lead: Y, advisor: Y, member: C, alumni: N },
+  'record:discard': { lead: Y, advisor: N, member: O, alumni: N },
   'record:review': { lead: Y, advisor: Y, member: N, alumni: N },
   'record:comment': { lead: Y, advisor: Y, member: Y, alumni: Y },
   'attachment:upload': { lead: Y, advisor: N, member: C, alumni: N },
@@ -29,6 +34,10 @@ const EXPECTED: Record<Action, Record<Role, Cell>> = {
   'onboarding:curate': { lead: Y, advisor: Y, member: N, alumni: N },
   'onboarding:follow': { lead: Y, advisor: Y, member: Y, alumni: Y },
   'onboarding:see-all': { lead: Y, advisor: N, member: N, alumni: N },
+  'onboarding:nudge': { lead: Y, advisor: N, member: N, alumni: N },
+  'guide:review': { lead: Y, advisor: Y, member: N, alumni: N },
+  'guide:suggest': { lead: Y, advisor: Y, member: Y, alumni: Y },
+  'guide:triage': { lead: Y, advisor: Y, member: N, alumni: N },
 };
 const ROLES: Role[] = ['lead', 'advisor', 'member', 'alumni'];
 
@@ -40,8 +49,20 @@ describe('policy: every role × action', () => {
   for (const action of ALL_ACTIONS) {
     for (const role of ROLES) {
       const cell = EXPECTED[action][role];
-      it(`${role} ${cell === C ? 'may, in the current season only,' : cell ? 'may' : 'may not'} ${action}`, () => {
-        if (cell === C) {
+      const how =
+        cell === C
+          ? 'may, in the current season only,'
+          : cell === O
+            ? 'may, for their own only,'
+            : cell
+              ? 'may'
+              : 'may not';
+      it(`${role} ${how} ${action}`, () => {
+        if (cell === O) {
+          expect(can({ role }, action, { isOwn: true })).toBe(true);
+          expect(can({ role }, action, { isOwn: false, seasonIsCurrent: true })).toBe(false);
+          expect(can({ role }, action)).toBe(false);
+        } else if (cell === C) {
           expect(can({ role }, action, { seasonIsCurrent: true })).toBe(true);
           expect(can({ role }, action, { seasonIsCurrent: false })).toBe(false);
           expect(can({ role }, action)).toBe(false);

@@ -3,6 +3,7 @@ import { scoreReadiness, MIN_REASONING_WORDS, type ReadinessFacts } from '../../
 
 const NOW = new Date('2026-12-01T00:00:00Z');
 const complete: ReadinessFacts = {
+  calculationsApply: true,
   acceptedDecisions: [{ id: 'd1', title: 'Two propellers', reasoningWords: 300, calculations: 2 }],
   lessons: [{ id: 'l1', title: 'Ventilation', status: 'addressed', onRoute: false }],
   route: { items: 5, itemsFromSeason: 2, missingItems: 0 },
@@ -19,7 +20,13 @@ describe('scoreReadiness', () => {
 
   it('scores 0 for a subsystem with nothing handed over, and says what is missing', () => {
     const r = scoreReadiness(
-      { acceptedDecisions: [], lessons: [], route: { items: 0, itemsFromSeason: 0, missingItems: 0 }, guides: [] },
+      {
+        calculationsApply: true,
+        acceptedDecisions: [],
+        lessons: [],
+        route: { items: 0, itemsFromSeason: 0, missingItems: 0 },
+        guides: [],
+      },
       NOW,
     );
     // Lessons count as handled when there are none to hand on (20 points); everything else is missing.
@@ -27,6 +34,29 @@ describe('scoreReadiness', () => {
     expect(r.missing).toContain('No accepted decision recorded this season.');
     expect(r.missing).toContain('No guide covers this subsystem.');
     expect(r.missing.some((m) => m.startsWith('The onboarding route has 0 items'))).toBe(true);
+  });
+
+  it('does not ask for a linked calculation where no calculator applies (a per-subsystem setting)', () => {
+    const noCalc = {
+      ...complete,
+      acceptedDecisions: [{ id: 'd1', title: 'Rudder stock', reasoningWords: 300, calculations: 0 }],
+    };
+    const applies = scoreReadiness(noCalc, NOW);
+    expect(applies.missing).toEqual(['Decision “Rudder stock” needs a linked calculation.']);
+    expect(applies.score).toBe(65);
+    const exempt = scoreReadiness({ ...noCalc, calculationsApply: false }, NOW);
+    expect(exempt.missing).toEqual([]);
+    expect(exempt.score).toBe(100);
+    expect(exempt.checks[0].label).toMatch(/no calculator applies/);
+    const thin = scoreReadiness(
+      {
+        ...noCalc,
+        calculationsApply: false,
+        acceptedDecisions: [{ id: 'd', title: 'T', reasoningWords: 5, calculations: 0 }],
+      },
+      NOW,
+    );
+    expect(thin.missing).toEqual(['Decision “T” needs its reasoning (5 words).']);
   });
 
   it('names a decision without reasoning or calculation and takes its share off', () => {

@@ -1,7 +1,7 @@
 import { describe, it, expect } from 'vitest';
 import { processBody } from '../../src/lib/server/records/body';
 import { HttpError } from '../../src/lib/server/http';
-import { templateFor } from '../../src/lib/editor/templates';
+import { DECISION_SECTIONS, LESSON_SECTIONS, SECTION_PROMPTS, templateFor } from '../../src/lib/editor/templates';
 import { markdownToDoc } from '../../src/lib/server/demo/markdown';
 
 const para = (content: object[]) => ({ type: 'doc', content: [{ type: 'paragraph', content }] });
@@ -93,5 +93,85 @@ describe('processBody: validate, sanitise, render', () => {
   it('accepts the new-record templates of both kinds', () => {
     expect(processBody(templateFor('decision')).html).toContain('<h2>Options considered</h2>');
     expect(processBody(templateFor('lesson')).html).toContain('<h2>Recommendation for the next cohort</h2>');
+  });
+});
+
+describe('normalising what the editor sends', () => {
+  const item = (text?: string) => ({
+    type: 'listItem',
+    content: [{ type: 'paragraph', ...(text ? { content: [{ type: 'text', text }] } : {}) }],
+  });
+  const list = (type: string, items: object[]) => ({ type: 'doc', content: [{ type, content: items }] });
+
+  it('leaves out an empty item at the end of a list (what Enter leaves behind), and only at the end', () => {
+    const out = processBody(list('bulletList', [item('Keep the 6 mm² cable'), item(), item(' ')]));
+    expect(out.doc.content![0].content).toHaveLength(1);
+    expect(out.html).toBe('<ul><li><p>Keep the 6 mm² cable</p></li></ul>');
+    // An empty item between two written ones is the writer's choice and stays.
+    const middle = processBody(list('orderedList', [item('one'), item(), item('three')]));
+    expect(middle.doc.content![0].content).toHaveLength(3);
+  });
+
+  it('does the same in nested lists and task lists; a list left with no items goes', () => {
+    const nested = processBody(
+      list('bulletList', [
+        {
+          type: 'listItem',
+          content: [
+            { type: 'paragraph', content: [{ type: 'text', text: 'Cells' }] },
+            { type: 'bulletList', content: [item('LFP'), item()] },
+          ],
+        },
+        item(),
+      ]),
+    );
+    expect(nested.html).toBe('<ul><li><p>Cells</p><ul><li><p>LFP</p></li></ul></li></ul>');
+    const tasks = processBody({
+      type: 'doc',
+      content: [
+        { type: 'paragraph', content: [{ type: 'text', text: 'Checks' }] },
+        {
+          type: 'taskList',
+          content: [{ type: 'taskItem', attrs: { checked: false }, content: [{ type: 'paragraph' }] }],
+        },
+      ],
+    });
+    expect(tasks.doc.content!.map((n) => n.type)).toEqual(['paragraph']);
+    // A document that was one empty list still stores as a document.
+    expect(processBody(list('bulletList', [item()])).doc).toEqual({ type: 'doc', content: [{ type: 'paragraph' }] });
+  });
+
+  it('drops a section prompt an older editor stored as italic text, and keeps text that only starts like one', () => {
+    const legacy = {
+      type: 'doc',
+      content: [
+        { type: 'heading', attrs: { level: 2 }, content: [{ type: 'text', text: 'Decision' }] },
+        {
+          type: 'paragraph',
+          content: [{ type: 'text', marks: [{ type: 'italic' }], text: 'What you chose, and the deciding reason.' }],
+        },
+        { type: 'heading', attrs: { level: 2 }, content: [{ type: 'text', text: 'Consequences' }] },
+        {
+          type: 'paragraph',
+          content: [{ type: 'text', text: 'What this makes easier or harder: the swap needs a second hub.' }],
+        },
+      ],
+    };
+    const out = processBody(legacy);
+    expect(out.text).not.toContain('What you chose');
+    expect(out.text).toContain('the swap needs a second hub');
+    expect(out.doc.content!.map((n) => n.type)).toEqual(['heading', 'heading', 'paragraph']);
+  });
+
+  it('stores the new-record template with neither prompt text nor any italic mark', () => {
+    for (const kind of ['decision', 'lesson'] as const) {
+      const out = processBody(templateFor(kind));
+      const json = JSON.stringify(out.doc);
+      expect(json).not.toContain('italic');
+      for (const prompt of SECTION_PROMPTS) expect(out.text).not.toContain(prompt);
+      expect(out.text.split('\n').filter(Boolean)).toEqual(
+        kind === 'decision' ? [...DECISION_SECTIONS] : [...LESSON_SECTIONS],
+      );
+    }
   });
 });

@@ -56,4 +56,15 @@ describe('content security policy', () => {
     const redirect = withSecurityHeaders(Response.redirect('http://localhost/next', 302));
     expect(redirect.headers.get('x-frame-options')).toBe('DENY');
   });
+
+  it('gives a page whose status was set the reason phrase of that status ("403 Forbidden", never "403 OK")', () => {
+    const forbidden = withSecurityHeaders(
+      new Response('<p>no</p>', { status: 403, statusText: 'OK', headers: { 'content-type': 'text/html' } }),
+    );
+    expect(forbidden.status).toBe(403);
+    expect(forbidden.statusText).toBe('Forbidden');
+    expect(forbidden.headers.get('x-content-type-options')).toBe('nosniff');
+    const fine = withSecurityHeaders(new Response('x', { status: 404, statusText: 'Not Found' }));
+    expect(fine.statusText).toBe('Not Found');
+  });
 });

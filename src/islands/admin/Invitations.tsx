@@ -81,6 +81,8 @@ export default function Invitations({ subsystems, season, capturing, initial }: 
       <InviteForm
         subsystems={subsystems}
         season={season}
+        // A new attempt clears the line about the last one, so a failure never sits under an earlier success.
+        onStart={() => setNotice(null)}
         onInvited={async (inv, mailStatus) => {
           setNotice({
             kind: mailStatus === 'failed' ? 'error' : 'ok',
@@ -217,10 +219,12 @@ export default function Invitations({ subsystems, season, capturing, initial }: 
 function InviteForm({
   subsystems,
   season,
+  onStart,
   onInvited,
 }: {
   subsystems: Props['subsystems'];
   season: string | null;
+  onStart: () => void;
   onInvited: (inv: Invitation, mailStatus: string) => Promise<void>;
 }) {
   const [email, setEmail] = useState('');
@@ -233,6 +237,7 @@ function InviteForm({
 
   async function submit(e: FormEvent) {
     e.preventDefault();
+    onStart();
     setBusy(true);
     setErrors({});
     setFormError('');

@@ -2,7 +2,9 @@ import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { EditorContent, useEditor, type JSONContent } from '@tiptap/react';
 import useSWR from 'swr';
 import { recordExtensions } from '~/lib/editor/extensions';
-import { templateFor } from '~/lib/editor/templates';
+import { templateFor, withSectionSlots } from '~/lib/editor/templates';
+import { SectionPrompts } from '~/lib/editor/section-prompts';
+import { MAX_CHANGE_NOTE } from '~/lib/record-rules';
 import { apiFetch, ApiError, fetcher } from '~/lib/client/api';
 import { LESSON_SOURCES, type LessonSource, type RecordKind } from '~/lib/domain';
 import Toolbar from './Toolbar';
@@ -74,7 +76,8 @@ export default function RecordEditor({
     calculationIds: record?.calculationIds ?? [],
     relatedRecordIds: record?.relatedRecordIds ?? [],
   };
-  const initialBody = record?.body ?? templateFor(kind);
+  // Empty sections get a paragraph to hold their prompt; the prompts themselves are decorations, never text.
+  const initialBody = record ? withSectionSlots(record.body) : templateFor(kind);
   const [fields, setFields] = useState<Fields>(initialFields);
   const [version, setVersion] = useState(record?.version ?? 0);
   const [saved, setSaved] = useState(() => JSON.stringify({ fields: initialFields, body: initialBody }));
@@ -88,17 +91,18 @@ export default function RecordEditor({
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [message, setMessage] = useState<{ tone: 'ok' | 'error'; text: string } | null>(null);
   const [saving, setSaving] = useState(false);
+  const [changeNote, setChangeNote] = useState('');
   const [conflict, setConflict] = useState<Conflict | null>(null);
   const leaving = useRef(false);
 
-  const extensions = useMemo(() => recordExtensions(), []);
+  const extensions = useMemo(() => [...recordExtensions(), SectionPrompts], []);
   const editor = useEditor({
     extensions,
     content: initialBody,
     immediatelyRender: false,
     editorProps: {
       attributes: {
-        class: 'prose-wb min-h-[24rem] px-4 py-3 focus:outline-none',
+        class: 'prose-wb min-h-[24rem] px-4 py-3',
         'aria-label': 'Record text',
         role: 'textbox',
         'aria-multiline': 'true',
@@ -192,9 +196,14 @@ export default function RecordEditor({
         }
         const res = await apiFetch<{ record: { version: number; url: string } }>(`/api/records/${record.id}`, {
           method: 'PATCH',
-          json: { version: overrideVersion ?? version, ...payload },
+          json: {
+            version: overrideVersion ?? version,
+            ...payload,
+            ...(changeNote.trim() ? { changeNote: changeNote.trim() } : {}),
+          },
         });
         setVersion(res.record.version);
+        setChangeNote('');
         setSaved(JSON.stringify({ fields, body }));
         setBodyJson(body);
         clearDraft(key);
@@ -239,7 +248,7 @@ export default function RecordEditor({
         setSaving(false);
       }
     },
-    [editor, fields, canPickSeason, kind, record, version, key],
+    [editor, fields, canPickSeason, kind, record, version, key, changeNote],
   );
 
   // Ctrl/Cmd+S saves.
@@ -458,13 +467,17 @@ export default function RecordEditor({
         <p id="body-label" className="mb-1 text-sm font-semibold">
           Text
         </p>
-        <div className="overflow-hidden rounded-lg border border-line bg-surface" aria-labelledby="body-label">
+        <div
+          className="editor-frame overflow-hidden rounded-lg border border-line bg-surface"
+          aria-labelledby="body-label"
+        >
           <Toolbar editor={editor} />
           <EditorContent editor={editor} />
         </div>
         {errors.body && <p className="field-error">{errors.body}</p>}
         <p className="mt-1 text-xs text-muted">
-          Keep the section headings; replace the italic prompts. Unsaved changes are kept in this browser. Ctrl+S saves.
+          Keep the section headings and write under each; the grey prompts are only hints and are never saved. Unsaved
+          changes are kept in this browser. Ctrl+S saves.
         </p>
       </div>
 
@@ -490,7 +503,29 @@ export default function RecordEditor({
         <p className="field-error">{errors.calculationIds ?? errors.relatedRecordIds}</p>
       )}
 
-      <div className="sticky bottom-0 flex flex-wrap items-center gap-3 border-t border-line bg-paper py-3">
+      <div className="sticky bottom-0 flex flex-wrap items-end gap-3 border-t border-line bg-paper py-3">
+        {record && (
+          <div className="field min-w-0 flex-[1_1_22rem]">
+            <label htmlFor="rec-change-note" className="text-sm">
+              Why this change <span className="font-normal text-muted">(optional, shown in the history)</span>
+            </label>
+            <input
+              id="rec-change-note"
+              className="input"
+              value={changeNote}
+              maxLength={MAX_CHANGE_NOTE}
+              onChange={(e) => setChangeNote(e.target.value)}
+              placeholder="e.g. Added the bollard pull results"
+              aria-invalid={errors.changeNote ? true : undefined}
+              aria-describedby={errors.changeNote ? 'rec-change-note-error' : undefined}
+            />
+            {errors.changeNote && (
+              <p id="rec-change-note-error" className="field-error">
+                {errors.changeNote}
+              </p>
+            )}
+          </div>
+        )}
         <button type="submit" className="btn btn-primary" disabled={saving}>
           {saving
             ? 'Saving…'

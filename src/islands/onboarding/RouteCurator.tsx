@@ -1,4 +1,5 @@
-import { useMemo, useState, type DragEvent } from 'react';
+import { useDeferredValue, useMemo, useState, type DragEvent } from 'react';
+import type { SearchHit } from '~/lib/search-types';
 import useSWR from 'swr';
 import { apiFetch, ApiError, fetcher } from '~/lib/client/api';
 
@@ -23,6 +24,12 @@ export default function RouteCurator({ subsystem, initial }: { subsystem: string
   );
   const calcs = useSWR<{ calculations: { id: string; title: string; season: string; subsystem: string }[] }>(
     '/api/calculations?limit=100',
+    fetcher,
+  );
+  // Titles are matched here; the site's search also finds words in bodies, guides' text and calculation notes.
+  const searchFor = useDeferredValue(query.trim());
+  const found = useSWR<{ hits: SearchHit[] }>(
+    searchFor.length >= 2 ? `/api/search?q=${encodeURIComponent(searchFor)}&limit=20` : null,
     fetcher,
   );
 
@@ -52,11 +59,25 @@ export default function RouteCurator({ subsystem, initial }: { subsystem: string
     ];
     const q = query.trim().toLowerCase();
     const taken = new Set(items.map((i) => `${i.kind}:${i.ref}`));
-    return all
-      .filter((c) => !taken.has(`${c.kind}:${c.ref}`))
-      .filter((c) => (q ? `${c.title} ${c.detail}`.toLowerCase().includes(q) : c.sub === subsystem))
-      .slice(0, 12);
-  }, [guides.data, records.data, calcs.data, query, items, subsystem]);
+    const byTitle = all.filter((c) => (q ? `${c.title} ${c.detail}`.toLowerCase().includes(q) : c.sub === subsystem));
+    const seen = new Set(byTitle.map((c) => `${c.kind}:${c.ref}`));
+    const byText: Item[] = q
+      ? (found.data?.hits ?? [])
+          .map((h) => ({
+            kind:
+              h.type === 'guide'
+                ? ('guide' as const)
+                : h.type === 'calculation'
+                  ? ('calculation' as const)
+                  : ('record' as const),
+            ref: h.id,
+            title: h.title,
+            detail: `${h.type === 'guide' ? 'Guide' : h.type === 'calculation' ? 'Calculation' : h.type === 'decision' ? 'Decision' : 'Lesson'}${h.season ? ` · ${h.season}` : ''} · found in its text`,
+          }))
+          .filter((c) => !seen.has(`${c.kind}:${c.ref}`))
+      : [];
+    return [...byTitle, ...byText].filter((c) => !taken.has(`${c.kind}:${c.ref}`)).slice(0, 12);
+  }, [guides.data, records.data, calcs.data, found.data, query, items, subsystem]);
 
   const move = (from: number, to: number) => {
     if (to < 0 || to >= items.length || from === to) return;
@@ -151,7 +172,7 @@ export default function RouteCurator({ subsystem, initial }: { subsystem: string
           className="input"
           value={query}
           onChange={(e) => setQuery(e.target.value)}
-          placeholder="Guide, record or calculation title (empty: this subsystem’s own)"
+          placeholder="Words from a title or text (empty: this subsystem’s own)"
         />
       </div>
       <ul className="flex flex-col gap-1" aria-label="Items you can add">

@@ -1,14 +1,15 @@
 import { useState } from 'react';
 import { apiFetch, ApiError } from '~/lib/client/api';
 
-export default function ReviewButton({ id, version }: { id: string; version: number }) {
+/** Marks a record's version or a guide reviewed: `url` is the review route, `label` the button's words. */
+export default function ReviewButton({ url, label }: { url: string; label: string }) {
   const [note, setNote] = useState('');
   const [state, setState] = useState<'idle' | 'busy' | 'error'>('idle');
   const [error, setError] = useState('');
   async function review() {
     setState('busy');
     try {
-      await apiFetch(`/api/records/${id}/review`, { method: 'POST', json: note.trim() ? { note: note.trim() } : {} });
+      await apiFetch(url, { method: 'POST', json: note.trim() ? { note: note.trim() } : {} });
       window.location.reload();
     } catch (e) {
       setState('error');
@@ -28,7 +29,7 @@ export default function ReviewButton({ id, version }: { id: string; version: num
         maxLength={1000}
       />
       <button type="button" className="btn btn-quiet text-sm" onClick={review} disabled={state === 'busy'}>
-        Mark version {version} reviewed
+        {label}
       </button>
       {state === 'error' && (
         <p className="field-error" role="alert">

@@ -1,45 +1,83 @@
 import { useState } from 'react';
 import { apiFetch, ApiError } from '~/lib/client/api';
 import type { RolloverMember, Season } from '~/lib/schemas/seasons';
+import { rolloverSentences, type RolloverPreviewChange } from '~/lib/rollover-text';
+import OpenSeason from './OpenSeason';
 
-interface Change {
-  userId: string;
-  name: string;
-  change: 'to-alumni' | 'continues';
-  subsystems: string[];
+interface Preview {
+  from: string;
+  to: string;
+  changes: RolloverPreviewChange[];
 }
 
+/** The day after `date` (YYYY-MM-DD), and a year on: the dates a following season most likely has. */
+function following(date: string | undefined) {
+  if (!date) return {};
+  const d = new Date(`${date}T00:00:00Z`);
+  d.setUTCDate(d.getUTCDate() + 1);
+  const start = d.toISOString().slice(0, 10);
+  d.setUTCFullYear(d.getUTCFullYear() + 1);
+  d.setUTCDate(d.getUTCDate() - 1);
+  return { startsOn: start, endsOn: d.toISOString().slice(0, 10) };
+}
+
+/**
+ * Rolls the team over to a season that starts after the current one (the server refuses any other). Every member
+ * of the current season starts ticked as continuing; the lead unticks those who leave.
+ */
 export default function Rollover({
-  seasons,
+  seasons: later,
   members,
   current,
 }: {
   seasons: Season[];
   members: RolloverMember[];
-  current: string;
+  current: Season | undefined;
 }) {
-  const [target, setTarget] = useState(seasons[0]?.id ?? '');
-  const [continuing, setContinuing] = useState<string[]>([]);
-  const [preview, setPreview] = useState<{ from: string; to: string; changes: Change[] } | null>(null);
+  const [seasons, setSeasons] = useState(later);
+  const [target, setTarget] = useState(later[0]?.id ?? '');
+  const [continuing, setContinuing] = useState<string[]>(() => members.map((m) => m.id));
+  const [preview, setPreview] = useState<Preview | null>(null);
   const [error, setError] = useState('');
   const [done, setDone] = useState(false);
-  if (seasons.length === 0) {
+  if (!current) {
     return (
       <section className="card" aria-labelledby="roll-h">
         <h2 id="roll-h" className="text-lg font-semibold">
           Roll over to a new season
         </h2>
-        <p className="mt-2 text-sm text-muted">Open the next season first; then roll the team over to it here.</p>
+        <p className="mt-2 text-sm text-muted">No season is current, so there is nothing to roll over from.</p>
+      </section>
+    );
+  }
+  if (seasons.length === 0) {
+    return (
+      <section className="flex flex-col gap-3" aria-labelledby="roll-h">
+        <h2 id="roll-h" className="text-lg font-semibold">
+          Roll over to a new season
+        </h2>
+        <p className="text-sm text-muted">
+          No season starts after {current.name} yet. Open the next one here; the rollover continues with it.
+        </p>
+        <OpenSeason
+          idPrefix="next-season"
+          title="Open the next season"
+          initial={following(current.endsOn)}
+          onOpened={(s) => {
+            setSeasons([s]);
+            setTarget(s.id);
+          }}
+        />
       </section>
     );
   }
   async function run(confirm: boolean) {
     setError('');
     try {
-      const res = await apiFetch<{ applied: boolean; from: string; to: string; changes: Change[] }>(
-        `/api/seasons/${target}/rollover`,
-        { method: 'POST', json: { continuing, confirm } },
-      );
+      const res = await apiFetch<Preview & { applied: boolean }>(`/api/seasons/${target}/rollover`, {
+        method: 'POST',
+        json: { continuing, confirm },
+      });
       if (res.applied) setDone(true);
       else setPreview(res);
     } catch (e) {
@@ -58,7 +96,7 @@ export default function Rollover({
         Roll over to a new season
       </h2>
       <p className="text-sm text-muted">
-        Members of {current} who do not continue become alumni: they keep reading and answering questions, but stop
+        Members of {current.name} who do not continue become alumni: they keep reading and answering questions, but stop
         editing. Leads and advisors keep their roles.
       </p>
       <div className="field max-w-xs">
@@ -74,13 +112,14 @@ export default function Rollover({
         >
           {seasons.map((s) => (
             <option key={s.id} value={s.id}>
-              {s.name}
+              {s.name} (from {s.startsOn})
             </option>
           ))}
         </select>
       </div>
       <fieldset>
         <legend className="mb-1 text-sm font-semibold">Who continues into the new season?</legend>
+        {members.length === 0 && <p className="text-sm text-muted">{current.name} has no members.</p>}
         <div className="grid gap-1 sm:grid-cols-2">
           {members.map((m) => (
             <label key={m.id} className="flex items-center gap-2 text-sm">
@@ -105,20 +144,13 @@ export default function Rollover({
       {preview && (
         <div className="notice flex flex-col gap-2" role="region" aria-label="What will change">
           <p className="font-semibold">
-            Rolling over from {preview.from} to {preview.to} will:
+            Rolling over from {preview.from} to {preview.to}:
           </p>
-          <ul className="list-disc pl-5 text-sm">
-            <li>make {preview.to} the current season;</li>
-            {preview.changes.map((c) => (
-              <li key={c.userId}>
-                {c.change === 'to-alumni'
-                  ? `move ${c.name} from member to alumni`
-                  : `keep ${c.name} as a member in ${preview.to}${c.subsystems.length ? `, owning ${c.subsystems.join(', ')}` : ''}`}
-                ;
-              </li>
-            ))}
-            {preview.changes.length === 0 && <li>change nobody’s role (no members in {preview.from}).</li>}
-          </ul>
+          {rolloverSentences(preview.from, preview.to, preview.changes).map((line) => (
+            <p key={line} className="text-sm">
+              {line}
+            </p>
+          ))}
           <div className="flex gap-2">
             <button type="button" className="btn btn-primary" onClick={() => run(true)}>
               Roll over now

@@ -145,7 +145,7 @@ export const energyCalculator: Calculator<EnergyCalcInput, EnergyOutput> = {
   sources: [
     {
       citation:
-        'Energy balance E = V_nom·C_Ah, usable E·DoD, average power E_usable/t (REFERENCES §6; arithmetic, no empirical model).',
+        'Energy balance E = V_nom·C_Ah, usable E·DoD, average power E_usable/t: plain arithmetic, no empirical model.',
       use: 'Energy budget.',
     },
   ],

@@ -167,6 +167,6 @@ export const SRC_BATTERY_ECM: Source = {
 };
 export const SRC_QUADRATIC_DRAG: Source = {
   citation:
-    'Standing start with constant thrust and quadratic drag, v(t) = v_t·tanh(t/τ), x(t) = v_t·τ·ln cosh(t/τ) (closed form used to check the integrator; e.g. J.R. Taylor (2005), "Classical Mechanics", University Science Books, §2.4).',
+    'Standing start with constant thrust and quadratic drag, v(t) = v_t·tanh(t/τ), x(t) = v_t·τ·ln cosh(t/τ) (closed form used to check the integrator; e.g. J.R. Taylor (2005), "Classical Mechanics", University Science Books, section 2.4).',
   use: 'Check of the time integration of m·dv/dt = T(1 − t) − R.',
 };

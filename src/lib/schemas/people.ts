@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { typedLine } from './text';
+import { typedLine, typedText } from './text';
 import { ROLES } from '../domain';
 
 const subsystemSlugs = z
@@ -53,3 +53,6 @@ export type PeopleQuery = z.infer<typeof peopleQuerySchema>;
 export const mePatchSchema = z.object({
   digestOptIn: z.boolean({ error: 'Send true or false.' }),
 });
+
+/** A lead's reminder to carry on with onboarding, with an optional line of their own. */
+export const nudgeSchema = z.object({ note: typedText().trim().max(500).optional() });

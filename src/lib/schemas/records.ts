@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { typedLine, typedText } from './text';
 import { LESSON_SOURCES, RECORD_KINDS, RECORD_STATUSES } from '../domain';
+import { MAX_CHANGE_NOTE } from '../record-rules';
 
 const id = z
   .string()
@@ -46,7 +47,11 @@ export const recordPatchSchema = z
     body: body.optional(),
     calculationIds: z.array(id).max(50).optional(),
     relatedRecordIds: z.array(id).max(50).optional(),
-    note: typedLine().trim().max(300).optional(),
+    /** Why this change, kept with the new version and shown in the history; blank means none. */
+    changeNote: typedLine()
+      .trim()
+      .max(MAX_CHANGE_NOTE, `Keep the note to ${MAX_CHANGE_NOTE} characters; the text itself can say more.`)
+      .optional(),
   })
   .strict();
 export type RecordPatchInput = z.infer<typeof recordPatchSchema>;

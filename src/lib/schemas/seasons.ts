@@ -45,7 +45,8 @@ export const seasonPatchSchema = z
   .strict();
 
 export const rolloverSchema = z.object({
-  continuing: z.array(z.string().min(1).max(64)).max(500).default([]),
+  /** Left out: every member of the current season continues. */
+  continuing: z.array(z.string().min(1).max(64)).max(500).optional(),
   confirm: z.boolean().default(false),
 });
 
@@ -58,8 +59,13 @@ export const subsystemCreateSchema = z.object({
     .regex(/^[a-z0-9-]+$/, 'Lower-case letters, digits and dashes.'),
   name: typedLine().trim().min(2).max(80),
   summary: typedText().trim().max(400).default(''),
+  calculationsApply: z.boolean().default(true),
 });
 
 export const subsystemPatchSchema = z
-  .object({ name: typedLine().trim().min(2).max(80).optional(), summary: typedText().trim().max(400).optional() })
+  .object({
+    name: typedLine().trim().min(2).max(80).optional(),
+    summary: typedText().trim().max(400).optional(),
+    calculationsApply: z.boolean().optional(),
+  })
   .strict();

@@ -1,8 +1,8 @@
-import { and, desc, eq, gt, inArray, isNull, or } from 'drizzle-orm';
+import { and, desc, eq, gt, inArray, isNull, or, sql } from 'drizzle-orm';
 import type { AstroCookies } from 'astro';
 import { db } from './db/client';
 import type { Role } from '../domain';
-import { invitations, membershipSubsystems, seasonMemberships, subsystems, users } from './db/schema';
+import { auditEntries, invitations, membershipSubsystems, seasonMemberships, subsystems, users } from './db/schema';
 import { conflict, invalidInput, notFound } from './http';
 import { hashToken, newId, newToken } from './ids';
 import { recordAudit } from './audit';
@@ -329,4 +329,19 @@ export async function acceptInvitation(
     ip,
   });
   return toPublicUser({ id: userId, email: inv.email, name: input.name ?? inv.name, role: inv.role });
+}
+
+/**
+ * Someone who joined through an invitation and has signed in at most once since (the invitation's own session
+ * does not count): their home page welcomes them and starts their onboarding instead of "welcome back".
+ */
+export function isNewInvitee(userId: string): boolean {
+  const rows = db()
+    .select({ action: auditEntries.action, n: sql<number>`count(*)` })
+    .from(auditEntries)
+    .where(and(eq(auditEntries.actorId, userId), inArray(auditEntries.action, ['invitation.accept', 'auth.sign-in'])))
+    .groupBy(auditEntries.action)
+    .all();
+  const count = (a: string) => rows.find((r) => r.action === a)?.n ?? 0;
+  return count('invitation.accept') > 0 && count('auth.sign-in') <= 1;
 }

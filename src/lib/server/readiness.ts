@@ -56,6 +56,7 @@ async function score(season: NonNullable<ReturnType<typeof findSeason>>, now: Da
     const onRoute = new Set(route.items.filter((i) => i.kind === 'record').map((i) => i.ref));
     const result = scoreReadiness(
       {
+        calculationsApply: s.calculationsApply,
         acceptedDecisions: accepted.map((d) => ({
           id: d.id,
           title: d.title,

@@ -92,20 +92,28 @@ export interface RolloverChange {
   userId: string;
   name: string;
   change: 'to-alumni' | 'continues';
+  /** Slugs of the subsystems they own in the current season. */
   subsystems: string[];
+  /** The same subsystems by name, for the confirmation screen. */
+  subsystemNames: string[];
 }
 
 /**
- * Rolls over from the current season to `toId`: members who continue join the new season with their
- * subsystems; the other members become alumni. Leads and advisors keep their roles. Without `confirm`
- * nothing is written and the exact list of changes is returned for the confirmation screen.
+ * Rolls over from the current season to `toId`, which must start after the current one: members who continue
+ * join the new season with their subsystems; the other members become alumni. Leads and advisors keep their
+ * roles. `continuing` left out means every member of the current season continues. Without `confirm` nothing is
+ * written and the exact list of changes is returned for the confirmation screen.
  */
-export function rollover(toId: string, continuing: string[], confirm: boolean, actor: Actor) {
+export function rollover(toId: string, continuingIn: string[] | undefined, confirm: boolean, actor: Actor) {
   const to = findSeason(toId);
   if (!to) throw notFound('That season');
   const from = currentSeason();
   if (!from) throw conflict('No season is current, so there is nothing to roll over from.');
   if (from.id === to.id) throw conflict('That season is already the current one.');
+  if (to.startsOn <= from.startsOn)
+    throw conflict(
+      `${to.name} starts on ${to.startsOn}, before ${from.name} (${from.startsOn}); roll over only to a later season.`,
+    );
   const members = db()
     .select({
       membershipId: seasonMemberships.id,
@@ -119,6 +127,7 @@ export function rollover(toId: string, continuing: string[], confirm: boolean, a
     .where(eq(seasonMemberships.seasonId, from.id))
     .all()
     .filter((m) => m.role === 'member');
+  const continuing = continuingIn ?? members.map((m) => m.userId);
   const unknown = continuing.filter((id) => !members.some((m) => m.userId === id));
   if (unknown.length)
     throw invalidInput(unknown.map((u) => ({ path: 'continuing', message: `${u} is not a member of ${from.name}.` })));
@@ -144,6 +153,7 @@ export function rollover(toId: string, continuing: string[], confirm: boolean, a
     name: m.name,
     change: continuing.includes(m.userId) ? 'continues' : 'to-alumni',
     subsystems: owned.filter((o) => o.membershipId === m.membershipId).map((o) => o.slug),
+    subsystemNames: owned.filter((o) => o.membershipId === m.membershipId).map((o) => o.name),
   }));
   const summary = { from: from.name, to: to.name, changes };
   if (!confirm) return { applied: false, ...summary };

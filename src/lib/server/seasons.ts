@@ -50,12 +50,19 @@ export interface SubsystemView {
   slug: string;
   name: string;
   summary: string;
+  /** Whether calculators apply here, so readiness expects accepted decisions to link a calculation. */
+  calculationsApply: boolean;
 }
 
 export function listSubsystems(): SubsystemView[] {
   return prepared('listSubsystems', (d) =>
     d
-      .select({ slug: subsystems.slug, name: subsystems.name, summary: subsystems.summary })
+      .select({
+        slug: subsystems.slug,
+        name: subsystems.name,
+        summary: subsystems.summary,
+        calculationsApply: subsystems.calculationsApply,
+      })
       .from(subsystems)
       .orderBy(asc(subsystems.position), asc(subsystems.name))
       .prepare(),
@@ -65,7 +72,12 @@ export function listSubsystems(): SubsystemView[] {
 export function findSubsystem(slug: string): SubsystemView | null {
   const q = prepared('findSubsystem', (d) =>
     d
-      .select({ slug: subsystems.slug, name: subsystems.name, summary: subsystems.summary })
+      .select({
+        slug: subsystems.slug,
+        name: subsystems.name,
+        summary: subsystems.summary,
+        calculationsApply: subsystems.calculationsApply,
+      })
       .from(subsystems)
       .where(eq(subsystems.slug, sql.placeholder('slug')))
       .prepare(),

@@ -1,3 +1,5 @@
+import { STATUS_CODES } from 'node:http';
+
 /** Our policy without its script-src, which each page gets from the scripts Astro hashed at build time. */
 const POLICY = [
   "default-src 'self'",
@@ -44,13 +46,17 @@ const NON_PAGE_POLICY = `${POLICY}; script-src 'self'`;
  */
 export function withSecurityHeaders(response: Response): Response {
   let out = response;
+  // A page that sets Astro.response.status keeps the renderer's "OK": the status line then read "403 OK".
+  const phrase = STATUS_CODES[response.status];
+  const wrongPhrase = !!phrase && response.statusText !== '' && response.statusText !== phrase;
   try {
+    if (wrongPhrase) throw new Error('rebuild with the right reason phrase');
     apply(out.headers);
   } catch {
     // Response.redirect() and fetch responses have immutable headers: copy into a new response.
     out = new Response(response.body, {
       status: response.status,
-      statusText: response.statusText,
+      statusText: phrase ?? response.statusText,
       headers: new Headers(response.headers),
     });
     apply(out.headers);

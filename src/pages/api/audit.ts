@@ -10,8 +10,8 @@ const querySchema = z.object({
   actor: z.string().max(254).optional(),
 });
 
-export const GET: APIRoute = handle(({ locals, url }) => {
+export const GET: APIRoute = handle(async ({ locals, url }) => {
   requirePermission(locals, 'audit:read');
   const q = parseQuery(url, querySchema);
-  return json(listAudit({ limit: q.limit, before: q.cursor, action: q.action, actor: q.actor }));
+  return json(await listAudit({ limit: q.limit, before: q.cursor, action: q.action, actor: q.actor }));
 });

@@ -3,7 +3,7 @@
 // touches one file.
 import { Lucia, TimeSpan, type DatabaseSession, type DatabaseUser, type Session, type User } from 'lucia';
 import { DrizzleSQLiteAdapter } from '@lucia-auth/adapter-drizzle';
-import { eq } from 'drizzle-orm';
+import { and, eq, ne } from 'drizzle-orm';
 import type { AstroCookies } from 'astro';
 import { db } from '../db/client';
 import type { Role } from '../../domain';
@@ -98,6 +98,14 @@ export async function endSession(sessionId: string | undefined, cookies: AstroCo
 /** Ends every session of a user (password reset, role removal). */
 export async function endAllSessions(userId: string): Promise<void> {
   await lucia().invalidateUserSessions(userId);
+}
+
+/** Ends every session of a user but one (changing a password keeps the device it was changed on signed in). */
+export function endOtherSessions(userId: string, keepSessionId: string): number {
+  return db()
+    .delete(sessions)
+    .where(and(eq(sessions.userId, userId), ne(sessions.id, keepSessionId)))
+    .run().changes;
 }
 
 export function countSessions(userId: string): number {

@@ -1,4 +1,4 @@
-// The inputs that choose a password (accepting an invitation, resetting), for the API routes and the
+// The inputs that choose a password (accepting an invitation, resetting, changing it), for the API routes and the
 // server-rendered forms. They live under lib/server because they carry the breach list.
 import { z } from 'zod';
 import { linkTokenSchema } from '../../schemas/auth';
@@ -26,3 +26,18 @@ export const resetPasswordSchema = z.object({
   token: linkTokenSchema,
   password: newPasswordSchema,
 });
+
+/** A signed-in person changing their own password: the current one proves it is them, not a borrowed session. */
+export const changePasswordSchema = z
+  .object({
+    currentPassword: z
+      .string({ error: 'Enter your current password.' })
+      .min(1, 'Enter your current password.')
+      .max(MAX_PASSWORD_LENGTH, 'That is not your current password.'),
+    newPassword: newPasswordSchema,
+  })
+  .refine((v) => v.currentPassword !== v.newPassword, {
+    path: ['newPassword'],
+    message: 'Choose a password different from your current one.',
+  });
+export type ChangePasswordInput = z.infer<typeof changePasswordSchema>;

@@ -54,7 +54,16 @@ function seedTeam(tx: Tx, team: DemoTeam, passwordHash: string): SeedIds {
       .run();
   }
   team.subsystems.forEach((s, position) => {
-    tx.insert(subsystems).values({ slug: s.slug, name: s.name, summary: s.summary, position, createdAt: now }).run();
+    tx.insert(subsystems)
+      .values({
+        slug: s.slug,
+        name: s.name,
+        summary: s.summary,
+        calculationsApply: s.calculationsApply,
+        position,
+        createdAt: now,
+      })
+      .run();
   });
   const userIdByEmail = new Map<string, string>();
   for (const p of team.people) {

@@ -19,7 +19,14 @@ export const demoTeamSchema = z.object({
       }),
     )
     .refine((s) => s.filter((x) => x.current).length === 1, 'exactly one season must be current'),
-  subsystems: z.array(z.object({ slug: z.string().regex(/^[a-z0-9-]+$/), name: z.string(), summary: z.string() })),
+  subsystems: z.array(
+    z.object({
+      slug: z.string().regex(/^[a-z0-9-]+$/),
+      name: z.string(),
+      summary: z.string(),
+      calculationsApply: z.boolean().default(true),
+    }),
+  ),
   people: z.array(
     z.object({
       email: z.email(),

@@ -44,6 +44,25 @@ export function resetEmail(p: { name: string; url: string; expiresAt: Date }): R
   });
 }
 
+export function passwordChangedEmail(p: { name: string; at: Date; otherSessions: number; resetUrl: string }) {
+  const others =
+    p.otherSessions === 0
+      ? 'You were not signed in anywhere else.'
+      : `${p.otherSessions === 1 ? 'One other device or browser was' : `${p.otherSessions} other devices or browsers were`} signed out.`;
+  return renderEmail({
+    subject: 'Your Wakebook password was changed',
+    preheader: `Changed on ${fmtDate(p.at)} at ${p.at.toISOString().slice(11, 16)} UTC.`,
+    greeting: `Hello ${p.name},`,
+    paragraphs: [
+      `The password of your Wakebook account was changed on ${fmtDate(p.at)} at ${p.at.toISOString().slice(11, 16)} UTC, by someone signed in as you who knew the old one. ${others}`,
+      'If that was you, there is nothing more to do.',
+      'If it was not you, choose a new password now with the link below (it sends a reset link to this address), and tell one of your team leads.',
+    ],
+    action: { label: 'Reset my password', url: p.resetUrl },
+    footer: ['You receive this message whenever your password changes; it cannot be turned off.'],
+  });
+}
+
 export function digestEmail(p: {
   name: string;
   since: Date;
@@ -57,5 +76,28 @@ export function digestEmail(p: {
     paragraphs: [`Here is what happened in your team's archive since ${fmtDate(p.since)}.`],
     sections: p.sections,
     footer: [`You receive this digest because you turned it on. Turn it off on your account page: ${p.accountUrl}`],
+  });
+}
+
+export function onboardingNudgeEmail(p: {
+  name: string;
+  leadName: string;
+  routes: { name: string; done: number; total: number; url: string }[];
+  note?: string;
+}): RenderedEmail {
+  const first = p.routes.find((r) => r.done < r.total) ?? p.routes[0];
+  return renderEmail({
+    subject: `${p.leadName} asks you to carry on with your onboarding`,
+    preheader: first ? `${first.name}: ${first.done} of ${first.total} done.` : 'Your onboarding route is waiting.',
+    greeting: `Hello ${p.name},`,
+    paragraphs: [
+      `${p.leadName} is checking how the new members are getting on and asks you to carry on with your onboarding route in Wakebook: the guides, records and calculations the team picked for newcomers, in order.`,
+      ...(p.note ? [p.note] : []),
+      p.routes.length
+        ? `Where you are: ${p.routes.map((r) => `${r.name} ${r.done} of ${r.total}`).join('; ')}.`
+        : 'You have no subsystem yet; every subsystem page has a route you can follow.',
+    ],
+    ...(first ? { action: { label: `Open the ${first.name} route`, url: first.url } } : {}),
+    footer: ['You received this because a team lead sent you a reminder from the onboarding progress page.'],
   });
 }

@@ -2,6 +2,7 @@ import { getSchema, type JSONContent } from '@tiptap/core';
 import { generateHTML } from '@tiptap/html/server';
 import { recordExtensions } from '../../editor/extensions';
 import { isSafeHref } from '../../editor/links';
+import { SECTION_PROMPTS } from '../../editor/templates';
 import { invalidInput } from '../http';
 
 const extensions = recordExtensions();
@@ -71,7 +72,8 @@ export function processBody(input: unknown, { repair = false } = {}): ProcessedB
   if (!input || typeof input !== 'object' || Array.isArray(input)) throw fail('The body must be an editor document.');
   let cleaned: JSONContent;
   try {
-    cleaned = clean(input, 0, repair);
+    // A root that was only an empty list comes back null and is refused below as not a document.
+    cleaned = withoutPrompts(clean(input, 0, repair) ?? { type: 'empty list' });
   } catch (e) {
     if (e instanceof BodyProblem) throw fail(e.message);
     throw e;
@@ -93,8 +95,37 @@ export function processBody(input: unknown, { repair = false } = {}): ProcessedB
   return { doc, html: generateHTML(doc, extensions), text: node.textBetween(0, node.content.size, '\n', ' ').trim() };
 }
 
-/** Copies only the known shape of a node: allowed attributes with allowed values, safe links with only `href`. */
-function clean(n: JSONContent, depth: number, repair: boolean): JSONContent {
+const LISTS = new Set(['bulletList', 'orderedList', 'taskList']);
+const PROMPTS = new Set(SECTION_PROMPTS);
+
+const plainText = (n: JSONContent): string =>
+  typeof n.text === 'string' ? n.text : (n.content ?? []).map(plainText).join('');
+
+/** A list item with nothing in it but empty paragraphs (the one Enter leaves behind at the end of a list). */
+function isBlankItem(item: JSONContent): boolean {
+  return (item.content ?? []).every(
+    (c) =>
+      c.type === 'paragraph' &&
+      (c.content ?? []).every((x) => x.type === 'hardBreak' || (x.type === 'text' && !x.text?.trim())),
+  );
+}
+
+/**
+ * Section prompts are placeholders in today's editor and never part of a document; an older editor (or a draft
+ * kept in a browser since then) sent them as text, so a top-level paragraph that is exactly a prompt is dropped.
+ * A person writing that exact sentence as their own content is not a case worth keeping it for.
+ */
+function withoutPrompts(doc: JSONContent): JSONContent {
+  if (!Array.isArray(doc.content)) return doc;
+  const content = doc.content.filter((b) => !(b.type === 'paragraph' && PROMPTS.has(plainText(b).trim())));
+  return { ...doc, content: content.length ? content : [{ type: 'paragraph' }] };
+}
+
+/**
+ * Copies only the known shape of a node: allowed attributes with allowed values, safe links with only `href`.
+ * Empty items at the end of a list are left out (null for a list that had nothing else).
+ */
+function clean(n: JSONContent, depth: number, repair: boolean): JSONContent | null {
   if (depth > MAX_DEPTH) throw new BodyProblem('The document is nested too deeply.');
   const out: JSONContent = { type: String(n.type ?? '') };
   const attrs = cleanAttrs(out.type!, n.attrs, repair);
@@ -110,7 +141,12 @@ function clean(n: JSONContent, depth: number, repair: boolean): JSONContent {
     const kids: JSONContent[] = [];
     for (const child of n.content) {
       if (!child || typeof child !== 'object') continue;
-      kids.push(clean(child, depth + 1, repair));
+      const kid = clean(child, depth + 1, repair);
+      if (kid) kids.push(kid);
+    }
+    if (LISTS.has(out.type!)) {
+      while (kids.length && isBlankItem(kids[kids.length - 1])) kids.pop();
+      if (kids.length === 0) return null;
     }
     out.content = kids;
   }

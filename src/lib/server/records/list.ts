@@ -1,4 +1,4 @@
-import { and, desc, eq, lt, or, isNull, sql, type SQL } from 'drizzle-orm';
+import { and, asc, desc, eq, lt, ne, or, isNull, sql, type SQL } from 'drizzle-orm';
 import type { RecordKind } from '../../domain';
 import { prepared } from '../db/client';
 import { decodeCursor, encodeCursor } from '../cursor';
@@ -86,4 +86,55 @@ export function listRecords(q: RecordListQuery): { records: RecordListItem[]; ne
     records: page,
     nextCursor: rows.length > q.limit ? encodeCursor(page[page.length - 1].updatedAt, page[page.length - 1].id) : null,
   };
+}
+
+export interface AwaitingReview {
+  id: string;
+  title: string;
+  subsystemName: string;
+  season: string;
+  author: string | null;
+  /** When the decision was last changed: proposing it, or an edit since its last review. */
+  since: string;
+  reviewedEarlier: boolean;
+}
+
+/**
+ * Proposed decisions whose current version nobody has reviewed: what advisors and leads see first on their home
+ * page. The longest-waiting first.
+ */
+export function listAwaitingReview(limit = 20): AwaitingReview[] {
+  return prepared('records.awaitingReview', (d) =>
+    d
+      .select({
+        id: records.id,
+        title: records.title,
+        subsystemName: subsystems.name,
+        season: seasons.name,
+        author: users.name,
+        since: records.updatedAt,
+        reviewedVersion: records.reviewedVersion,
+      })
+      .from(records)
+      .innerJoin(subsystems, eq(subsystems.slug, records.subsystemSlug))
+      .innerJoin(seasons, eq(seasons.id, records.seasonId))
+      .leftJoin(users, eq(users.id, records.authorId))
+      .where(
+        and(
+          isNull(records.deletedAt),
+          eq(records.kind, 'decision'),
+          eq(records.status, 'proposed'),
+          or(isNull(records.reviewedVersion), ne(records.reviewedVersion, records.version)),
+        ),
+      )
+      .orderBy(asc(records.updatedAt), asc(records.id))
+      .limit(p('limit'))
+      .prepare(),
+  )
+    .all({ limit })
+    .map(({ reviewedVersion, ...r }) => ({
+      ...r,
+      since: r.since.toISOString(),
+      reviewedEarlier: reviewedVersion !== null,
+    }));
 }

@@ -214,7 +214,7 @@ export function listRevisions(recordId: string) {
       version: recordRevisions.version,
       title: recordRevisions.title,
       status: recordRevisions.status,
-      note: recordRevisions.note,
+      changeNote: recordRevisions.note,
       createdAt: recordRevisions.createdAt,
       editor: users.name,
       body: recordRevisions.body,

@@ -1,6 +1,6 @@
 import { and, eq, inArray, isNull } from 'drizzle-orm';
 import { db } from '../db/client';
-import { comments, recordCalculations, recordLinks, recordRevisions, records } from '../db/schema';
+import { comments, onboardingItems, recordCalculations, recordLinks, recordRevisions, records } from '../db/schema';
 import { HttpError, conflict, invalidInput, notFound } from '../http';
 import { newId } from '../ids';
 import { recordAudit } from '../audit';
@@ -8,9 +8,9 @@ import { currentSeason, findSeason, findSubsystem } from '../seasons';
 import { existingCalculationIds } from '../calculations';
 import { processBody } from './body';
 import { getRecordView, recordExists, type RecordView } from './view';
-import { canMove, INITIAL_STATUS, isValidStatus, needsReplacement } from '../../record-rules';
+import { actionForMove, canMove, INITIAL_STATUS, isValidStatus, needsReplacement } from '../../record-rules';
 import type { RecordStatus, Role } from '../../domain';
-import { can } from '../../policy';
+import { can, type Action } from '../../policy';
 import type { RecordCreateInput, RecordPatchInput } from '../../schemas/records';
 import { onRecordChanged } from './hooks';
 
@@ -139,11 +139,7 @@ export function createRecord(input: RecordCreateInput, actor: Actor): RecordView
 }
 
 /** Loads a record and checks the actor may change it (members: current season only). */
-export function loadForWrite(
-  id: string,
-  actor: Actor,
-  action: 'record:edit' | 'record:status' | 'attachment:upload' = 'record:edit',
-) {
+export function loadForWrite(id: string, actor: Actor, action: Action = 'record:edit') {
   const current = getRecordView(id);
   if (!current) throw notFound('That record');
   if (!can(actor, action, { seasonIsCurrent: current.seasonIsCurrent })) {
@@ -208,7 +204,7 @@ export function updateRecord(id: string, patch: RecordPatchInput, actor: Actor):
       tx,
       { id, version: next, title, status: stored.status, body: stored.body, bodyText: stored.bodyText },
       actor.id,
-      patch.note ?? null,
+      patch.changeNote || null,
       now,
     );
     replaceLinks(tx, id, patch.calculationIds, patch.relatedRecordIds);
@@ -223,7 +219,7 @@ export function changeStatus(
   input: { status: RecordStatus; supersededBy?: string; version?: number },
   actor: Actor,
 ): RecordView {
-  const current = loadForWrite(id, actor, 'record:status');
+  const current = loadForWrite(id, actor, actionForMove(input.status));
   if (input.version !== undefined && input.version !== current.version) {
     throw conflict(`Someone saved version ${current.version} while you looked at version ${input.version}.`, {
       current,
@@ -237,6 +233,12 @@ export function changeStatus(
       current: { status: current.status, version: current.version },
     });
   }
+  if (input.status === 'accepted' && current.kind === 'decision' && !acceptable(current, actor)) {
+    throw conflict(
+      `Version ${current.version} needs a review before it can be accepted: an advisor or a lead reviews it (or accepts it themselves).`,
+      { current: { status: current.status, version: current.version } },
+    );
+  }
   let replacement: RecordView | null = null;
   if (needsReplacement(input.status)) {
     if (!input.supersededBy)
@@ -249,13 +251,28 @@ export function changeStatus(
       throw invalidInput([{ path: 'supersededBy', message: 'Only a decision record can supersede a decision.' }]);
     if (['superseded', 'withdrawn'].includes(replacement.status))
       throw invalidInput([{ path: 'supersededBy', message: 'The replacement is itself superseded or withdrawn.' }]);
+    // Otherwise an unreviewed draft could push aside a decision that went through review.
+    if (replacement.status !== 'accepted')
+      throw invalidInput([
+        {
+          path: 'supersededBy',
+          message: `“${replacement.title}” is ${replacement.status}; a decision is replaced only by an accepted one.`,
+        },
+      ]);
   }
   const now = new Date();
   const next = current.version + 1;
   db().transaction((tx) => {
     const result = tx
       .update(records)
-      .set({ status: input.status, version: next, updatedAt: now, updatedById: actor.id })
+      .set({
+        status: input.status,
+        version: next,
+        updatedAt: now,
+        updatedById: actor.id,
+        // The text did not change, so a review of it still holds for the new version.
+        ...(current.reviewed?.current ? { reviewedVersion: next } : {}),
+      })
       .where(and(eq(records.id, id), eq(records.version, current.version)))
       .run();
     if (result.changes !== 1) throw conflict('Someone saved this record a moment ago.', {});
@@ -288,6 +305,54 @@ export function changeStatus(
   onRecordChanged(id);
   if (replacement) onRecordChanged(replacement.id);
   return getRecordView(id)!;
+}
+
+/** Refuses, before anything is read, someone who may make no status move at all (alumni). */
+export function requireSomeStatusRight(actor: Actor): void {
+  const any = { seasonIsCurrent: true };
+  if (!(['record:status', 'record:accept', 'record:withdraw'] as const).some((a) => can(actor, a, any)))
+    throw forbidden('Your role may not change the status of records.');
+}
+
+/**
+ * A decision becomes accepted by someone who may review it (advisors, leads: accepting is their review), or by
+ * anyone allowed once its current version has been reviewed — reviews are only ever written by advisors and leads.
+ */
+function acceptable(current: RecordView, actor: Actor): boolean {
+  return can(actor, 'record:review') || current.reviewed?.current === true;
+}
+
+/** Deletes a draft for good (its author or a lead). Anything further along stays: withdraw it instead. */
+export function discardDraft(id: string, actor: Actor): void {
+  const current = getRecordView(id);
+  if (!current) throw notFound('That record');
+  if (!can(actor, 'record:discard', { isOwn: current.author?.id === actor.id }))
+    throw forbidden('Only the author of a draft or a lead may discard it.');
+  if (current.status !== 'draft')
+    throw conflict(
+      `Only drafts can be discarded; this ${current.kind} is ${current.status}.${current.kind === 'decision' ? ' Withdraw it instead: it stays readable, marked withdrawn.' : ''}`,
+      { current: { status: current.status, version: current.version } },
+    );
+  db().transaction((tx) => {
+    const gone = tx
+      .update(records)
+      .set({ deletedAt: new Date(), updatedById: actor.id })
+      .where(and(eq(records.id, id), eq(records.status, 'draft'), isNull(records.deletedAt)))
+      .run();
+    if (gone.changes !== 1) throw conflict('Someone changed this record a moment ago.', {});
+    // A route step pointing at a discarded draft would only show as "no longer exists": take it off the routes.
+    tx.delete(onboardingItems)
+      .where(and(eq(onboardingItems.kind, 'record'), eq(onboardingItems.ref, id)))
+      .run();
+  });
+  recordAudit({
+    actor,
+    action: 'record.discard',
+    targetType: 'record',
+    targetId: id,
+    detail: { title: current.title, version: current.version },
+  });
+  onRecordChanged(id);
 }
 
 export function reviewRecord(id: string, note: string | undefined, actor: Actor): RecordView {

@@ -1,8 +1,8 @@
 import type { APIRoute } from 'astro';
-import { handle, json, notFound, readJson, requirePermission } from '~/lib/server/http';
+import { handle, json, notFound, readJson, requirePermission, requireUser } from '~/lib/server/http';
 import { recordPatchSchema } from '~/lib/schemas/records';
 import { getRecordView } from '~/lib/server/records/view';
-import { updateRecord } from '~/lib/server/records/write';
+import { discardDraft, updateRecord } from '~/lib/server/records/write';
 import { markCacheable } from '~/lib/server/response-cache';
 
 export const GET: APIRoute = handle(({ locals, params }) => {
@@ -18,4 +18,10 @@ export const PATCH: APIRoute = handle(async ({ locals, params, request }) => {
   const user = requirePermission(locals, 'record:create');
   const patch = await readJson(request, recordPatchSchema, 512 * 1024);
   return json({ record: updateRecord(params.id ?? '', patch, user) });
+});
+
+/** Discards a draft: its author or a lead (204); 409 once it is past draft; 403 for anyone else. */
+export const DELETE: APIRoute = handle(({ locals, params }) => {
+  discardDraft(params.id ?? '', requireUser(locals));
+  return json(null, 204);
 });
