@@ -1,7 +1,7 @@
 // Large and streamed uploads: the body is read as it arrives, stopped at the size limit, never held whole.
 import { describe, it, expect, beforeAll, afterEach, onTestFinished } from 'vitest';
 import { createHash } from 'node:crypto';
-import { existsSync, readdirSync, rmSync, statSync } from 'node:fs';
+import { existsSync, mkdirSync, readdirSync, rmSync, statSync, utimesSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { eq } from 'drizzle-orm';
 import { call, callRaw } from '../setup/http';
@@ -14,6 +14,7 @@ import { resetSettingsForTests, settings } from '../../src/lib/server/config';
 import { db } from '../../src/lib/server/db/client';
 import { attachments } from '../../src/lib/server/db/schema';
 import { pathForHash } from '../../src/lib/server/storage';
+import { openAndSeed } from '../../src/lib/server/prepare';
 
 const MB = 1024 * 1024;
 const BOUNDARY = '----wakebook-upload-test-7f3a9c';
@@ -253,5 +254,31 @@ describe('streamed uploads', () => {
     expect(cut.status).toBe(201);
     expect(cut.body.attachment.fileName.length).toBeLessThanOrEqual(180);
     expect(cut.body.attachment.fileName).toMatch(/^motor-temperature-run-.*\.csv$/);
+  });
+});
+
+describe('uploads a stopped process left half written', () => {
+  it('are removed at start; a file still arriving and the stored files are kept', async () => {
+    const incoming = join(resolve(settings().WAKEBOOK_UPLOADS), 'incoming');
+    mkdirSync(incoming, { recursive: true });
+    const earlier = (Date.now() - 3_600_000) / 1000; // an hour before: written by a process that is gone
+    for (const name of ['a1b2c3.part', 'd4e5f6.part']) {
+      writeFileSync(join(incoming, name), 'half an upload');
+      utimesSync(join(incoming, name), earlier, earlier);
+    }
+    writeFileSync(join(incoming, 'arriving.part'), 'still being written'); // written now, after this process started
+    const storedFiles = () => uploadedFiles().filter((p) => !p.startsWith(incoming));
+    const stored = storedFiles();
+    expect(stored.length).toBeGreaterThan(0);
+
+    await openAndSeed(); // what both the start file's prepare step and the app's boot run
+
+    // (An earlier test's cancelled upload may still be on its way out; only these three files are ours.)
+    const left = readdirSync(incoming);
+    expect(left).toContain('arriving.part');
+    expect(left).not.toContain('a1b2c3.part');
+    expect(left).not.toContain('d4e5f6.part');
+    expect(storedFiles()).toEqual(stored);
+    rmSync(join(incoming, 'arriving.part'));
   });
 });

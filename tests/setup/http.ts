@@ -1,8 +1,8 @@
-// Calls route handlers the way the server does: a real Request, Astro's own cookie class and our middleware,
-// so tests exercise session reading, error shapes and headers without a running server.
+// Calls route handlers the way the server does: a real Request, the context (with Astro's own cookies) that Astro's
+// documented `createContext()` builds for running middleware outside a server, and our middleware, so tests
+// exercise session reading, error shapes and headers without a running server.
 import type { APIContext, APIRoute } from 'astro';
-// AstroCookies is not a public export of astro 5; the path is pinned with the version in package.json.
-import { AstroCookies } from '../../node_modules/astro/dist/core/cookies/cookies.js';
+import { createContext } from 'astro/middleware';
 import { onRequest } from '../../src/middleware';
 import { SESSION_COOKIE } from '../../src/lib/server/auth/lucia';
 
@@ -48,7 +48,7 @@ export async function callRaw(
   route: Partial<Record<Method, APIRoute>>,
   method: Method,
   options: CallOptions = {},
-): Promise<{ response: Response; cookies: AstroCookies }> {
+): Promise<{ response: Response; cookies: APIContext['cookies'] }> {
   const handler = route[method];
   if (!handler) throw new Error(`route has no ${method} handler`);
   // Like the server, where the URL names the route and its parameters (the response cache keys on it).
@@ -68,18 +68,16 @@ export async function callRaw(
     body: method === 'GET' ? undefined : body,
     ...(body instanceof ReadableStream ? { duplex: 'half' } : {}),
   });
-  const cookies = new AstroCookies(request);
-  const context = {
+  const context = createContext({
     request,
-    url,
     params: options.params ?? {},
-    cookies,
+    defaultLocale: '',
     locals: (options.socketAddress ? { socketAddress: options.socketAddress } : {}) as App.Locals,
-    clientAddress: options.ip ?? '127.0.0.1',
-    redirect: (location: string, status = 302) => new Response(null, { status, headers: { location } }),
-  } as unknown as APIContext;
+  });
+  // createContext() reads the address the way an adapter hands it over; here it is simply the test's choice.
+  Object.defineProperty(context, 'clientAddress', { value: options.ip ?? '127.0.0.1' });
   const response = (await onRequest(context, async () => handler(context))) as Response;
-  return { response, cookies };
+  return { response, cookies: context.cookies };
 }
 
 export async function call(

@@ -1,6 +1,6 @@
 import { describe, it, expect, beforeAll } from 'vitest';
 import { eq } from 'drizzle-orm';
-import { AstroCookies } from '../../node_modules/astro/dist/core/cookies/cookies.js';
+import { createContext } from 'astro/middleware';
 import { db } from '../../src/lib/server/db/client';
 import { sessions, users } from '../../src/lib/server/db/schema';
 import {
@@ -18,7 +18,11 @@ let userId: string;
 function jar(session?: string) {
   const headers = new Headers();
   if (session) headers.set('cookie', `${SESSION_COOKIE}=${session}`);
-  return new AstroCookies(new Request('http://localhost/', { headers }));
+  return createContext({
+    request: new Request('http://localhost/', { headers }),
+    defaultLocale: '',
+    locals: { user: null, session: null },
+  }).cookies;
 }
 
 function setExpiry(id: string, secondsFromNow: number) {

@@ -1,5 +1,14 @@
 import { createHash, randomBytes } from 'node:crypto';
-import { createReadStream, existsSync, mkdirSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import {
+  createReadStream,
+  existsSync,
+  mkdirSync,
+  readdirSync,
+  renameSync,
+  rmSync,
+  statSync,
+  writeFileSync,
+} from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import { Readable } from 'node:stream';
 import { settings } from './config';
@@ -28,9 +37,41 @@ export function storeBytes(bytes: Uint8Array): { sha256: string; size: number } 
  * a rename) but in its own folder, where no content hash can point.
  */
 export function incomingPath(): string {
-  const dir = join(resolve(settings().WAKEBOOK_UPLOADS), 'incoming');
+  const dir = incomingDir();
   mkdirSync(dir, { recursive: true });
   return join(dir, `${randomBytes(12).toString('hex')}.part`);
+}
+
+function incomingDir(): string {
+  return join(resolve(settings().WAKEBOOK_UPLOADS), 'incoming');
+}
+
+/**
+ * Deletes what a stopped process left in `incoming/` (an upload cut off by a crash or a kill): nothing refers to
+ * those files. Only files last written before `before` (by default, when this process started) go, so an upload
+ * that is still arriving is never touched. Returns how many were removed.
+ */
+export function removeStaleIncoming(before = performance.timeOrigin): number {
+  const dir = incomingDir();
+  let removed = 0;
+  let names: string[];
+  try {
+    names = readdirSync(dir);
+  } catch {
+    return 0; // no folder yet: nothing was ever uploaded
+  }
+  for (const name of names) {
+    const path = join(dir, name);
+    try {
+      const st = statSync(path);
+      if (!st.isFile() || st.mtimeMs >= before) continue;
+      rmSync(path, { force: true });
+      removed++;
+    } catch {
+      // gone meanwhile, or unreadable: the next start tries again
+    }
+  }
+  return removed;
 }
 
 /** Moves a complete incoming file under its hash, or drops it when those bytes are stored already. */

@@ -343,6 +343,39 @@ describe('the vocabulary across restarts', () => {
     expect((await engine.search({ q: 'anemometer', limit: 1 })).corrections).toEqual([]);
   });
 
+  it('learns no word from a deleted record or calculation', async () => {
+    addRecord({ title: 'Solar array', body: 'Tilting frame.' });
+    await engine.settled();
+    // Deleted by another connection before this engine heard of them; the change hook then tells it.
+    const rec = addRecord({ title: 'Zeppelin mooring', body: 'A mooring mast.' });
+    const calc = addCalculation('Gondola thrust', 'Dirigible gondola.', { blades: 3 });
+    sqlite.prepare('UPDATE records SET deleted_at = ? WHERE id = ?').run(Date.now(), rec);
+    sqlite.prepare('UPDATE calculations SET deleted_at = ? WHERE id = ?').run(Date.now(), calc);
+    engine.noteChanged('record', rec);
+    engine.noteChanged('calculation', calc);
+    for (const q of ['zepelin', 'gondolla', 'dirigable']) {
+      const r = await engine.search({ q, limit: 5 });
+      expect(r.hits).toEqual([]);
+      expect(r.corrections).toEqual([]);
+    }
+    const saved = sqlite.prepare("SELECT term FROM search_terms WHERE term IN ('zeppelin', 'gondola')").pluck().all();
+    expect(saved).toEqual([]);
+  });
+
+  it('never offers a correction that only a since deleted record held', async () => {
+    await engine.settled();
+    const id = addRecord({ title: 'Zeppelin mooring', body: 'A mooring mast.' });
+    engine.noteChanged('record', id);
+    expect((await engine.search({ q: 'zepelin', limit: 5 })).corrections).toEqual([
+      { from: 'zepelin', to: ['zeppelin'] },
+    ]);
+    sqlite.prepare('UPDATE records SET deleted_at = ? WHERE id = ?').run(Date.now(), id);
+    engine.noteChanged('record', id);
+    const r = await engine.search({ q: 'zepelin', limit: 5 });
+    expect(r.corrections).toEqual([]);
+    expect(r.unmatched).toEqual(['zepelin']);
+  });
+
   it('learns the words of a write it is told about, and keeps the saved copy current', async () => {
     addRecord({ title: 'Solar array', body: 'Tilting frame.' });
     await engine.settled();

@@ -136,13 +136,13 @@ export class SearchEngine {
     saveAdded(this.sqlite, terms);
   }
 
-  /** Called after a record or calculation was written. */
+  /** Called after a record or calculation was written. A deleted one (the write may be its deletion) teaches nothing. */
   noteChanged(type: 'record' | 'calculation', id: string): void {
     const row = (
       type === 'record'
-        ? this.stmt("SELECT title || ' ' || body_text AS text FROM records WHERE id = ?").get(id)
+        ? this.stmt("SELECT title || ' ' || body_text AS text FROM records WHERE id = ? AND deleted_at IS NULL").get(id)
         : this.stmt(
-            "SELECT title || ' ' || notes || ' ' || kind || ' ' || inputs AS text FROM calculations WHERE id = ?",
+            "SELECT title || ' ' || notes || ' ' || kind || ' ' || inputs AS text FROM calculations WHERE id = ? AND deleted_at IS NULL",
           ).get(id)
     ) as { text: string } | undefined;
     if (row) this.noteText(row.text);
@@ -203,11 +203,23 @@ export class SearchEngine {
         out.push({ term, match: 'prefix', ...(expand ? { expand } : {}) });
       } else if (found.exact) out.push({ term, match: 'exact' });
       else {
-        const to = (vocab ?? (await this.loadVocabulary().catch(() => null)))?.corrections(term) ?? [];
+        const to = this.stillIndexed(
+          (vocab ?? (await this.loadVocabulary().catch(() => null)))?.corrections(term) ?? [],
+        );
         out.push(to.length ? { term, match: 'corrected', to } : { term, match: 'none' });
       }
     }
     return out;
+  }
+
+  /**
+   * The vocabulary only learns words; a word whose every document was since deleted or edited away stays in it
+   * (and in the saved list) until a start rebuilds them. So a correction is offered only while FTS5 itself still
+   * holds the word: one term look-up per candidate (at most three), on the rare path of a word that needs one.
+   */
+  private stillIndexed(candidates: string[]): string[] {
+    const held = this.stmt('SELECT 1 FROM search_vocab WHERE term = ?').pluck();
+    return candidates.filter((t) => held.get(t) !== undefined);
   }
 
   async search(params: SearchParams): Promise<SearchResult> {
