@@ -27,6 +27,7 @@ export type Action =
   | 'attachment:upload'
   | 'calculation:create'
   | 'calculation:recompute'
+  | 'calculation:edit' // rename, re-note, move to another subsystem, delete
   | 'onboarding:curate'
   | 'onboarding:follow'
   | 'onboarding:see-all';
@@ -35,10 +36,13 @@ export type Action =
 export interface Subject {
   /** The record or calculation belongs to the current season. */
   seasonIsCurrent?: boolean;
+  /** The caller wrote it. */
+  isAuthor?: boolean;
 }
 
 type Rule = boolean | ((subject: Subject) => boolean);
 const currentSeasonOnly: Rule = (s) => s.seasonIsCurrent === true;
+const ownInCurrentSeason: Rule = (s) => s.seasonIsCurrent === true && s.isAuthor === true;
 
 const POLICY: Record<Role, Partial<Record<Action, Rule>>> = {
   lead: {}, // leads may do everything; see can()
@@ -58,6 +62,7 @@ const POLICY: Record<Role, Partial<Record<Action, Rule>>> = {
     'attachment:upload': currentSeasonOnly,
     'calculation:create': currentSeasonOnly,
     'calculation:recompute': currentSeasonOnly,
+    'calculation:edit': ownInCurrentSeason,
     'onboarding:follow': true,
   },
   alumni: {
@@ -97,6 +102,7 @@ export const ALL_ACTIONS: Action[] = [
   'attachment:upload',
   'calculation:create',
   'calculation:recompute',
+  'calculation:edit',
   'onboarding:curate',
   'onboarding:follow',
   'onboarding:see-all',

@@ -47,6 +47,7 @@ const FIELDS: Record<string, Record<string, FieldType>> = {
   'POST /api/records/[id]/attachments': { file: 'string' },
   'POST /api/calculators/[kind]/run': { inputs: 'object' },
   'POST /api/calculations': { kind: 'string', title: 'string', subsystem: 'string', inputs: 'object' },
+  'PATCH /api/calculations/[id]': { title: 'string', notes: 'string', subsystem: 'string' },
   'PUT /api/onboarding/[subsystem]': { items: 'array' },
   'POST /api/onboarding/[subsystem]/progress': { itemId: 'string', done: 'boolean' },
 };

@@ -7,7 +7,9 @@ import { can, ALL_ACTIONS, type Action } from '../../src/lib/policy';
 const Y = true;
 const N = false;
 const C = 'current' as const;
-type Cell = boolean | typeof C;
+/** Only their own work, and only in the current season. */
+const O = 'own' as const;
+type Cell = boolean | typeof C | typeof O;
 const EXPECTED: Record<Action, Record<Role, Cell>> = {
   read: { lead: Y, advisor: Y, member: Y, alumni: Y },
   'season:manage': { lead: Y, advisor: N, member: N, alumni: N },
@@ -26,6 +28,7 @@ const EXPECTED: Record<Action, Record<Role, Cell>> = {
   'attachment:upload': { lead: Y, advisor: N, member: C, alumni: N },
   'calculation:create': { lead: Y, advisor: N, member: C, alumni: N },
   'calculation:recompute': { lead: Y, advisor: N, member: C, alumni: N },
+  'calculation:edit': { lead: Y, advisor: N, member: O, alumni: N },
   'onboarding:curate': { lead: Y, advisor: Y, member: N, alumni: N },
   'onboarding:follow': { lead: Y, advisor: Y, member: Y, alumni: Y },
   'onboarding:see-all': { lead: Y, advisor: N, member: N, alumni: N },
@@ -40,14 +43,21 @@ describe('policy: every role × action', () => {
   for (const action of ALL_ACTIONS) {
     for (const role of ROLES) {
       const cell = EXPECTED[action][role];
-      it(`${role} ${cell === C ? 'may, in the current season only,' : cell ? 'may' : 'may not'} ${action}`, () => {
-        if (cell === C) {
+      const may =
+        cell === C ? 'may, in the current season only,' : cell === O ? 'may, own work this season only,' : 'may';
+      it(`${role} ${cell ? may : 'may not'} ${action}`, () => {
+        if (cell === O) {
+          expect(can({ role }, action, { seasonIsCurrent: true, isAuthor: true })).toBe(true);
+          expect(can({ role }, action, { seasonIsCurrent: true, isAuthor: false })).toBe(false);
+          expect(can({ role }, action, { seasonIsCurrent: false, isAuthor: true })).toBe(false);
+          expect(can({ role }, action, { seasonIsCurrent: true })).toBe(false);
+        } else if (cell === C) {
           expect(can({ role }, action, { seasonIsCurrent: true })).toBe(true);
           expect(can({ role }, action, { seasonIsCurrent: false })).toBe(false);
           expect(can({ role }, action)).toBe(false);
         } else {
           expect(can({ role }, action, { seasonIsCurrent: true })).toBe(cell);
-          expect(can({ role }, action, { seasonIsCurrent: false })).toBe(cell);
+          expect(can({ role }, action, { seasonIsCurrent: false, isAuthor: false })).toBe(cell);
         }
       });
     }

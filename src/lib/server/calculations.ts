@@ -3,11 +3,11 @@ import { db } from './db/client';
 import { calculations, calculationResults, recordCalculations, records, seasons, subsystems, users } from './db/schema';
 import { getCalculator, runCalculator, type CalcResult } from '../calc';
 import { OutOfRangeError } from '../calc/errors';
-import { HttpError, invalidInput, notFound } from './http';
+import { conflict, HttpError, invalidInput, notFound } from './http';
 import { newId } from './ids';
 import { recordAudit } from './audit';
 import { currentSeason, findSeason, findSubsystem } from './seasons';
-import type { CalculationInput } from '../schemas/calculations';
+import type { CalculationInput, CalculationPatch } from '../schemas/calculations';
 import { onCalculationChanged } from './records/hooks';
 import { can } from '../policy';
 import type { Role } from '../domain';
@@ -146,6 +146,84 @@ export function recomputeCalculation(id: string, actor: Actor) {
   onCalculationChanged(id);
   const after = getCalculation(id)!;
   return { calculation: after, previous: before.results[0], changes: diffOutputs(before.outputs, after.outputs) };
+}
+
+/** The calculation as an edit needs it: who wrote it, whether its season is current, live or not. */
+function loadForEdit(id: string, actor: Actor) {
+  const row = db()
+    .select({ authorId: calculations.authorId, title: calculations.title, seasonIsCurrent: seasons.isCurrent })
+    .from(calculations)
+    .innerJoin(seasons, eq(seasons.id, calculations.seasonId))
+    .where(and(eq(calculations.id, id), isNull(calculations.deletedAt)))
+    .get();
+  if (!row) throw notFound('That calculation');
+  const subject = { seasonIsCurrent: row.seasonIsCurrent, isAuthor: row.authorId === actor.id };
+  if (!can(actor, 'calculation:edit', subject))
+    throw new HttpError(
+      403,
+      'forbidden',
+      'Only its author (in the current season) or a lead may change or delete a calculation.',
+    );
+  const accepted = db()
+    .select({ id: records.id, title: records.title })
+    .from(recordCalculations)
+    .innerJoin(records, eq(records.id, recordCalculations.recordId))
+    .where(
+      and(
+        eq(recordCalculations.calculationId, id),
+        eq(records.kind, 'decision'),
+        eq(records.status, 'accepted'),
+        isNull(records.deletedAt),
+      ),
+    )
+    .get();
+  if (accepted)
+    throw conflict(
+      `The accepted decision record “${accepted.title}” rests on this calculation; it stays as it was. Save a new calculation instead.`,
+      { recordId: accepted.id },
+    );
+  return row;
+}
+
+/** Renames, re-notes or moves a saved calculation (its inputs and results stay as computed). */
+export function updateCalculation(id: string, patch: CalculationPatch, actor: Actor): CalculationView {
+  loadForEdit(id, actor);
+  if (patch.subsystem !== undefined && !findSubsystem(patch.subsystem))
+    throw invalidInput([{ path: 'subsystem', message: 'No such subsystem.' }]);
+  db()
+    .update(calculations)
+    .set({
+      ...(patch.title !== undefined ? { title: patch.title } : {}),
+      ...(patch.notes !== undefined ? { notes: patch.notes } : {}),
+      ...(patch.subsystem !== undefined ? { subsystemSlug: patch.subsystem } : {}),
+      updatedAt: new Date(),
+    })
+    .where(eq(calculations.id, id))
+    .run();
+  recordAudit({
+    actor,
+    action: 'calculation.update',
+    targetType: 'calculation',
+    targetId: id,
+    detail: { fields: Object.keys(patch).filter((k) => patch[k as keyof CalculationPatch] !== undefined) },
+  });
+  onCalculationChanged(id);
+  return getCalculation(id)!;
+}
+
+/** Deletes a saved calculation: gone from lists, search, records' links, routes and the bundle; kept in the audit. */
+export function deleteCalculation(id: string, actor: Actor): void {
+  const row = loadForEdit(id, actor);
+  const now = new Date();
+  db().update(calculations).set({ deletedAt: now, updatedAt: now }).where(eq(calculations.id, id)).run();
+  recordAudit({
+    actor,
+    action: 'calculation.delete',
+    targetType: 'calculation',
+    targetId: id,
+    detail: { title: row.title },
+  });
+  onCalculationChanged(id);
 }
 
 export function diffOutputs(a: Outputs, b: Outputs) {
