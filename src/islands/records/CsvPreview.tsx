@@ -1,13 +1,14 @@
 import { useEffect, useMemo, useState } from 'react';
 import LineChart from '../ui/LineChart';
 import { parseCsv, numericColumns } from '~/lib/csv';
+import { unitFromName } from '~/lib/units';
 
 /** Plots a CSV test log: pick the x column and the columns to draw against it. */
 export default function CsvPreview({ url, name }: { url: string; name: string }) {
   const [text, setText] = useState<string | null>(null);
   const [error, setError] = useState('');
-  const [x, setX] = useState(0);
-  const [ys, setYs] = useState<number[]>([]);
+  // What the person picked; until then the first numeric column along x and the next two plotted.
+  const [picked, setPicked] = useState<{ x: number; ys: number[] } | null>(null);
 
   useEffect(() => {
     fetch(url, { credentials: 'same-origin' })
@@ -18,12 +19,8 @@ export default function CsvPreview({ url, name }: { url: string; name: string })
 
   const table = useMemo(() => (text ? parseCsv(text, 20_000) : null), [text]);
   const numeric = useMemo(() => (table ? numericColumns(table) : []), [table]);
-  useEffect(() => {
-    if (numeric.length >= 2 && ys.length === 0) {
-      setX(numeric[0]);
-      setYs(numeric.slice(1, 3));
-    }
-  }, [numeric, ys.length]);
+  const x = picked?.x ?? numeric[0] ?? 0;
+  const ys = picked?.ys ?? numeric.slice(1, 3);
 
   if (error) return <p className="text-sm text-muted">{error}</p>;
   if (!table) return <p className="text-sm text-muted">Loading {name}…</p>;
@@ -31,24 +28,23 @@ export default function CsvPreview({ url, name }: { url: string; name: string })
     return <p className="text-sm text-muted">This file has fewer than two numeric columns to plot.</p>;
 
   const col = (i: number) => table.rows.map((r) => Number(r[i]));
-  const unitOf = (h: string) => /_(\w+)$/.exec(h)?.[1] ?? '';
-  const set = {
-    title: name,
-    x: { name: table.header[x], label: table.header[x], unit: unitOf(table.header[x]), values: col(x) },
-    y: ys.map((i) => ({
-      name: table.header[i],
-      label: table.header[i],
-      unit: unitOf(table.header[i]),
-      values: col(i),
-    })),
-  };
+  // Columns named the way calculators name fields carry their unit: motor_C → °C, speed_mps → m/s, time_s → s.
+  const axis = (i: number) => ({ name: table.header[i], ...unitFromName(table.header[i]), values: col(i) });
+  const set = { title: name, x: axis(x), y: ys.map(axis) };
   const id = `csv-${name.replace(/\W+/g, '-')}`;
   return (
     <div className="flex flex-col gap-2">
-      <div className="flex flex-wrap items-end gap-4 text-sm">
+      <div className="csv-controls flex flex-wrap items-end gap-4 text-sm">
         <div className="field">
           <label htmlFor={`${id}-x`}>Along (x)</label>
-          <select id={`${id}-x`} className="input py-1" value={x} onChange={(e) => setX(Number(e.target.value))}>
+          <select
+            id={`${id}-x`}
+            className="input py-1"
+            value={x}
+            onChange={(e) =>
+              setPicked({ x: Number(e.target.value), ys: ys.filter((i) => i !== Number(e.target.value)) })
+            }
+          >
             {numeric.map((i) => (
               <option key={i} value={i}>
                 {table.header[i]}
@@ -65,7 +61,7 @@ export default function CsvPreview({ url, name }: { url: string; name: string })
                 <input
                   type="checkbox"
                   checked={ys.includes(i)}
-                  onChange={() => setYs((v) => (v.includes(i) ? v.filter((k) => k !== i) : [...v, i]))}
+                  onChange={() => setPicked({ x, ys: ys.includes(i) ? ys.filter((k) => k !== i) : [...ys, i] })}
                 />
                 {table.header[i]}
               </label>

@@ -4,7 +4,8 @@
 import { z } from 'zod';
 import { CAUTION_BATTERY, CAUTION_DEFER } from './cautions';
 import { num, objectSchema } from './fields';
-import type { Calculator, InputMeta } from './types';
+import { linspace } from './numeric';
+import type { Calculator, InputMeta, SeriesSet } from './types';
 
 export interface EnergyInput {
   batteryEnergy_Wh: number;
@@ -103,7 +104,8 @@ export const energyCalculator: Calculator<EnergyInput, EnergyOutput> = {
   title: 'Race energy budget',
   summary:
     'Usable battery energy plus solar energy over the race, and the average electrical and shaft power they sustain.',
-  engineVersion: '1.0.0',
+  // 1.1.0: average power against race duration, as a chart.
+  engineVersion: '1.1.0',
   inputSchema: objectSchema(inputs) as unknown as z.ZodType<EnergyInput>,
   inputs,
   outputs: [
@@ -133,6 +135,26 @@ export const energyCalculator: Calculator<EnergyInput, EnergyOutput> = {
         'Planning to use more than 95 % of the pack leaves no reserve for a headwind, a restart or a cold pack.',
       );
     if (b.availableEnergy_Wh === 0) warnings.push('No energy available: the boat cannot move on this budget.');
-    return { outputs: { ...b }, warnings };
+    const durations = linspace(Math.min(0.25, input.raceDuration_h), Math.max(2 * input.raceDuration_h, 1), 48);
+    const budgets = durations.map((t) => energyBudget({ ...input, raceDuration_h: t }));
+    const series: SeriesSet = {
+      title: 'Average power the budget sustains against race duration',
+      x: { name: 'raceDuration_h', label: 'Race duration', unit: 'h', values: durations },
+      y: [
+        {
+          name: 'averageElectricalPower_W',
+          label: 'Average electrical power',
+          unit: 'W',
+          values: budgets.map((x) => x.averageElectricalPower_W),
+        },
+        {
+          name: 'averageShaftPower_W',
+          label: 'Average shaft power',
+          unit: 'W',
+          values: budgets.map((x) => x.averageShaftPower_W),
+        },
+      ],
+    };
+    return { outputs: { ...b }, series: { duration: series }, warnings };
   },
 };

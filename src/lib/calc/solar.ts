@@ -2,7 +2,8 @@
 import { z } from 'zod';
 import { num, objectSchema } from './fields';
 import { SRC_PVLIB, SRC_PVWATTS, SRC_ROSS } from './sources';
-import type { Calculator, InputMeta } from './types';
+import { linspace } from './numeric';
+import type { Calculator, InputMeta, SeriesSet } from './types';
 
 export interface SolarInput {
   area_m2: number;
@@ -111,7 +112,8 @@ export const solarCalculator: Calculator<SolarInput, SolarOutput> = {
   title: 'Solar array output',
   summary:
     'Cell temperature from the NOCT model and array DC power from irradiance, area, efficiency and temperature coefficient.',
-  engineVersion: '1.0.0',
+  // 1.1.0: array power and cell temperature against irradiance, as a chart.
+  engineVersion: '1.1.0',
   inputSchema: objectSchema(inputs) as unknown as z.ZodType<SolarInput>,
   inputs,
   outputs: [
@@ -130,8 +132,29 @@ export const solarCalculator: Calculator<SolarInput, SolarOutput> = {
     ];
     if (input.irradiance_Wm2 > 1100)
       warnings.push('Irradiance above 1100 W/m² is unusual outside brief cloud-edge peaks; check the value.');
+    const power = (G: number) =>
+      Math.max(
+        0,
+        pvwattsDc(G, rossCellTemperature(G, input.ambient_C, input.noct_C), pStc, input.tempCoefficient_perK),
+      ) *
+      (1 - input.otherLosses);
+    const irradiances = linspace(0, Math.max(1200, input.irradiance_Wm2), 49);
+    const series: SeriesSet = {
+      title: 'Array power and cell temperature against irradiance (same air temperature)',
+      x: { name: 'irradiance_Wm2', label: 'Irradiance G', unit: 'W/m²', values: irradiances },
+      y: [
+        { name: 'power_W', label: 'Array power', unit: 'W', values: irradiances.map(power) },
+        {
+          name: 'cellTemperature_C',
+          label: 'Cell temperature',
+          unit: '°C',
+          values: irradiances.map((G) => rossCellTemperature(G, input.ambient_C, input.noct_C)),
+        },
+      ],
+    };
     return {
       outputs: { cellTemperature_C: Tc, power_W: pDc * (1 - input.otherLosses), ratedPower_W: pStc },
+      series: { irradiance: series },
       warnings,
     };
   },

@@ -214,7 +214,8 @@ export const sweepCalculator: Calculator<SweepInput, SweepOutput> = {
   title: 'Propeller sweep: endurance and sprint',
   summary:
     'Scores a grid of B-series propellers of one diameter and blade number: endurance by the speed the energy budget sustains, sprint by the thrust at a low speed at full power. Teams commonly run two propellers, one for sprint and one for endurance (common practice).',
-  engineVersion: '1.0.0',
+  // 1.1.0: the grid marks the best cell of each objective.
+  engineVersion: '1.1.0',
   inputSchema: schema as unknown as z.ZodType<SweepInput>,
   inputs,
   outputs: [
@@ -309,6 +310,12 @@ export const sweepCalculator: Calculator<SweepInput, SweepOutput> = {
       x: { name: 'bladeAreaRatio', label: 'A_E/A_0', unit: '', values: areas },
       y: { name: 'pitchRatio', label: 'P/D', unit: '', values: pitches },
       z: { name: 'speed_mps', label: 'Sustained speed', unit: 'm/s', values: z },
+      marks: [
+        { x: bestE.ae, y: bestE.pd, label: 'Best for endurance (highest sustained speed)', symbol: 'E' },
+        ...(bestS && bestS.t > 0
+          ? [{ x: bestS.ae, y: bestS.pd, label: 'Best for sprint (most thrust at the check speed)', symbol: 'S' }]
+          : []),
+      ],
     };
     return {
       outputs: {

@@ -14,6 +14,11 @@ export interface InputMeta {
   optional?: boolean;
   help: string;
   group?: string;
+  /**
+   * Shown and used only while the choice input `input` has one of the values `is`. A hidden input never feeds
+   * the result: the form leaves it out and the schema drops it (see `activeInputs` in fields.ts).
+   */
+  when?: { input: string; is: string[] };
 }
 
 export interface OutputMeta {
@@ -52,6 +57,8 @@ export interface Grid {
   y: Axis;
   /** values are [yIndex][xIndex] */
   z: { name: string; label: string; unit: string; values: (number | null)[][] };
+  /** Cells to point out, e.g. the best of each objective; x and y are values of the axes. */
+  marks?: { x: number; y: number; label: string; symbol: string }[];
 }
 
 export interface CalcResult<O> {

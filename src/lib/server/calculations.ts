@@ -1,4 +1,4 @@
-import { and, desc, eq, inArray, isNull, lt, or, type SQL } from 'drizzle-orm';
+import { and, desc, eq, inArray, isNull, lt, notInArray, or, type SQL } from 'drizzle-orm';
 import { db } from './db/client';
 import { calculations, calculationResults, recordCalculations, records, seasons, subsystems, users } from './db/schema';
 import { getCalculator, runCalculator, type CalcResult } from '../calc';
@@ -35,6 +35,7 @@ export interface CalculationView {
   season: string;
   seasonIsCurrent: boolean;
   author: string | null;
+  authorId: string | null;
   notes: string;
   inputs: Record<string, unknown>;
   outputs: Outputs;
@@ -239,6 +240,13 @@ function sameValue(x: unknown, y: unknown): boolean {
   return x === y;
 }
 
+type StoredCharts = { series?: CalculationView['series']; grid?: CalculationView['grid'] } | null;
+
+/** The charts column as written by insertResult: `{series, grid}`. */
+function storedCharts(value: unknown): StoredCharts {
+  return value && typeof value === 'object' ? value : null;
+}
+
 export function getCalculation(id: string): CalculationView | null {
   const row = db()
     .select({
@@ -268,10 +276,7 @@ export function getCalculation(id: string): CalculationView | null {
     .innerJoin(records, eq(records.id, recordCalculations.recordId))
     .where(and(eq(recordCalculations.calculationId, id), isNull(records.deletedAt)))
     .all();
-  const stored = (latest?.series ?? null) as {
-    series?: CalculationView['series'];
-    grid?: CalculationView['grid'];
-  } | null;
+  const stored = storedCharts(latest?.series);
   const c = row.c;
   return {
     id: c.id,
@@ -284,6 +289,7 @@ export function getCalculation(id: string): CalculationView | null {
     season: row.season,
     seasonIsCurrent: row.seasonIsCurrent,
     author: row.author,
+    authorId: c.authorId,
     notes: c.notes,
     inputs: c.inputs,
     outputs: (latest?.outputs ?? {}) as Outputs,
@@ -378,6 +384,34 @@ export function compareCalculations(aId: string, bId: string) {
       differs: !sameValue(x[name] ?? null, y[name] ?? null),
     }));
   return { a, b, sameKind: a.kind === b.kind, inputs: rows(a.inputs, b.inputs), outputs: rows(a.outputs, b.outputs) };
+}
+
+/**
+ * Records of the current season this person may edit and that do not link the calculation yet: the choices of
+ * "link to a record" on a calculation page. Its own subsystem's records come first.
+ */
+export function linkableRecords(calculation: Pick<CalculationView, 'subsystem' | 'records'>, actor: Actor) {
+  const season = currentSeason();
+  if (!season || !can(actor, 'record:edit', { seasonIsCurrent: true })) return [];
+  const linked = new Set(calculation.records.map((r) => r.id));
+  const rows = db()
+    .select({ id: records.id, title: records.title, subsystem: records.subsystemSlug, name: subsystems.name })
+    .from(records)
+    .innerJoin(subsystems, eq(subsystems.slug, records.subsystemSlug))
+    .where(
+      and(
+        eq(records.seasonId, season.id),
+        isNull(records.deletedAt),
+        notInArray(records.status, ['superseded', 'withdrawn']),
+      ),
+    )
+    .orderBy(desc(records.updatedAt))
+    .limit(200)
+    .all()
+    .filter((r) => !linked.has(r.id));
+  const own = rows.filter((r) => r.subsystem === calculation.subsystem);
+  const others = rows.filter((r) => r.subsystem !== calculation.subsystem);
+  return [...own, ...others].map((r) => ({ id: r.id, title: r.title, note: r.name }));
 }
 
 export function existingCalculationIds(ids: string[]): Set<string> {
