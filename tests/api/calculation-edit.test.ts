@@ -146,3 +146,31 @@ describe('DELETE /api/calculations/{id}', () => {
     expect((await call(calculationRoute, 'GET', { session: s.member, params: { id: c.id } })).status).toBe(200);
   });
 });
+
+describe('search snippets for calculations', () => {
+  it('show labels and values in words, never field keys', async () => {
+    const res = await call(calculationsRoute, 'POST', {
+      session: s.member,
+      body: {
+        kind: 'propeller',
+        title: 'Quillwort propeller check',
+        subsystem: 'propulsion',
+        notes: '',
+        inputs: { blades: 3, bladeAreaRatio: 0.55, pitchRatio: 1.0, diameter_m: 0.2, rpm: 1200, speed_mps: 2.5 },
+      },
+    });
+    expect(res.status).toBe(201);
+    const hits = (await call(search, 'GET', { session: s.member, query: { q: 'quillwort' } })).body.hits as {
+      snippet: string;
+    }[];
+    expect(hits).toHaveLength(1);
+    expect(hits[0].snippet).toMatch(/^Blades 3, /);
+    expect(hits[0].snippet).toContain('pitch ratio 1');
+    expect(hits[0].snippet).not.toMatch(/pitchRatio|diameter_m|speed_mps|bladeAreaRatio/);
+    // Demo calculations too: every calculation hit for a broad word is free of field keys.
+    const broad = (await call(search, 'GET', { session: s.member, query: { q: 'propeller', type: 'calculation' } }))
+      .body.hits as { snippet: string }[];
+    expect(broad.length).toBeGreaterThan(0);
+    for (const h of broad) expect(h.snippet).not.toMatch(/\b[a-z]+[A-Z][A-Za-z]*\b|\w+_(m|mps|C|W)\b/);
+  });
+});
