@@ -131,7 +131,8 @@ export default function CalculatorForm({
         </button>
       </form>
 
-      {/* On a wide screen the results stay in view while the form scrolls past (long forms: race, sweep). */}
+      {/* On a wide screen the results stay in view while the form scrolls past (long forms: race, sweep); charts,
+          the heat map and the save form follow below, across both columns. */}
       <section
         aria-labelledby={`results-${kind}`}
         aria-live="polite"
@@ -139,7 +140,7 @@ export default function CalculatorForm({
         className={
           embedded
             ? 'flex min-w-0 flex-col gap-4'
-            : 'sticky-results flex min-w-0 flex-col gap-4 lg:sticky lg:top-4 lg:max-h-[calc(100vh-2rem)] lg:overflow-y-auto lg:pr-1'
+            : 'sticky-results flex min-w-0 flex-col gap-4 lg:sticky lg:top-4 lg:max-h-[calc(100vh-2rem)] lg:self-start lg:overflow-y-auto lg:pr-1'
         }
       >
         <h2 id={`results-${kind}`} className="text-lg font-semibold">
@@ -181,13 +182,19 @@ export default function CalculatorForm({
                 ))}
               </ul>
             )}
-            {(embedded ? charts.slice(0, 1) : charts).map((c, i) => (
-              <LineChart key={i} datasets={c.datasets} marks={c.marks} height={embedded ? 280 : 300} />
-            ))}
-            {run.result.grid && <GridTable grid={run.result.grid} />}
           </>
         )}
-        {!embedded && canSave && run.ok && (
+      </section>
+      {run.ok && (charts.length > 0 || run.result.grid) && (
+        <div className={embedded ? 'flex min-w-0 flex-col gap-4' : 'flex min-w-0 flex-col gap-6 lg:col-span-2'}>
+          {(embedded ? charts.slice(0, 1) : charts).map((c, i) => (
+            <LineChart key={i} datasets={c.datasets} marks={c.marks} height={embedded ? 280 : 320} />
+          ))}
+          {run.result.grid && <GridTable grid={run.result.grid} />}
+        </div>
+      )}
+      {!embedded && canSave && run.ok && (
+        <div className="lg:col-span-2">
           <SaveForm
             kind={kind}
             placeholder={titlePlaceholderFor(kind, calc.title)}
@@ -195,8 +202,8 @@ export default function CalculatorForm({
             subsystems={subsystems}
             defaultSubsystem={defaultSubsystem}
           />
-        )}
-      </section>
+        </div>
+      )}
     </div>
   );
 }
@@ -317,7 +324,7 @@ function SaveForm({
   }
 
   return (
-    <form onSubmit={save} className="card mt-2 flex flex-col gap-3" aria-labelledby="save-h" noValidate>
+    <form onSubmit={save} className="card mt-2 flex max-w-2xl flex-col gap-3" aria-labelledby="save-h" noValidate>
       <h2 id="save-h" className="text-lg font-semibold">
         Save this calculation
       </h2>
