@@ -11,7 +11,7 @@ function mustRun(kind: string, inputs: object) {
   return r;
 }
 
-export default async function benchCalc(): Promise<BenchSummary[]> {
+export default function benchCalc(): BenchSummary[] {
   const out: BenchSummary[] = [];
 
   const propRuns = 20000;

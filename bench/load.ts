@@ -2,6 +2,23 @@
 // cores, which autocannon alone could not), else autocannon. Every run is bounded in time.
 import { spawnSync } from 'node:child_process';
 import { existsSync, readFileSync } from 'node:fs';
+import { z } from 'zod';
+
+interface AutocannonOptions {
+  url: string;
+  connections: number;
+  duration: number;
+  headers?: Record<string, string>;
+  workers: number;
+}
+
+/** The part of autocannon's result that a load reports. */
+const AutocannonResult = z.object({
+  requests: z.object({ total: z.number(), average: z.number() }),
+  latency: z.object({ p50: z.number(), p99: z.number() }),
+  errors: z.number(),
+  non2xx: z.number(),
+});
 
 export interface LoadResult {
   name: string;
@@ -97,10 +114,12 @@ export async function runLoad(o: LoadOptions): Promise<LoadResult> {
       ...(o.cpuPid ? { cpu_ms_per_req: n > 0 ? (cpu1 - cpu0) / n : NaN } : {}),
     };
   }
-  const { default: autocannon } = await import('autocannon');
-  if (warmup > 0)
-    await autocannon({ url: o.url, connections, duration: warmup, headers: o.headers, workers: 2 } as never);
-  const r = await autocannon({ url: o.url, connections, duration: seconds, headers: o.headers, workers: 2 } as never);
+  // autocannon ships no types: its function is given the one shape we call it with, and its result is parsed.
+  const autocannon = ((await import('autocannon')) as { default: (opts: AutocannonOptions) => Promise<unknown> })
+    .default;
+  const opts: AutocannonOptions = { url: o.url, connections, duration: seconds, headers: o.headers, workers: 2 };
+  if (warmup > 0) await autocannon({ ...opts, duration: warmup });
+  const r = AutocannonResult.parse(await autocannon(opts));
   return {
     name: o.name,
     n: r.requests.total,

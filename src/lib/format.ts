@@ -56,14 +56,21 @@ function scientific(value: number, significant = 3): string {
   return `${fixed(mantissa, significant - 1)} × 10${power}`;
 }
 
-/** Text for anything that is not a number: strings as they are, other values as JSON. */
-function asText(value: unknown): string {
-  return typeof value === 'string' ? value : JSON.stringify(value);
+/** Any value as text: strings as they are, other primitives as `String()` writes them, objects as JSON. */
+export function plainText(value: unknown): string {
+  if (typeof value === 'string') return value;
+  if (typeof value === 'number' || typeof value === 'boolean' || typeof value === 'bigint') return String(value);
+  if (value === null || value === undefined) return '';
+  try {
+    return JSON.stringify(value) ?? '';
+  } catch {
+    return ''; // a cycle: nothing sensible to show
+  }
 }
 
 function special(value: unknown): string | null {
   if (value === null || value === undefined || value === '') return '–';
-  if (typeof value !== 'number') return asText(value);
+  if (typeof value !== 'number') return plainText(value);
   if (!Number.isFinite(value)) return value > 0 ? '∞' : value < 0 ? `${MINUS}∞` : '–';
   return null;
 }
@@ -181,7 +188,7 @@ export function formatWithUnit(value: unknown, unit: string, digits = 3): string
 
 /** An input as the person typed it: whole numbers stay whole, decimals keep their own places (up to 6). */
 export function formatInputValue(value: unknown, kind?: string): string {
-  if (typeof value !== 'number') return value === null || value === undefined ? '–' : asText(value);
+  if (typeof value !== 'number') return value === null || value === undefined ? '–' : plainText(value);
   if (kind === 'integer' || Number.isInteger(value)) return formatNumber(value, 0);
   const places = Math.min(6, (String(value).split('.')[1] ?? '').length);
   return formatNumber(value, places);

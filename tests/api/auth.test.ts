@@ -10,7 +10,7 @@ import { SESSION_COOKIE } from '../../src/lib/server/auth/lucia';
 
 beforeAll(seedDemo);
 
-function expectErrorShape(body: any, code: string) {
+function expectErrorShape(body: { error: { code: unknown; message: unknown; issues: unknown } }, code: string) {
   expect(body.error.code).toBe(code);
   expect(typeof body.error.message).toBe('string');
   expect(Array.isArray(body.error.issues)).toBe(true);

@@ -26,11 +26,11 @@ beforeAll(async () => {
 function unzip(bytes: Uint8Array): Promise<Map<string, Buffer>> {
   return new Promise((resolve, reject) => {
     yauzl.fromBuffer(Buffer.from(bytes), { lazyEntries: true }, (err, zip) => {
-      if (err || !zip) return reject(err);
+      if (err || !zip) return reject(err ?? new Error('yauzl opened no zip'));
       const out = new Map<string, Buffer>();
       zip.on('entry', (entry: yauzl.Entry) => {
         zip.openReadStream(entry, (e, stream) => {
-          if (e || !stream) return reject(e);
+          if (e || !stream) return reject(e ?? new Error(`yauzl could not read ${entry.fileName}`));
           const chunks: Buffer[] = [];
           stream.on('data', (c: Buffer) => chunks.push(c));
           stream.on('end', () => {

@@ -108,7 +108,7 @@ function makeValue(r: () => number, depth = 0): unknown {
 
 function wrongFor(type: FieldType, r: () => number): unknown {
   const pool: Record<FieldType, unknown[]> = {
-    string: [42, true, null, [], { $ne: null }, [ODD[0]], 1e400],
+    string: [42, true, null, [], { $ne: null }, [ODD[0]], Infinity], // Infinity is sent as null in JSON
     number: ['1', 'NaN', null, true, [], { v: 1 }, '9'.repeat(400)],
     boolean: ['true', 1, 0, null, [], {}],
     array: ['a,b', 7, { 0: 'x' }, null, true],

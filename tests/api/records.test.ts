@@ -409,7 +409,7 @@ describe('attachments', () => {
   const png = new Uint8Array(readFileSync('content/demo/attachments/thrust-vs-rpm-2026-03.png'));
   const form = (bytes: Uint8Array, name: string, type = 'application/octet-stream') => {
     const f = new FormData();
-    f.set('file', new File([new Uint8Array(bytes) as Uint8Array<ArrayBuffer>], name, { type }));
+    f.set('file', new File([new Uint8Array(bytes)], name, { type }));
     return f;
   };
 

@@ -211,7 +211,7 @@ describe('streamed uploads', () => {
     const before = uploadedFiles();
     const send = (bytes: Uint8Array, name: string) => {
       const f = new FormData();
-      f.set('file', new File([new Uint8Array(bytes) as Uint8Array<ArrayBuffer>], name));
+      f.set('file', new File([new Uint8Array(bytes)], name));
       return call(upload, 'POST', { session: s.member, params: { id: recordId }, rawBody: f });
     };
     const exe = await send(new Uint8Array([0x4d, 0x5a, 0x90, 0x00, 0x03, 0x00, 0x00, 0x00]), 'photo.png');

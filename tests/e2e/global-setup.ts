@@ -39,7 +39,7 @@ export default async function setup(project: TestProject) {
   }
   project.provide('e2eBaseUrl', base);
   project.provide('e2eDbPath', join(dir, 'e2e.db'));
-  return async () => {
+  return () => {
     server?.kill('SIGTERM');
   };
 }

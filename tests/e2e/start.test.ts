@@ -56,7 +56,7 @@ describe('npm start', () => {
     try {
       expect(run.listening).toBe(true);
       // At the moment it says it listens, the database already holds the migrated schema and the demo team.
-      const sqlite = new Database(env.WAKEBOOK_DB!, { readonly: true });
+      const sqlite = new Database(env.WAKEBOOK_DB, { readonly: true });
       const users = sqlite.prepare('select count(*) from users').pluck().get() as number;
       sqlite.close();
       expect(users).toBeGreaterThanOrEqual(4);

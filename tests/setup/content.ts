@@ -3,25 +3,30 @@
 import { vi } from 'vitest';
 
 vi.mock('astro:content', async () => {
-  const { readdirSync, readFileSync } = await import('node:fs');
-  const { join } = await import('node:path');
-  const { parse } = await import('yaml');
+  const fs = await import('node:fs');
+  const path = await import('node:path');
+  const yaml = await import('yaml');
   const { guideSchema, guideIdFromPath } = await import('../../src/lib/guide-schema');
   const base = 'src/content/guides';
-  const entries = readdirSync(base, { recursive: true })
+  const entries = fs
+    .readdirSync(base, { recursive: true })
     .map(String)
     .filter((f) => f.endsWith('.mdx'))
     .map((file) => {
-      const text = readFileSync(join(base, file), 'utf8');
+      const text = fs.readFileSync(path.join(base, file), 'utf8');
       const front = /^---\n([\s\S]*?)\n---/.exec(text)?.[1] ?? '';
-      return { id: guideIdFromPath(file), collection: 'guides', data: guideSchema.parse(parse(front)), body: text };
+      return {
+        id: guideIdFromPath(file),
+        collection: 'guides',
+        data: guideSchema.parse(yaml.parse(front)),
+        body: text,
+      };
     });
   return {
-    getCollection: async (name: string, filter?: (e: (typeof entries)[number]) => boolean) =>
-      name === 'guides' ? entries.filter((e) => !filter || filter(e)) : [],
-    getEntry: async (name: string, id: string) => (name === 'guides' ? entries.find((e) => e.id === id) : undefined),
-    render: async () => {
-      throw new Error('render() is not available in unit tests');
-    },
+    getCollection: (name: string, filter?: (e: (typeof entries)[number]) => boolean) =>
+      Promise.resolve(name === 'guides' ? entries.filter((e) => !filter || filter(e)) : []),
+    getEntry: (name: string, id: string) =>
+      Promise.resolve(name === 'guides' ? entries.find((e) => e.id === id) : undefined),
+    render: () => Promise.reject(new Error('render() is not available in unit tests')),
   };
 });

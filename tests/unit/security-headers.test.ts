@@ -40,7 +40,7 @@ describe('content security policy', () => {
     expect(scriptSrc(pagePolicy(null))).toBe("script-src 'self'");
   });
 
-  it('adds the headers to other responses, keeping ones a route set', async () => {
+  it('adds the headers to other responses, keeping ones a route set', () => {
     const json = withSecurityHeaders(
       new Response('{}', { headers: { 'content-type': 'application/json', 'referrer-policy': 'no-referrer' } }),
     );

@@ -45,7 +45,7 @@ export default function StreamDownload({ url, label, fallbackName }: Props) {
       for (;;) {
         const { done, value } = await reader.read();
         if (done) break;
-        chunks.push(value as Uint8Array<ArrayBuffer>);
+        chunks.push(value);
         count += value.byteLength;
         setReceived(count);
       }

@@ -5,7 +5,7 @@ import type { InputMeta } from '~/lib/calc/types';
 import { titlePlaceholderFor } from '~/lib/calc-defaults';
 import { operatingPoints } from '~/lib/chart-marks';
 import { apiFetch, ApiError } from '~/lib/client/api';
-import { formatQuantity } from '~/lib/format';
+import { formatQuantity, plainText } from '~/lib/format';
 import LineChart from '../ui/LineChart';
 import GridTable from './GridTable';
 
@@ -25,7 +25,7 @@ function initialRaw(inputs: InputMeta[], given: Record<string, unknown> = {}): R
   const raw: Raw = {};
   for (const m of inputs) {
     const v = given[m.name] ?? (m.optional ? undefined : m.default);
-    raw[m.name] = typeof v === 'string' || typeof v === 'number' || typeof v === 'boolean' ? String(v) : '';
+    raw[m.name] = plainText(v);
   }
   return raw;
 }

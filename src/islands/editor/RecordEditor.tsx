@@ -79,7 +79,12 @@ export default function RecordEditor({
   const [version, setVersion] = useState(record?.version ?? 0);
   const [saved, setSaved] = useState(() => JSON.stringify({ fields: initialFields, body: initialBody }));
   const [bodyJson, setBodyJson] = useState<JSONContent>(initialBody);
-  const [restorable, setRestorable] = useState<Draft | null>(null);
+  // Offer a local draft that differs from what the server has. The island renders only in the browser
+  // (`client:only`), so the draft is read once, as it mounts; key and record do not change while it lives.
+  const [restorable, setRestorable] = useState<Draft | null>(() => {
+    const d = readDraft(key);
+    return d && JSON.stringify({ fields: d.fields, body: d.body }) !== saved ? d : null;
+  });
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [message, setMessage] = useState<{ tone: 'ok' | 'error'; text: string } | null>(null);
   const [saving, setSaving] = useState(false);
@@ -103,13 +108,6 @@ export default function RecordEditor({
   });
 
   const dirty = JSON.stringify({ fields, body: bodyJson }) !== saved;
-
-  // Offer a local draft that differs from what the server has.
-  useEffect(() => {
-    const d = readDraft(key);
-    if (d && JSON.stringify({ fields: d.fields, body: d.body }) !== saved) setRestorable(d);
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [key]);
 
   // Keep unsaved work in this browser, so a reload or a crash loses nothing.
   useEffect(() => {

@@ -1,4 +1,5 @@
 import { useRef, useState, type DragEvent } from 'react';
+import { apiErrorMessage } from '~/lib/client/api';
 import CsvPreview from './CsvPreview';
 
 /** What POST /api/records/{id}/attachments answers with (the fields this island shows). */
@@ -50,12 +51,7 @@ export default function AttachmentUploader({ recordId, maxMb }: { recordId: stri
               // stored all the same; it shows with the other attachments next time the page is opened
             }
           } else {
-            let message = `Upload failed (${xhr.status}).`;
-            try {
-              message = (JSON.parse(xhr.responseText) as { error: { message: string } }).error.message;
-            } catch {
-              // keep the generic message
-            }
+            const message = apiErrorMessage(xhr.responseText) ?? `Upload failed (${xhr.status}).`;
             update(i, { state: 'error', message });
           }
         };

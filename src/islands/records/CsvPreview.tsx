@@ -7,8 +7,9 @@ import { unitFromName } from '~/lib/units';
 export default function CsvPreview({ url, name }: { url: string; name: string }) {
   const [text, setText] = useState<string | null>(null);
   const [error, setError] = useState('');
-  // What the person picked; until then the first numeric column along x and the next two plotted.
-  const [picked, setPicked] = useState<{ x: number; ys: number[] } | null>(null);
+  // What the person picked; until then the first numeric column runs along x and the next two are drawn.
+  const [xPicked, setX] = useState<number | null>(null);
+  const [ysPicked, setYs] = useState<number[] | null>(null);
 
   useEffect(() => {
     fetch(url, { credentials: 'same-origin' })
@@ -19,8 +20,8 @@ export default function CsvPreview({ url, name }: { url: string; name: string })
 
   const table = useMemo(() => (text ? parseCsv(text, 20_000) : null), [text]);
   const numeric = useMemo(() => (table ? numericColumns(table) : []), [table]);
-  const x = picked?.x ?? numeric[0] ?? 0;
-  const ys = picked?.ys ?? numeric.slice(1, 3);
+  const x = xPicked ?? numeric[0] ?? 0;
+  const ys = ysPicked ?? numeric.slice(1, 3);
 
   if (error) return <p className="text-sm text-muted">{error}</p>;
   if (!table) return <p className="text-sm text-muted">Loading {name}…</p>;
@@ -41,9 +42,11 @@ export default function CsvPreview({ url, name }: { url: string; name: string })
             id={`${id}-x`}
             className="input py-1"
             value={x}
-            onChange={(e) =>
-              setPicked({ x: Number(e.target.value), ys: ys.filter((i) => i !== Number(e.target.value)) })
-            }
+            onChange={(e) => {
+              const next = Number(e.target.value);
+              setX(next);
+              setYs(ys.filter((i) => i !== next));
+            }}
           >
             {numeric.map((i) => (
               <option key={i} value={i}>
@@ -61,7 +64,7 @@ export default function CsvPreview({ url, name }: { url: string; name: string })
                 <input
                   type="checkbox"
                   checked={ys.includes(i)}
-                  onChange={() => setPicked({ x, ys: ys.includes(i) ? ys.filter((k) => k !== i) : [...ys, i] })}
+                  onChange={() => setYs(ys.includes(i) ? ys.filter((k) => k !== i) : [...ys, i])}
                 />
                 {table.header[i]}
               </label>

@@ -65,7 +65,7 @@ export default function HeaderSearch({ initialQuery = '' }: { initialQuery?: str
   }
 
   function onBlur(e: FocusEvent<HTMLFormElement>) {
-    if (!e.currentTarget.contains(e.relatedTarget as Node | null)) close();
+    if (!e.currentTarget.contains(e.relatedTarget)) close();
   }
 
   const emptyList = <div role="listbox" id={listId} aria-label="Search results" />;

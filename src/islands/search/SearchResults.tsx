@@ -20,13 +20,13 @@ interface Props {
   idPrefix: string;
   allHref: string;
   visible: boolean;
-  onActiveId(id: string | undefined): void;
+  onActiveId: (id: string | undefined) => void;
 }
 
 /** The listbox under the header's search field: results as you type (SWR), then a link to all results. */
 export default function SearchResults({ ref, query, type, listId, idPrefix, allHref, visible, onActiveId }: Props) {
   const key = query ? searchKey({ q: query, type, limit: LIMIT }) : null;
-  const { data, error, isLoading } = useSWR<SearchResponse>(key, fetcher, {
+  const { data, error, isLoading } = useSWR<SearchResponse, Error>(key, fetcher, {
     keepPreviousData: true,
     revalidateOnFocus: false,
   });

@@ -28,9 +28,15 @@ export type CalculatorKind = keyof typeof calculators;
 
 export const calculatorKinds = Object.freeze(Object.keys(calculators) as CalculatorKind[]);
 
-export function getCalculator(kind: string): Calculator<any, any> | undefined {
+/**
+ * Any calculator of the registry, seen from outside: its inputs are whatever its own schema parses (so they are
+ * `unknown` until `inputSchema` has parsed them) and its outputs are plain numbers and labels.
+ */
+type AnyCalculator = Calculator<unknown, Record<string, number | string | null>>;
+
+export function getCalculator(kind: string): AnyCalculator | undefined {
   return Object.prototype.hasOwnProperty.call(calculators, kind)
-    ? (calculators as Record<string, Calculator<any, any>>)[kind]
+    ? (calculators as Record<string, AnyCalculator>)[kind]
     : undefined;
 }
 

@@ -47,5 +47,19 @@ export async function apiFetch<T>(url: string, init: RequestInit & { json?: unkn
   return body as T;
 }
 
+/** The `error.message` of an API error body given as text, when it is one. */
+export function apiErrorMessage(text: string): string | undefined {
+  let body: unknown;
+  try {
+    body = JSON.parse(text);
+  } catch {
+    return undefined;
+  }
+  if (typeof body !== 'object' || body === null || !('error' in body)) return undefined;
+  const { error } = body;
+  if (typeof error !== 'object' || error === null || !('message' in error)) return undefined;
+  return typeof error.message === 'string' ? error.message : undefined;
+}
+
 /** SWR's fetcher. */
 export const fetcher = <T>(url: string) => apiFetch<T>(url);

@@ -240,13 +240,6 @@ function sameValue(x: unknown, y: unknown): boolean {
   return x === y;
 }
 
-type StoredCharts = { series?: CalculationView['series']; grid?: CalculationView['grid'] } | null;
-
-/** The charts column as written by insertResult: `{series, grid}`. */
-function storedCharts(value: unknown): StoredCharts {
-  return value && typeof value === 'object' ? value : null;
-}
-
 export function getCalculation(id: string): CalculationView | null {
   const row = db()
     .select({
@@ -276,7 +269,7 @@ export function getCalculation(id: string): CalculationView | null {
     .innerJoin(records, eq(records.id, recordCalculations.recordId))
     .where(and(eq(recordCalculations.calculationId, id), isNull(records.deletedAt)))
     .all();
-  const stored = storedCharts(latest?.series);
+  const stored = latest?.series ?? null;
   const c = row.c;
   return {
     id: c.id,

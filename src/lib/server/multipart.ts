@@ -62,7 +62,7 @@ export async function receiveFile(request: Request, options: ReceiveOptions): Pr
         (received) => discardIncoming(received.path),
         () => undefined,
       );
-      reject(error);
+      reject(error instanceof Error ? error : new Error('The upload failed.', { cause: error }));
     };
     const unreadable = () => new HttpError(400, 'invalid_input', 'The upload could not be read; please send it again.');
 

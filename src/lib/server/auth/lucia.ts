@@ -23,14 +23,15 @@ class PreparedSessionAdapter extends DrizzleSQLiteAdapter {
     'SELECT s.id AS sid, s.user_id AS uid, s.expires_at AS exp, u.email AS email, u.name AS name, u.role AS role FROM sessions s JOIN users u ON u.id = s.user_id WHERE s.id = ?',
   );
 
-  override async getSessionAndUser(sessionId: string): Promise<[DatabaseSession | null, DatabaseUser | null]> {
+  // better-sqlite3 answers synchronously; the adapter interface wants a promise.
+  override getSessionAndUser(sessionId: string): Promise<[DatabaseSession | null, DatabaseUser | null]> {
     const row = this.lookup.get(sessionId) as
       { sid: string; uid: string; exp: number; email: string; name: string; role: Role } | undefined;
-    if (!row) return [null, null];
-    return [
+    if (!row) return Promise.resolve([null, null]);
+    return Promise.resolve([
       { id: row.sid, userId: row.uid, expiresAt: new Date(row.exp * 1000), attributes: {} },
       { id: row.uid, attributes: { email: row.email, name: row.name, role: row.role } },
-    ];
+    ]);
   }
 }
 

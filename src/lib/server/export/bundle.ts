@@ -51,7 +51,7 @@ export async function handoverBundle(
       try {
         cb(null, Readable.from(Buffer.from(make() ?? '', 'utf8'), { objectMode: false }));
       } catch (e) {
-        cb(e as Error, undefined as never);
+        cb(e, undefined as never);
       }
     });
 

@@ -71,7 +71,7 @@ export function processBody(input: unknown, { repair = false } = {}): ProcessedB
   if (!input || typeof input !== 'object' || Array.isArray(input)) throw fail('The body must be an editor document.');
   let cleaned: JSONContent;
   try {
-    cleaned = clean(input as JSONContent, 0, repair);
+    cleaned = clean(input, 0, repair);
   } catch (e) {
     if (e instanceof BodyProblem) throw fail(e.message);
     throw e;
@@ -136,7 +136,9 @@ function cleanAttrs(type: string, given: unknown, repair: boolean): Record<strin
 function keepOnlyLinkHref(n: JSONContent): JSONContent {
   const out: JSONContent = { ...n };
   if (n.marks)
-    out.marks = n.marks.map((m) => (m.type === 'link' ? { type: 'link', attrs: { href: m.attrs?.href } } : m));
+    out.marks = n.marks.map((m) =>
+      m.type === 'link' ? { type: 'link', attrs: { href: m.attrs?.href as unknown } } : m,
+    );
   if (n.content) out.content = n.content.map(keepOnlyLinkHref);
   return out;
 }

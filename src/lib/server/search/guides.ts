@@ -7,6 +7,7 @@ import { existsSync, readdirSync, readFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { parse as parseYaml } from 'yaml';
 import { getCollection } from 'astro:content';
+import { guideIdFromPath, guideSchema } from '../../guide-schema';
 import type { GuideDoc } from './engine';
 
 /** MDX source → readable text: no imports, components, link targets or Markdown punctuation. */
@@ -55,14 +56,15 @@ function readGuideFiles(dir: string): GuideSource[] {
     const source = readFileSync(join(entry.parentPath, entry.name), 'utf8');
     const m = /^---\r?\n([\s\S]*?)\r?\n---\r?\n?([\s\S]*)$/.exec(source);
     if (!m) continue;
-    const data = parseYaml(m[1]) as Record<string, unknown>;
+    // The collection's own schema, so a guide reads here exactly as `astro build` would accept it.
+    const data = guideSchema.parse(parseYaml(m[1]));
     out.push({
-      slug: entry.name.replace(/\.mdx$/, ''),
-      title: String(data.title ?? ''),
-      subsystem: String(data.subsystem ?? 'general'),
-      audience: typeof data.audience === 'string' ? data.audience : undefined,
-      summary: String(data.summary ?? ''),
-      tags: Array.isArray(data.tags) ? data.tags.map(String) : [],
+      slug: guideIdFromPath(entry.name),
+      title: data.title,
+      subsystem: data.subsystem,
+      audience: data.audience,
+      summary: data.summary,
+      tags: data.tags,
       body: m[2],
     });
   }

@@ -18,7 +18,6 @@ export function escapeHtml(text: string): string {
 }
 
 // C0 controls and DEL carry no meaning in a snippet; whitespace runs (newlines from the editor) read as one space.
-// eslint-disable-next-line no-control-regex
 const CONTROL = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\u007F]/g;
 const clean = (s: string) => s.replace(CONTROL, '').replace(/\s+/g, ' ');
 

@@ -5,7 +5,6 @@
 const TOKEN = /[\p{L}\p{N}\p{Co}]+/gu;
 const MARKS = /\p{M}+/gu;
 
-// eslint-disable-next-line no-control-regex
 const ASCII = /^[\u0000-\u007f]*$/;
 
 /** Lower-cased, diacritics removed ("Naïve Café" → "naive cafe"). */

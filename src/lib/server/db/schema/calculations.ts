@@ -1,4 +1,5 @@
 import { sqliteTable, text, index } from 'drizzle-orm/sqlite-core';
+import type { Grid, SeriesSet } from '../../../calc/types';
 import { timestamp } from './common';
 import { users, seasons, subsystems } from './people';
 
@@ -38,7 +39,7 @@ export const calculationResults = sqliteTable(
       .references(() => calculations.id, { onDelete: 'cascade' }),
     engineVersion: text().notNull(),
     outputs: text({ mode: 'json' }).$type<Record<string, unknown>>().notNull(),
-    series: text({ mode: 'json' }).$type<unknown>(),
+    series: text({ mode: 'json' }).$type<{ series?: Record<string, SeriesSet> | null; grid?: Grid | null }>(),
     warnings: text({ mode: 'json' }).$type<string[]>().notNull(),
     computedById: text().references(() => users.id, { onDelete: 'set null' }),
     computedAt: timestamp().notNull(),
