@@ -48,6 +48,8 @@ const FIELDS: Record<string, Record<string, FieldType>> = {
   'POST /api/calculators/[kind]/run': { inputs: 'object' },
   'POST /api/calculations': { kind: 'string', title: 'string', subsystem: 'string', inputs: 'object' },
   'PATCH /api/calculations/[id]': { title: 'string', notes: 'string', subsystem: 'string' },
+  // Shares its file with PATCH; reads no body, so whatever is sent must change nothing.
+  'DELETE /api/calculations/[id]': { title: 'string' },
   'PUT /api/onboarding/[subsystem]': { items: 'array' },
   'POST /api/onboarding/[subsystem]/progress': { itemId: 'string', done: 'boolean' },
 };
