@@ -1,4 +1,4 @@
-// Calculator engine benchmarks: one propeller evaluation, one race solve, one ~200-propeller sweep.
+// Calculator engine benchmarks: one propeller evaluation, one race solve, one sprint, one ~200-propeller sweep.
 // Each goes through runCalculator (schema parse + compute), as the API does.
 import { runCalculator } from '../src/lib/calc/index';
 import { bSeries } from '../src/lib/calc/bseries';
@@ -57,10 +57,31 @@ export default function benchCalc(): BenchSummary[] {
     }),
   );
 
+  // Standing-start sprint inside the motor's envelope, over a spread of propellers and motors.
+  const sprintRuns = 500;
+  const sprint = timeIt(
+    (i) =>
+      mustRun('sprint', {
+        pitchRatio: 0.8 + (i % 7) * 0.1,
+        bladeAreaRatio: 0.4 + (i % 4) * 0.1,
+        maxShaftPower_W: 3000 + (i % 5) * 1000,
+      }),
+    sprintRuns,
+  );
+  out.push(
+    summarize('calc.sprint.solve', sprint, {
+      docs: 'top speed, RK4 run over 200 m inside the power/rpm/torque envelope, cavitation checks, two series',
+      target_p99_ms: 20,
+    }),
+  );
+
   const sweepRuns = 15;
   const sweep = timeIt((i) => mustRun('propeller-sweep', { batteryEnergy_Wh: 1600 + i * 10 }), sweepRuns, 2);
   out.push(
-    summarize('calc.propeller-sweep.204', sweep, { docs: '17 × 12 = 204 propellers: race solve + sprint thrust each' }),
+    summarize('calc.propeller-sweep.204', sweep, {
+      docs: '17 × 12 = 204 propellers: race solve inside the envelope + sprint over 200 m + cavitation checks each',
+      target_p99_ms: 1000,
+    }),
   );
 
   return out;

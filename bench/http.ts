@@ -7,7 +7,7 @@
 //   3. the server's RSS after those loads, and start to first answer on an already-seeded database.
 import { fork, type ChildProcess } from 'node:child_process';
 import { cpSync, mkdtempSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { loadTool, runLoad, type LoadOptions, type LoadResult } from './load';
 import { addBenchPeople, benchReadPaths, benchWriteTargets } from './people';
@@ -119,7 +119,7 @@ export default async function benchHttp(opts: { seconds?: number } = {}): Promis
         }),
       );
     }
-    out.push({ name: 'server.rss-after-load', n: 1, rss_mb: round(server.rssMb()) });
+    out.push({ name: 'server.rss-after-load', n: 1, rss_mb: round(server.rssMb()), load_avg_1m: round(loadavg()[0]) });
   } finally {
     await server.stop();
     plain?.kill();
@@ -128,7 +128,7 @@ export default async function benchHttp(opts: { seconds?: number } = {}): Promis
 }
 
 function startRow(s: RunningServer) {
-  return { n: 1, p50_ms: round(s.startMs), p99_ms: round(s.startMs) };
+  return { n: 1, p50_ms: round(s.startMs), p99_ms: round(s.startMs), load_avg_1m: round(loadavg()[0]) };
 }
 
 async function signInAll(base: string, emails: string[]): Promise<string[]> {
@@ -216,6 +216,9 @@ function report(r: LoadResult, ceiling: LoadResult, extra: object = {}) {
     tool: r.tool,
     connections: r.connections,
     seconds: r.seconds,
+    // The machine's one-minute load average as the row finished: on a shared machine, ratios to the ceiling mean
+    // little once it is well above the number of cores (CPU ms per answer is the steadier figure).
+    load_avg_1m: round(loadavg()[0]),
     ...extra,
   };
 }

@@ -65,6 +65,7 @@ const MATRIX: Record<string, Row> = {
   'GET /api/attachments/[id]': { allow: ALL, params: { id: 'nope' } },
   'GET /api/calculators': { allow: ALL },
   'POST /api/calculators/[kind]/run': { allow: ALL, params: { kind: 'cable' } },
+  'POST /api/calculators/resistance/fit': { allow: ALL },
   'GET /api/calculations': { allow: ALL },
   'POST /api/calculations': { allow: WRITERS },
   'GET /api/calculations/[id]': { allow: ALL, params: CALC },

@@ -46,6 +46,7 @@ const FIELDS: Record<string, Record<string, FieldType>> = {
   'POST /api/records/[id]/comments': { body: 'string', parentId: 'string' },
   'POST /api/records/[id]/attachments': { file: 'string' },
   'POST /api/calculators/[kind]/run': { inputs: 'object' },
+  'POST /api/calculators/resistance/fit': { inputs: 'object', points: 'array', drivetrainEfficiency: 'number' },
   'POST /api/calculations': { kind: 'string', title: 'string', subsystem: 'string', inputs: 'object' },
   'PATCH /api/calculations/[id]': { title: 'string', notes: 'string', subsystem: 'string' },
   // Shares its file with PATCH; reads no body, so whatever is sent must change nothing.

@@ -39,3 +39,22 @@ describe('resistance calculator arithmetic on the ITTC-1957 line (REFERENCES.md 
     expect(o.effectivePower_W).toBeCloseTo(o.totalResistance_N * 2.0068, 9);
   });
 });
+
+// Froude number Fn = V/√(gL) (W. Froude; common practice: above Fn ≈ 0.4 wave-making resistance of a displacement hull
+// rises steeply, so a friction-only estimate is incomplete). Derived from the definition, g = 9.80665 m/s².
+describe('resistance — Froude number and the speed-length warning (common practice)', () => {
+  const run = (raw: Record<string, unknown>) => {
+    const r = runCalculator('resistance', raw);
+    if (!r.ok) throw new Error(JSON.stringify(r));
+    return r.result;
+  };
+  it('Fn = V/√(gL): 5 m/s on 5.5 m → 0.68081', () =>
+    expect(run({}).outputs.froude).toBeCloseTo(5 / Math.sqrt(9.80665 * 5.5), 12));
+  it('above 0.4 it warns that wave-making resistance is missing and points to the planing calculator', () => {
+    expect(run({ speed_mps: 3 }).warnings.join(' ')).toMatch(/wave-making.*planing/s);
+  });
+  it('at Fn 0.35 it does not', () => {
+    const v = 0.35 * Math.sqrt(9.80665 * 5.5);
+    expect(run({ speed_mps: v }).warnings.join(' ')).not.toMatch(/wave-making/);
+  });
+});

@@ -335,8 +335,29 @@ function thrustPlot() {
   return writePng("thrust-vs-rpm-2026-03.png", img);
 }
 
+// ---------- CSV: 2025–26 speed trial of Tern 5 on the home lake, logged speed and battery power ----------
+// Invented: power from the ITTC-1957 friction line at a form factor of 1.19 (the hull is fuller than the 1.12 the
+// team assumed), appendage C_D·A 0.002 m², drivetrain efficiency 0.62 and ±4 % scatter; fresh water at 18 °C.
+function speedTrial2026() {
+  const rand = rng(2604);
+  const L = 5.6, S = 2.9, cda = 0.002, rho = 998.6, nu = 1.0533e-6, k1 = 1.19, eta = 0.62;
+  const rows = [];
+  for (const target of [2.0, 2.5, 3.0, 3.5, 4.0, 4.5, 5.0, 5.5, 6.0]) {
+    for (let run = 0; run < 3; run++) {
+      const v = target + noise(rand, 0.08);
+      const cf = 0.075 / (Math.log10((v * L) / nu) - 2) ** 2;
+      const shaft = (k1 * 0.5 * rho * v * v * S * cf + 0.5 * rho * v * v * cda) * v / eta;
+      const p = shaft * (1 + noise(rand, 0.04));
+      const volts = 51.8 - p / 900;
+      rows.push([r2(v), r1(p), r2(p / volts), r2(volts)]);
+    }
+  }
+  return writeCsv("speed-trial-tern5-2026-04.csv", ["speed_mps", "power_W", "current_A", "voltage_V"], rows);
+}
+
 mkdirSync(OUT, { recursive: true });
 const written = [
+  speedTrial2026(),
   coolantRace2025(),
   coolantClosedLoop2026(),
   bollard("endurance"),

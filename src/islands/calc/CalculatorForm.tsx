@@ -185,12 +185,15 @@ export default function CalculatorForm({
           </>
         )}
       </section>
-      {run.ok && (charts.length > 0 || run.result.grid) && (
+      {run.ok && (charts.length > 0 || run.result.grid || run.result.grids?.length) && (
         <div className={embedded ? 'flex min-w-0 flex-col gap-4' : 'flex min-w-0 flex-col gap-6 lg:col-span-2'}>
           {(embedded ? charts.slice(0, 1) : charts).map((c, i) => (
             <LineChart key={i} datasets={c.datasets} marks={c.marks} height={embedded ? 280 : 320} />
           ))}
           {run.result.grid && <GridTable grid={run.result.grid} />}
+          {run.result.grids?.map((g) => (
+            <GridTable key={g.title} grid={g} />
+          ))}
         </div>
       )}
       {!embedded && canSave && run.ok && (

@@ -16,6 +16,7 @@ export interface SavedResultData {
   warnings: string[];
   series: Record<string, SeriesSet> | null;
   grid: Grid | null;
+  grids: Grid[];
   engineVersion: string;
 }
 
@@ -87,6 +88,7 @@ export default function SavedResult({
         warnings: c.warnings,
         series: c.series,
         grid: c.grid,
+        grids: c.grids,
         engineVersion: c.engineVersion,
       });
       setChanges(res.changes);
@@ -191,6 +193,9 @@ export default function SavedResult({
         <LineChart key={`${result.engineVersion}-${i}`} datasets={c.datasets} marks={c.marks} />
       ))}
       {result.grid && <GridTable grid={result.grid} />}
+      {result.grids.map((g) => (
+        <GridTable key={g.title} grid={g} />
+      ))}
     </div>
   );
 }

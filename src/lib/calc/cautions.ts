@@ -12,3 +12,5 @@ export const CAUTION_COOLING =
   'Coolant loops run hot and under pressure: let them cool before opening, wear eye protection, and keep glycol away from skin, drains and open water (it is toxic). Follow the manufacturer’s limits for the motor and controller.';
 export const CAUTION_DEFER =
   'These results are design estimates. The race rules, local codes and qualified people take precedence.';
+export const CAUTION_FOIL =
+  'Foils have sharp edges and lift a boat out of the water: a boat coming off its foils stops abruptly and can throw the driver forward. Test over deep water clear of swimmers and other boats, with a safety boat, buoyancy aids and helmets as the race rules require, and keep hands clear of foil and propeller when the motor can run.';

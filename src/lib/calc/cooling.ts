@@ -3,11 +3,18 @@
 // of the hose or pipe run.
 import { z } from 'zod';
 import { CAUTION_COOLING, CAUTION_DEFER } from './cautions';
-import { COOLANT_RANGE, coolantProperties, type Coolant } from './coolant';
+import {
+  coolantProperties,
+  coolantRange,
+  GLYCOL_FRACTION_DEFAULT,
+  GLYCOL_FRACTION_MAX,
+  glycolFractionOf,
+  type Coolant,
+} from './coolant';
 import { OutOfRangeError } from './errors';
 import { choice, num, objectSchema } from './fields';
 import { darcyWeisbach, frictionFactor, RE_LAMINAR, RE_TURBULENT } from './pipe';
-import { SRC_ASHRAE_EG, SRC_COLEBROOK, SRC_ETB_EG, SRC_FLUIDS, SRC_IAPWS08_VISC, SRC_IAPWS95 } from './sources';
+import { SRC_COLEBROOK, SRC_FLUIDS, SRC_IAPWS08_VISC, SRC_IAPWS95, SRC_MELINDER, SRC_SCP } from './sources';
 import type { Calculator, InputMeta } from './types';
 
 export interface CoolingInput {
@@ -17,6 +24,7 @@ export interface CoolingInput {
   efficiency?: number;
   flow_lpm: number;
   coolant: Coolant;
+  glycolFraction?: number;
   inlet_C: number;
   thermalResistance_KperW: number;
   pipeBore_mm?: number;
@@ -105,9 +113,21 @@ const inputs: InputMeta[] = [
     group: 'Coolant',
     options: [
       { value: 'water', label: 'Water' },
+      { value: 'glycol', label: 'Ethylene glycol–water (mass fraction below)' },
       { value: 'glycol50', label: 'Ethylene glycol 50 % by volume' },
     ],
-    help: 'Water carries more heat; a glycol mix protects against frost when the boat is stored cold.',
+    help: 'Water carries more heat; a glycol mix protects against frost when the boat is stored cold. “50 % by volume” is the same mix as a glycol mass fraction of about 0.53.',
+  }),
+  num({
+    name: 'glycolFraction',
+    label: 'Glycol mass fraction',
+    unit: '',
+    min: 0,
+    max: GLYCOL_FRACTION_MAX,
+    step: 0.01,
+    optional: true,
+    group: 'Coolant',
+    help: `Mass of ethylene glycol over mass of mix, 0–0.6, for the ethylene glycol–water coolant (${GLYCOL_FRACTION_DEFAULT} when empty). Properties from Melinder’s correlation.`,
   }),
   num({
     name: 'inlet_C',
@@ -194,7 +214,7 @@ export const coolingCalculator: Calculator<CoolingInput, CoolingOutput> = {
   title: 'Coolant loop and hot spot',
   summary:
     'Coolant temperature rise for a given heat and flow, a conservative hot-spot temperature through the thermal resistance, and the pressure drop of the pipe run.',
-  engineVersion: '1.0.0',
+  engineVersion: '1.1.0',
   inputSchema: schema as unknown as z.ZodType<CoolingInput>,
   inputs,
   outputs: [
@@ -217,55 +237,44 @@ export const coolingCalculator: Calculator<CoolingInput, CoolingOutput> = {
     },
     { name: 'reynolds', label: 'Pipe Reynolds number', unit: '', digits: 0 },
   ],
-  sources: [
-    SRC_IAPWS95,
-    SRC_IAPWS08_VISC,
-    SRC_ASHRAE_EG,
-    SRC_ETB_EG,
-    {
-      citation:
-        'Specific heat of 50 % by volume ethylene glycol: values from memory of the ASHRAE / supplier tables (±3 %), not re-checked — use your coolant datasheet.',
-      use: 'c_p of the glycol mix (memory).',
-    },
-    SRC_COLEBROOK,
-    SRC_FLUIDS,
-  ],
+  sources: [SRC_IAPWS95, SRC_IAPWS08_VISC, SRC_MELINDER, SRC_SCP, SRC_COLEBROOK, SRC_FLUIDS],
   cautions: [CAUTION_COOLING, CAUTION_DEFER],
   compute(input) {
     const heat =
       input.heatFrom === 'heat'
         ? (input.heat_W as number)
         : (input.inputPower_W as number) * (1 - (input.efficiency as number));
-    const [tMin, tMax] = COOLANT_RANGE[input.coolant];
+    const fraction = glycolFractionOf(input.coolant, input.glycolFraction);
+    const [tMin, tMax] = coolantRange(input.coolant, fraction);
     if (input.inlet_C < tMin)
       throw new OutOfRangeError(
         'inlet_C',
         input.coolant === 'water'
           ? 'Water freezes at this inlet temperature; use a glycol mix.'
-          : `Below ${tMin} °C the glycol table ends.`,
+          : `This mix freezes at ${tMin.toFixed(1)} °C; raise the glycol fraction or the inlet temperature.`,
       );
     const q = input.flow_lpm / 60000; // m³/s
     let mean = input.inlet_C;
     let rise = 0;
-    let props = coolantProperties(input.coolant, mean);
+    let props = coolantProperties(input.coolant, mean, input.glycolFraction);
     // Properties at the mean coolant temperature; three passes settle it to well below 0.01 K.
     for (let i = 0; i < 3; i++) {
       rise = heat / (props.density_kgm3 * q * props.cp_JkgK);
       mean = input.inlet_C + rise / 2;
       if (input.inlet_C + rise > tMax) break;
-      props = coolantProperties(input.coolant, mean);
+      props = coolantProperties(input.coolant, mean, input.glycolFraction);
     }
     const outlet = input.inlet_C + rise;
     if (outlet > tMax)
       throw new OutOfRangeError(
         'flow_lpm',
-        `The coolant would leave at ${outlet.toFixed(0)} °C, ${input.coolant === 'water' ? 'at or above boiling' : 'beyond the property table'}; raise the flow or cut the heat.`,
+        `The coolant would leave at ${outlet.toFixed(0)} °C, ${input.coolant === 'water' ? 'at or above boiling' : 'beyond the range of the property correlation'}; raise the flow or cut the heat.`,
       );
     const hotspot = outlet + heat * input.thermalResistance_KperW;
     const warnings: string[] = [];
-    if (input.coolant === 'glycol50')
+    if (input.coolant !== 'water' && fraction < 0.2)
       warnings.push(
-        'Glycol specific heat is from memory (±3 %); use your coolant supplier’s datasheet for a final design.',
+        'Below about 20 % glycol by mass a mix gives little frost protection and may not inhibit corrosion; follow the coolant maker’s minimum.',
       );
     if (outlet > 60)
       warnings.push(`Outlet coolant at ${outlet.toFixed(0)} °C can scald; check hose and fitting ratings.`);

@@ -19,7 +19,12 @@ export type EnergyOutput = {
   availableEnergy_Wh: number;
   averageElectricalPower_W: number;
   averageShaftPower_W: number;
+  averageCRate: number | null;
 };
+
+export interface EnergyCalcInput extends EnergyInput {
+  maxCRate: number;
+}
 
 export const energyInputs = (group = 'Energy budget'): InputMeta[] => [
   num({
@@ -79,7 +84,20 @@ export const energyInputs = (group = 'Energy budget'): InputMeta[] => [
   }),
 ];
 
-const inputs = energyInputs();
+// The C-rate limit is the energy calculator's own input (race and the sweep share energyInputs without it).
+const inputs = [
+  ...energyInputs(),
+  num({
+    name: 'maxCRate',
+    label: 'Cell continuous C-rate limit',
+    unit: '1/h',
+    min: 0.01,
+    max: 100,
+    step: 0.1,
+    default: 2,
+    help: 'Highest continuous discharge rate the cells allow, in multiples of their capacity per hour (datasheet: maximum continuous current ÷ capacity; demo default 2 C). A warning shows when the budget’s average battery power needs more.',
+  }),
+];
 
 export interface Budget {
   availableEnergy_Wh: number;
@@ -99,14 +117,14 @@ export function energyBudget(e: EnergyInput): Budget {
 
 export const energyCautions = [CAUTION_BATTERY, CAUTION_DEFER];
 
-export const energyCalculator: Calculator<EnergyInput, EnergyOutput> = {
+export const energyCalculator: Calculator<EnergyCalcInput, EnergyOutput> = {
   kind: 'energy',
   title: 'Race energy budget',
   summary:
     'Usable battery energy plus solar energy over the race, and the average electrical and shaft power they sustain.',
-  // 1.1.0: average power against race duration, as a chart.
+  // 1.1.0: average C-rate and a chart of average power against race duration.
   engineVersion: '1.1.0',
-  inputSchema: objectSchema(inputs) as unknown as z.ZodType<EnergyInput>,
+  inputSchema: objectSchema(inputs) as unknown as z.ZodType<EnergyCalcInput>,
   inputs,
   outputs: [
     {
@@ -118,6 +136,13 @@ export const energyCalculator: Calculator<EnergyInput, EnergyOutput> = {
     },
     { name: 'averageElectricalPower_W', label: 'Average electrical power', unit: 'W', digits: 0 },
     { name: 'averageShaftPower_W', label: 'Average shaft power', unit: 'W', digits: 0 },
+    {
+      name: 'averageCRate',
+      label: 'Average battery C-rate',
+      unit: '1/h',
+      digits: 2,
+      help: 'Average battery power over nominal battery energy: usable fraction ÷ race duration (solar power is not drawn from the battery). Peaks are higher.',
+    },
   ],
   sources: [
     {
@@ -135,6 +160,12 @@ export const energyCalculator: Calculator<EnergyInput, EnergyOutput> = {
         'Planning to use more than 95 % of the pack leaves no reserve for a headwind, a restart or a cold pack.',
       );
     if (b.availableEnergy_Wh === 0) warnings.push('No energy available: the boat cannot move on this budget.');
+    // battery power averaged over the race, over its nominal energy, is the average discharge rate in 1/h
+    const cRate = input.batteryEnergy_Wh > 0 ? input.usableFraction / input.raceDuration_h : null;
+    if (cRate !== null && cRate > input.maxCRate)
+      warnings.push(
+        `Using ${(100 * input.usableFraction).toFixed(0)} % of the pack in ${input.raceDuration_h} h is an average discharge of ${cRate.toFixed(1)} C, above the ${input.maxCRate} C limit you gave: the cells will overheat and deliver less than their rated energy. Check the cell datasheet and the battery calculator.`,
+      );
     const durations = linspace(Math.min(0.25, input.raceDuration_h), Math.max(2 * input.raceDuration_h, 1), 48);
     const budgets = durations.map((t) => energyBudget({ ...input, raceDuration_h: t }));
     const series: SeriesSet = {
@@ -155,6 +186,6 @@ export const energyCalculator: Calculator<EnergyInput, EnergyOutput> = {
         },
       ],
     };
-    return { outputs: { ...b }, series: { duration: series }, warnings };
+    return { outputs: { ...b, averageCRate: cRate }, series: { duration: series }, warnings };
   },
 };

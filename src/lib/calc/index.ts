@@ -1,11 +1,15 @@
+import { batteryCalculator } from './battery';
 import { cableCalculator } from './cable';
 import { coolingCalculator } from './cooling';
 import { energyCalculator } from './energy';
+import { foilCalculator } from './foil';
 import { OutOfRangeError } from './errors';
+import { planingCalculator } from './planing';
 import { propellerCalculator } from './propeller';
 import { raceCalculator } from './race';
 import { resistanceCalculator } from './resistance';
 import { solarCalculator } from './solar';
+import { sprintCalculator } from './sprint';
 import { sweepCalculator } from './sweep';
 import type { CalcResult, Calculator } from './types';
 import { waterCalculator } from './water';
@@ -22,6 +26,12 @@ export const calculators = Object.freeze({
   cable: cableCalculator,
   race: raceCalculator,
   'propeller-sweep': sweepCalculator,
+  // issue 15 (motor envelope, sprint, battery)
+  sprint: sprintCalculator,
+  battery: batteryCalculator,
+  // issue 15 sections 3–4 (planing, foils)
+  planing: planingCalculator,
+  foil: foilCalculator,
 } as const);
 
 export type CalculatorKind = keyof typeof calculators;

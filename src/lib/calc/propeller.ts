@@ -9,6 +9,16 @@ import {
   reynoldsWarning,
   type BSeriesPropeller,
 } from './bseries';
+import {
+  cavitationCheck,
+  cavitationEnv,
+  cavitationInputs,
+  cavitationOutputs,
+  cavitationOutputValues,
+  cavitationSources,
+  cavitationWarnings,
+  type CavitationInput,
+} from './cavitation';
 import { CAUTION_DEFER, CAUTION_PROPELLER, CAUTION_WATER } from './cautions';
 import { OutOfRangeError } from './errors';
 import { int, num, objectSchema } from './fields';
@@ -25,7 +35,7 @@ export interface PropellerGeometry {
   diameter_m: number;
 }
 
-export interface PropellerInput extends PropellerGeometry {
+export interface PropellerInput extends PropellerGeometry, CavitationInput {
   rpm: number;
   speed_mps: number;
   wakeFraction: number;
@@ -41,6 +51,11 @@ export type PropellerOutput = {
   thrust_N: number;
   torque_Nm: number;
   shaftPower_W: number;
+  cavitationNumber: number;
+  thrustLoadingCoefficient: number;
+  burrillLimit: number;
+  burrillLine: string;
+  kellerMinBladeAreaRatio: number;
 };
 
 // Shared by race and propeller-sweep. Schema limits are generic; the B-series range is enforced in compute
@@ -131,6 +146,7 @@ const inputs: InputMeta[] = [
   wakeInput('Operating point'),
   temperatureInput('Water'),
   waterInput('Water'),
+  ...cavitationInputs('Cavitation'),
 ];
 
 /** Beyond about J = 2 the polynomials are far outside the measured range of any series member. */
@@ -185,8 +201,8 @@ export const propellerCalculator: Calculator<PropellerInput, PropellerOutput> = 
   kind: 'propeller',
   title: 'Propeller open-water performance',
   summary:
-    'Thrust, torque, shaft power and efficiency of a Wageningen B-series propeller at one speed and shaft speed, with its open-water chart (K_T, 10·K_Q and η₀ against advance ratio).',
-  engineVersion: '1.0.0',
+    'Thrust, torque, shaft power and efficiency of a Wageningen B-series propeller at one speed and shaft speed, with its open-water chart (K_T, 10·K_Q and η₀ against advance ratio), and Burrill’s and Keller’s cavitation checks at that point.',
+  engineVersion: '1.1.0',
   inputSchema: objectSchema(inputs) as unknown as z.ZodType<PropellerInput>,
   inputs,
   outputs: [
@@ -209,8 +225,9 @@ export const propellerCalculator: Calculator<PropellerInput, PropellerOutput> = 
       digits: 0,
       help: 'P_D = 2π·n·Q, delivered to the propeller.',
     },
+    ...cavitationOutputs('at this operating point'),
   ],
-  sources: propellerSources,
+  sources: [...propellerSources, ...cavitationSources],
   cautions: propellerCautions,
   compute(input) {
     const p = bSeries(input.blades, input.bladeAreaRatio, input.pitchRatio);
@@ -237,6 +254,8 @@ export const propellerCalculator: Calculator<PropellerInput, PropellerOutput> = 
     }
     const rnWarn = reynoldsWarning(reynolds075(p, D, n, vA, water.kinematicViscosity_m2s));
     if (rnWarn) warnings.push(rnWarn);
+    const cav = cavitationCheck(p, D, n, vA, op.thrust_N, cavitationEnv(input, water.density_kgm3));
+    warnings.push(...cavitationWarnings(cav, input.bladeAreaRatio, 'at this operating point'));
     return {
       outputs: {
         advanceRatio: op.advanceRatio,
@@ -246,6 +265,7 @@ export const propellerCalculator: Calculator<PropellerInput, PropellerOutput> = 
         thrust_N: op.thrust_N,
         torque_Nm: op.torque_Nm,
         shaftPower_W: op.shaftPower_W,
+        ...cavitationOutputValues(cav),
       },
       series: { openWater: openWaterSeries(p) },
       warnings,

@@ -1,5 +1,6 @@
 // Race operating point: the speed at which the propeller, turning at whatever rpm gives thrust·(1 − t) equal
-// to the hull resistance, absorbs exactly the average shaft power the energy budget allows.
+// to the hull resistance, absorbs exactly the average shaft power the energy budget allows — or less, when the
+// motor's envelope (power, rpm, torque) stops it first.
 import { z } from 'zod';
 import {
   advanceRatioForLoading,
@@ -11,20 +12,33 @@ import {
   reynoldsWarning,
   type BSeriesPropeller,
 } from './bseries';
+import {
+  cavitationCheck,
+  cavitationEnv,
+  cavitationInputs,
+  cavitationOutputs,
+  cavitationOutputValues,
+  cavitationSources,
+  cavitationWarnings,
+  type CavitationInput,
+} from './cavitation';
 import { CAUTION_BATTERY } from './cautions';
 import { energyBudget, energyInputs, type EnergyInput } from './energy';
 import { OutOfRangeError } from './errors';
 import { num, objectSchema } from './fields';
+import { envelopeInputs, type EnvelopeLimit, type MotorEnvelope } from './motor';
 import { brent, linspace } from './numeric';
 import { geometryInputs, propellerCautions, propellerSources, wakeInput, type PropellerGeometry } from './propeller';
 import { waterProperties } from './properties/water';
 import { hullInputs, hullResistance, resistanceSources, type HullInput } from './resistance';
 import type { Calculator, InputMeta, SeriesSet } from './types';
 
-export interface RaceInput extends HullInput, PropellerGeometry, EnergyInput {
+export interface RaceInput extends HullInput, PropellerGeometry, EnergyInput, MotorEnvelope, CavitationInput {
   wakeFraction: number;
   thrustDeduction: number;
 }
+
+export type RaceLimit = 'energy' | EnvelopeLimit;
 
 export type RaceOutput = {
   speed_mps: number;
@@ -36,6 +50,12 @@ export type RaceOutput = {
   shaftPower_W: number;
   electricalPower_W: number;
   efficiency: number;
+  limitedBy: RaceLimit;
+  cavitationNumber: number;
+  thrustLoadingCoefficient: number;
+  burrillLimit: number;
+  burrillLine: string;
+  kellerMinBladeAreaRatio: number;
 };
 
 export const thrustDeductionInput = (group = 'Propeller'): InputMeta =>
@@ -57,6 +77,8 @@ export const raceInputs = (): InputMeta[] => [
   wakeInput('Propeller'),
   thrustDeductionInput('Propeller'),
   ...energyInputs('Energy budget'),
+  ...envelopeInputs('Motor'),
+  ...cavitationInputs('Cavitation'),
 ];
 
 const inputs = raceInputs();
@@ -109,25 +131,68 @@ export function selfPropulsion(ctx: RaceContext, V: number): SelfPropulsionPoint
   };
 }
 
-/** Speed at which the shaft power needed equals `power` (W); throws OutOfRangeError when none in SPEED_SEARCH. */
-export function solveRaceSpeed(ctx: RaceContext, power: number, powerInput = 'batteryEnergy_Wh'): SelfPropulsionPoint {
+const LIMIT_INPUT: Record<EnvelopeLimit, keyof MotorEnvelope> = {
+  power: 'maxShaftPower_W',
+  rpm: 'maxRpm',
+  torque: 'maxTorque_Nm',
+};
+const LIMIT_WHAT: Record<EnvelopeLimit, string> = { power: 'shaft power', rpm: 'shaft speed', torque: 'torque' };
+
+function limitValue(p: SelfPropulsionPoint, limit: EnvelopeLimit): number {
+  return limit === 'power' ? p.shaftPower : limit === 'rpm' ? p.n * 60 : p.torque;
+}
+
+/**
+ * The race point inside the motor's envelope: the energy budget's speed, or lower where power, rpm or torque
+ * reach the motor's limits first (all three rise with speed along the self-propulsion line).
+ */
+export function solveEnvelopeSpeed(
+  ctx: RaceContext,
+  power: number,
+  env: MotorEnvelope,
+): { op: SelfPropulsionPoint; limitedBy: RaceLimit; energySpeed: number | null } {
   const [vLo, vHi] = SPEED_SEARCH;
   if (!(power > 0))
-    throw new OutOfRangeError(powerInput, 'The energy budget gives no shaft power, so there is no operating point.');
-  const pLo = selfPropulsion(ctx, vLo).shaftPower;
-  if (pLo > power)
     throw new OutOfRangeError(
-      powerInput,
+      'batteryEnergy_Wh',
+      'The energy budget gives no shaft power, so there is no operating point.',
+    );
+  const lo = selfPropulsion(ctx, vLo);
+  if (lo.shaftPower > power)
+    throw new OutOfRangeError(
+      'batteryEnergy_Wh',
       `The budget (${power.toFixed(0)} W at the shaft) is too small to push the boat even at ${vLo} m/s with this propeller.`,
     );
-  const pHi = selfPropulsion(ctx, vHi).shaftPower;
-  if (pHi < power)
+  const limits: EnvelopeLimit[] = ['power', 'rpm', 'torque'];
+  for (const l of limits)
+    if (limitValue(lo, l) > env[LIMIT_INPUT[l]])
+      throw new OutOfRangeError(
+        LIMIT_INPUT[l],
+        `The motor’s ${LIMIT_WHAT[l]} limit is reached below ${vLo} m/s with this propeller: raise it or choose another propeller.`,
+      );
+  const hi = selfPropulsion(ctx, vHi);
+  let top = vHi;
+  let limitedBy: RaceLimit | null = null;
+  let energySpeed: number | null = null;
+  if (hi.shaftPower >= power) {
+    top = brent((v) => selfPropulsion(ctx, v).shaftPower - power, vLo, vHi, 1e-9);
+    energySpeed = top;
+    limitedBy = 'energy';
+  }
+  let atTop = limitedBy ? selfPropulsion(ctx, top) : hi;
+  for (const l of limits) {
+    const cap = env[LIMIT_INPUT[l]];
+    if (limitValue(atTop, l) <= cap) continue;
+    top = brent((v) => limitValue(selfPropulsion(ctx, v), l) - cap, vLo, top, 1e-9);
+    atTop = selfPropulsion(ctx, top);
+    limitedBy = l;
+  }
+  if (limitedBy === null)
     throw new OutOfRangeError(
-      powerInput,
-      `The budget (${power.toFixed(0)} W at the shaft) would drive the boat beyond ${vHi} m/s, outside this model; check the inputs.`,
+      'batteryEnergy_Wh',
+      `The budget (${power.toFixed(0)} W at the shaft) and the motor would drive the boat beyond ${vHi} m/s, outside this model; check the inputs.`,
     );
-  const V = brent((v) => selfPropulsion(ctx, v).shaftPower - power, vLo, vHi, 1e-9);
-  return selfPropulsion(ctx, V);
+  return { op: atTop, limitedBy, energySpeed };
 }
 
 export function raceContext(
@@ -146,12 +211,20 @@ export function raceContext(
   };
 }
 
+/** Sources and cautions shared by race, sprint and the sweep (propeller, hull, cavitation; battery power). */
+export const propulsionSources = [
+  ...propellerSources,
+  ...resistanceSources.filter((s) => !propellerSources.includes(s)),
+  ...cavitationSources,
+];
+export const propulsionCautions = [...propellerCautions.slice(0, 2), CAUTION_BATTERY, propellerCautions[2]];
+
 export const raceCalculator: Calculator<RaceInput, RaceOutput> = {
   kind: 'race',
   title: 'Race speed on the energy budget',
   summary:
-    'The steady speed the energy budget sustains over the race with this hull and propeller: thrust·(1 − t) equals resistance and the shaft power equals the average the budget allows. Wave-making resistance is not included.',
-  engineVersion: '1.0.0',
+    'The steady speed the energy budget sustains over the race with this hull and propeller: thrust·(1 − t) equals resistance and the shaft power equals the average the budget allows, unless the motor’s power, rpm or torque limit stops it first. Cavitation is checked at that point. Wave-making resistance is not included.',
+  engineVersion: '1.1.0',
   inputSchema: objectSchema(inputs) as unknown as z.ZodType<RaceInput>,
   inputs,
   outputs: [
@@ -176,23 +249,33 @@ export const raceCalculator: Calculator<RaceInput, RaceOutput> = {
       help: 'Average battery + solar power over the race.',
     },
     { name: 'efficiency', label: 'Open-water efficiency η₀', unit: '', digits: 3 },
+    {
+      name: 'limitedBy',
+      label: 'Limited by',
+      unit: '',
+      digits: 0,
+      help: 'energy: the budget sets the speed; power, rpm or torque: the motor’s limit is reached first and energy is left over.',
+    },
+    ...cavitationOutputs('at the race point'),
   ],
-  sources: [...propellerSources, ...resistanceSources.filter((s) => !propellerSources.includes(s))],
-  cautions: [...propellerCautions.slice(0, 2), CAUTION_BATTERY, propellerCautions[2]],
+  sources: propulsionSources,
+  cautions: propulsionCautions,
   compute(input) {
     const ctx = raceContext(input);
     const budget = energyBudget(input);
-    const op = solveRaceSpeed(ctx, budget.averageShaftPower_W);
+    const { op, limitedBy, energySpeed } = solveEnvelopeSpeed(ctx, budget.averageShaftPower_W, input);
     const warnings: string[] = [];
     const cov = coverageWarning(input.blades, input.bladeAreaRatio);
     if (cov) warnings.push(cov);
     const vA = op.speed * (1 - input.wakeFraction);
     const rn = reynoldsWarning(reynolds075(ctx.prop, ctx.D, op.n, vA, ctx.nu));
     if (rn) warnings.push(rn);
-    if (op.n * 60 > 6000)
+    if (limitedBy !== 'energy')
       warnings.push(
-        `The propeller would turn at ${(op.n * 60).toFixed(0)} rpm: check that the motor and gearing can reach it.`,
+        `The motor’s ${limitedBy} limit holds the boat to ${op.speed.toFixed(2)} m/s at ${op.shaftPower.toFixed(0)} W on the shaft${energySpeed ? `; the budget alone would allow ${energySpeed.toFixed(2)} m/s` : ''}: energy is left at the finish. A propeller of coarser pitch or larger diameter, or a different gear ratio, may use it.`,
       );
+    const cav = cavitationCheck(ctx.prop, ctx.D, op.n, vA, op.thrust, cavitationEnv(input, ctx.rho));
+    warnings.push(...cavitationWarnings(cav, input.bladeAreaRatio, 'at the race point'));
     const speeds = linspace(0.3 * op.speed, 1.3 * op.speed, 31);
     const need = speeds.map((v) => selfPropulsion(ctx, v).shaftPower);
     const series: SeriesSet = {
@@ -219,6 +302,8 @@ export const raceCalculator: Calculator<RaceInput, RaceOutput> = {
         shaftPower_W: op.shaftPower,
         electricalPower_W: budget.averageElectricalPower_W,
         efficiency: openWaterEfficiency(ctx.prop, op.J),
+        limitedBy,
+        ...cavitationOutputValues(cav),
       },
       series: { power: series },
       warnings,

@@ -1,6 +1,6 @@
 // Hull resistance from the ITTC-1957 friction line with a form factor and appendage drag area.
 // Wave-making and foil lift are not modelled: at displacement speeds of a light, slender solar boat the
-// friction term dominates, but say so on screen.
+// friction term dominates; above Fn 0.4 a warning says so and points to the planing calculator.
 import { z } from 'zod';
 import { OutOfRangeError } from './errors';
 import { num, objectSchema } from './fields';
@@ -30,6 +30,7 @@ export type ResistanceOutput = {
   appendageResistance_N: number;
   totalResistance_N: number;
   effectivePower_W: number;
+  froude: number;
 };
 
 export const hullInputs = (group = 'Hull'): InputMeta[] => [
@@ -102,6 +103,11 @@ export function ittc57(re: number): number {
   return 0.075 / (d * d);
 }
 
+/** Standard gravity, m/s². */
+const G = 9.80665;
+/** Above this Froude number friction-only resistance misses the wave-making part (Froude; common practice). */
+export const FROUDE_FRICTION_LIMIT = 0.4;
+
 /** The line was drawn for turbulent flow from model to ship scale; below this it is meaningless. */
 export const RE_MIN = 1e5;
 
@@ -137,7 +143,7 @@ export const resistanceCalculator: Calculator<ResistanceInput, ResistanceOutput>
   title: 'Hull resistance',
   summary:
     'Frictional resistance from the ITTC-1957 line, scaled by a form factor, plus appendage drag; effective power and a resistance curve against speed. Wave-making resistance is not included.',
-  engineVersion: '1.0.0',
+  engineVersion: '1.1.0',
   inputSchema: objectSchema(inputs) as unknown as z.ZodType<ResistanceInput>,
   inputs,
   outputs: [
@@ -147,6 +153,13 @@ export const resistanceCalculator: Calculator<ResistanceInput, ResistanceOutput>
     { name: 'appendageResistance_N', label: 'Appendage resistance', unit: 'N', digits: 1 },
     { name: 'totalResistance_N', label: 'Total resistance R_T', unit: 'N', digits: 1, help: '(1+k)·R_F + ½ρV²·C_D·A' },
     { name: 'effectivePower_W', label: 'Effective power P_E', unit: 'W', digits: 0, help: 'P_E = R_T·V' },
+    {
+      name: 'froude',
+      label: 'Froude number Fn',
+      unit: '',
+      digits: 3,
+      help: 'V/√(g·L). Above about 0.4 wave-making resistance, which this calculator leaves out, becomes large.',
+    },
   ],
   sources: resistanceSources,
   cautions: [],
@@ -166,6 +179,11 @@ export const resistanceCalculator: Calculator<ResistanceInput, ResistanceOutput>
       );
     if (input.formFactor === 1)
       warnings.push('Form factor 1+k = 1 treats the hull as a flat plate; real hulls have more viscous resistance.');
+    const froude = V / Math.sqrt(G * input.length_m);
+    if (froude > FROUDE_FRICTION_LIMIT)
+      warnings.push(
+        `Froude number ${froude.toFixed(2)} is above 0.4: wave-making resistance, not included here, is large at this speed-length ratio, and a planing hull is supported by dynamic lift. Use the planing hull calculator (Savitsky) for a planing hull.`,
+      );
     const vMin = (RE_MIN * w.kinematicViscosity_m2s) / input.length_m;
     const speeds = linspace(Math.max(vMin, 0.1 * V), 1.5 * V, 31);
     const pts = speeds.map((v) => hullResistance(input, v, w.density_kgm3, w.kinematicViscosity_m2s).total_N);
@@ -185,6 +203,7 @@ export const resistanceCalculator: Calculator<ResistanceInput, ResistanceOutput>
         appendageResistance_N: r.appendage_N,
         totalResistance_N: r.total_N,
         effectivePower_W: r.total_N * V,
+        froude,
       },
       series: { resistance: series },
       warnings,

@@ -1,9 +1,8 @@
-// Solar array output: Ross NOCT cell temperature and the PVWatts linear temperature model.
+// Solar array output: Ross NOCT or Faiman cell temperature and the PVWatts linear temperature model.
 import { z } from 'zod';
-import { num, objectSchema } from './fields';
-import { SRC_PVLIB, SRC_PVWATTS, SRC_ROSS } from './sources';
-import { linspace } from './numeric';
-import type { Calculator, InputMeta, SeriesSet } from './types';
+import { choice, num, objectSchema } from './fields';
+import { SRC_FAIMAN, SRC_PVLIB, SRC_PVLIB_FAIMAN, SRC_PVWATTS, SRC_ROSS } from './sources';
+import type { Calculator, InputMeta } from './types';
 
 export interface SolarInput {
   area_m2: number;
@@ -13,6 +12,10 @@ export interface SolarInput {
   noct_C: number;
   tempCoefficient_perK: number;
   otherLosses: number;
+  windSpeed_mps: number;
+  cellTemperatureModel: 'noct' | 'faiman';
+  faimanU0: number;
+  faimanU1: number;
 }
 
 export type SolarOutput = { cellTemperature_C: number; power_W: number; ratedPower_W: number };
@@ -95,11 +98,61 @@ const inputs: InputMeta[] = [
     group: 'Array',
     help: 'Fraction lost to soiling, mismatch, wiring and MPPT (demo default 0.10).',
   }),
+  choice({
+    name: 'cellTemperatureModel',
+    label: 'Cell temperature model',
+    unit: '',
+    default: 'noct',
+    group: 'Cell temperature',
+    options: [
+      { value: 'noct', label: 'NOCT (Ross)' },
+      { value: 'faiman', label: 'Faiman (with wind)' },
+    ],
+    help: 'NOCT uses the datasheet’s nominal operating cell temperature; Faiman adds the cooling of the wind a moving boat sees.',
+  }),
+  num({
+    name: 'windSpeed_mps',
+    label: 'Wind over the panels',
+    unit: 'm/s',
+    min: 0,
+    max: 30,
+    step: 0.1,
+    default: 1,
+    group: 'Cell temperature',
+    help: 'Air speed over the array (Faiman model): the boat’s own speed plus or minus the wind. 1 m/s is the NOCT condition.',
+  }),
+  num({
+    name: 'faimanU0',
+    label: 'Faiman U₀',
+    unit: 'W/m²K',
+    min: 1,
+    max: 100,
+    step: 0.1,
+    default: 25,
+    group: 'Cell temperature',
+    help: 'Constant heat-loss coefficient (Faiman 2008: 25.0 W/m²K for open-rack modules; lower for panels flush on a deck).',
+  }),
+  num({
+    name: 'faimanU1',
+    label: 'Faiman U₁',
+    unit: 'W·s/m³K',
+    min: 0,
+    max: 50,
+    step: 0.01,
+    default: 6.84,
+    group: 'Cell temperature',
+    help: 'Wind heat-loss coefficient (Faiman 2008: 6.84 W·s/m³K).',
+  }),
 ];
 
 /** Ross (1981): T_c = T_a + (NOCT − 20)/800 · G. */
 export function rossCellTemperature(G: number, Ta: number, noct: number): number {
   return Ta + ((noct - 20) / 800) * G;
+}
+
+/** Faiman (2008): T_c = T_a + G/(U₀ + U₁·v). */
+export function faimanCellTemperature(G: number, Ta: number, wind: number, u0 = 25, u1 = 6.84): number {
+  return Ta + G / (u0 + u1 * wind);
 }
 
 /** PVWatts v5 DC model: P = P_STC · G/1000 · (1 + γ(T_c − 25)). */
@@ -111,8 +164,7 @@ export const solarCalculator: Calculator<SolarInput, SolarOutput> = {
   kind: 'solar',
   title: 'Solar array output',
   summary:
-    'Cell temperature from the NOCT model and array DC power from irradiance, area, efficiency and temperature coefficient.',
-  // 1.1.0: array power and cell temperature against irradiance, as a chart.
+    'Cell temperature from the NOCT model or from Faiman’s model with the wind over the panels, and array DC power from irradiance, area, efficiency and temperature coefficient.',
   engineVersion: '1.1.0',
   inputSchema: objectSchema(inputs) as unknown as z.ZodType<SolarInput>,
   inputs,
@@ -121,40 +173,34 @@ export const solarCalculator: Calculator<SolarInput, SolarOutput> = {
     { name: 'power_W', label: 'Array power', unit: 'W', digits: 0, help: 'After temperature and other losses.' },
     { name: 'ratedPower_W', label: 'Rated power P_STC', unit: 'W', digits: 0, help: 'area × efficiency × 1000 W/m²' },
   ],
-  sources: [SRC_ROSS, SRC_PVWATTS, SRC_PVLIB],
+  sources: [SRC_ROSS, SRC_FAIMAN, SRC_PVWATTS, SRC_PVLIB, SRC_PVLIB_FAIMAN],
   cautions: [],
   compute(input) {
     const pStc = input.area_m2 * input.moduleEfficiency * 1000;
-    const Tc = rossCellTemperature(input.irradiance_Wm2, input.ambient_C, input.noct_C);
+    const faiman = input.cellTemperatureModel === 'faiman';
+    const Tc = faiman
+      ? faimanCellTemperature(
+          input.irradiance_Wm2,
+          input.ambient_C,
+          input.windSpeed_mps,
+          input.faimanU0,
+          input.faimanU1,
+        )
+      : rossCellTemperature(input.irradiance_Wm2, input.ambient_C, input.noct_C);
     const pDc = Math.max(0, pvwattsDc(input.irradiance_Wm2, Tc, pStc, input.tempCoefficient_perK));
     const warnings = [
-      'Deck-mounted panels are not in the open-rack condition NOCT is measured in: with little air behind them they run hotter than NOCT predicts, so raise NOCT (or measure the cell temperature) for a flush-mounted array.',
+      faiman
+        ? 'Faiman’s U₀ and U₁ were fitted to open-rack modules: a panel flush on a deck loses heat from one face only, so lower U₀ (or measure the cell temperature) for a flush-mounted array.'
+        : 'Deck-mounted panels are not in the open-rack condition NOCT is measured in: with little air behind them they run hotter than NOCT predicts, so raise NOCT (or measure the cell temperature) for a flush-mounted array.',
     ];
+    if (!faiman && input.windSpeed_mps > 2)
+      warnings.push(
+        'The NOCT model ignores the wind speed given; choose the Faiman model to include the cooling of the air over a moving boat.',
+      );
     if (input.irradiance_Wm2 > 1100)
       warnings.push('Irradiance above 1100 W/m² is unusual outside brief cloud-edge peaks; check the value.');
-    const power = (G: number) =>
-      Math.max(
-        0,
-        pvwattsDc(G, rossCellTemperature(G, input.ambient_C, input.noct_C), pStc, input.tempCoefficient_perK),
-      ) *
-      (1 - input.otherLosses);
-    const irradiances = linspace(0, Math.max(1200, input.irradiance_Wm2), 49);
-    const series: SeriesSet = {
-      title: 'Array power and cell temperature against irradiance (same air temperature)',
-      x: { name: 'irradiance_Wm2', label: 'Irradiance G', unit: 'W/m²', values: irradiances },
-      y: [
-        { name: 'power_W', label: 'Array power', unit: 'W', values: irradiances.map(power) },
-        {
-          name: 'cellTemperature_C',
-          label: 'Cell temperature',
-          unit: '°C',
-          values: irradiances.map((G) => rossCellTemperature(G, input.ambient_C, input.noct_C)),
-        },
-      ],
-    };
     return {
       outputs: { cellTemperature_C: Tc, power_W: pDc * (1 - input.otherLosses), ratedPower_W: pStc },
-      series: { irradiance: series },
       warnings,
     };
   },

@@ -85,13 +85,88 @@ export const SRC_FLUIDS: Source = {
     'C. Bell et al., "fluids" Python library documentation, fluids.friction (friction_factor, Colebrook, Haaland, Swamee_Jain examples).',
   use: 'Reference values for the friction-factor correlations.',
 };
-export const SRC_ASHRAE_EG: Source = {
+
+// ---- Issue 15, sections 3, 4 and 6 (planing, foil, cable, coolant, solar) ----
+
+export const SRC_SAVITSKY64: Source = {
   citation:
-    'ASHRAE Handbook—Fundamentals, ch. 31 "Physical Properties of Secondary Coolants (Brines)", density of aqueous ethylene glycol solutions by volume (lb/ft³), as reproduced in Viega Design Manual IM-PR 566442 1114, Table 5-16.',
-  use: 'Density of a 50 % (by volume) ethylene-glycol coolant.',
+    'D. Savitsky (1964), "Hydrodynamic Design of Planing Hulls", Marine Technology 1(1), 71–95: Eqs. 15–16 (lift with deadrise), the mean bottom velocity, Eq. 31 (centre of pressure) and Table 1 (computational procedure, all forces through the centre of gravity); range 0.60 ≤ C_V ≤ 13, 2° ≤ τ ≤ 15°, λ ≤ 4.',
+  use: 'Equilibrium trim, wetted length and resistance of a prismatic planing hull (friction here from the ITTC-1957 line instead of the paper’s Schoenherr line with roughness allowance).',
 };
-export const SRC_ETB_EG: Source = {
+export const SRC_HELMBOLD: Source = {
   citation:
-    'The Engineering ToolBox, "Ethylene Glycol Heat-Transfer Fluid", table of dynamic viscosity of ethylene glycol solutions (% by volume).',
-  use: 'Viscosity of a 50 % (by volume) ethylene-glycol coolant for the pipe Reynolds number.',
+    'H.B. Helmbold (1942), "Der unverwundene Ellipsenflügel als tragende Wirbelfläche", Jahrbuch der Deutschen Luftfahrtforschung, I 111–113; as given in D.P. Raymer, "Aircraft Design: A Conceptual Approach" (lift-curve slope of a finite wing, A ≥ 0).',
+  use: 'Lift-curve slope of a finite foil a = 2πA/(2 + √(A² + 4)) per radian.',
+};
+export const SRC_PRANDTL_INDUCED: Source = {
+  citation:
+    'L. Prandtl (1918), lifting-line theory; induced drag C_Di = C_L²/(π e A) with span efficiency e, as in J.D. Anderson, "Fundamentals of Aerodynamics", ch. 5.',
+  use: 'Induced drag of the foil.',
+};
+export const SRC_IF97_SAT: Source = {
+  citation:
+    'IAPWS R7-97(2012), "Revised Release on the IAPWS Industrial Formulation 1997 for the Thermodynamic Properties of Water and Steam", Eq. 30 (saturation pressure) and Table 35 (check values).',
+  use: 'Vapour pressure of water for the cavitation number.',
+};
+export const SRC_CAVITATION_INCEPTION: Source = {
+  citation:
+    'J.S. Carlton (2012), "Marine Propellers and Propulsion", 3rd ed., ch. 9 (cavitation inception when the cavitation number σ falls below the section’s −C_p,min).',
+  use: 'Cavitation check of the foil’s suction peak (σ = (p_atm + ρgh − p_v)/(½ρV²)).',
+};
+export const SRC_IEC60228: Source = {
+  citation:
+    'IEC 60228:2004, "Conductors of insulated cables", Table 1 (class 1 solid conductors) and Table 2 (class 2 stranded conductors): maximum resistance of plain annealed copper conductors at 20 °C, Ω/km.',
+  use: 'Conductor resistance per nominal cross-section at 20 °C, corrected to the conductor temperature with α₂₀ = 0.00393 /K.',
+};
+export const SRC_MELINDER: Source = {
+  citation:
+    'Å. Melinder (2010), "Properties of Secondary Working Fluids for Indirect Systems", International Institute of Refrigeration, ethylene glycol–water polynomial coefficients (mass fraction 0–60 %, base point 30.8462 %, 31.728 °C); Å. Melinder (2007), "Thermophysical Properties of Aqueous Solutions Used as Secondary Working Fluids", doctoral thesis, KTH Stockholm.',
+  use: 'Density, specific heat, viscosity and freezing point of ethylene glycol–water coolant by mass fraction.',
+};
+export const SRC_SCP: Source = {
+  citation:
+    'M. Mitchell et al., SecondaryCoolantProps (Python library, National Renewable Energy Laboratory), scp.ethylene_glycol and its test suite tests/test_ethlylene_glycol.py.',
+  use: 'Independent implementation of Melinder’s correlation; check values.',
+};
+export const SRC_FAIMAN: Source = {
+  citation:
+    'D. Faiman (2008), "Assessing the outdoor operating temperature of photovoltaic modules", Progress in Photovoltaics 16(4), 307–315: T_c = T_a + G/(U₀ + U₁·v), U₀ = 25.0 W/m²K, U₁ = 6.84 W·s/m³K.',
+  use: 'Cell temperature with the wind speed the panel sees.',
+};
+export const SRC_PVLIB_FAIMAN: Source = {
+  citation:
+    'pvlib-python, pvlib.temperature.faiman and its tests test_temperature.py::test_faiman_default, test_faiman_kwargs, test_faiman_list (W.F. Holmgren, C.W. Hansen & M.A. Mikofski (2018), J. Open Source Software 3(29), 884).',
+  use: 'Independent implementation and test vectors of the Faiman model.',
+};
+
+// --- issue 15, sections 1, 2 and 5 (motor envelope, sprint, cavitation, battery pack) ---
+export const SRC_IF97_PSAT: Source = {
+  citation:
+    'IAPWS R7-97(2012), "Revised Release on the IAPWS Industrial Formulation 1997 for the Thermodynamic Properties of Water and Steam", region 4 saturation-pressure equation (Eqs. 29–30, Table 34; verification values Table 35).',
+  use: 'Vapour pressure of water for the cavitation number.',
+};
+export const SRC_SHARQAWY_PV: Source = {
+  citation:
+    'M.H. Sharqawy, J.H. Lienhard V & S.M. Zubair (2010), "Thermophysical properties of seawater: a review of existing correlations and data", Desalination and Water Treatment 16, 354–380, Eq. 6 (after R.A. Robinson 1954).',
+  use: 'Vapour pressure of seawater relative to pure water.',
+};
+export const SRC_BURRILL: Source = {
+  citation:
+    'L.C. Burrill (1943), "Developments in propeller design and manufacture for merchant ships", Trans. Institution of Engineers and Shipbuilders in Scotland 86; L.C. Burrill & A. Emerson (1963), "Propeller cavitation: further tests on 16 in. propeller models in the King’s College cavitation tunnel", Trans. North East Coast Institution of Engineers and Shipbuilders 79, 295–320; as reproduced in J. Carlton, "Marine Propellers and Propulsion", Butterworth-Heinemann (cavitation chapter). Limit line used: 5 % back cavitation, τ_c = 0.1082·ln σ₀.₇R + 0.2675 for 0.16 ≤ σ₀.₇R ≤ 1.5 (logarithmic fit of the diagram’s line published in the open-source heliceb-automation propeller tool, cavitation.py).',
+  use: 'Thrust loading coefficient τ_c = T/(A_P·½ρV_R²) with A_P = A_D(1.067 − 0.229·P/D), and its limit at the cavitation number σ₀.₇R.',
+};
+export const SRC_KELLER: Source = {
+  citation:
+    'J. auf’m Keller (1966), "Enige aspecten bij het ontwerpen van scheepsschroeven", Schip en Werf 33; as given in J. Carlton, "Marine Propellers and Propulsion", Butterworth-Heinemann (blade area selection), and in G. Kuiper (1992), "The Wageningen Propeller Series", MARIN publication 92-001.',
+  use: 'Minimum blade area ratio A_E/A_0 = (1.3 + 0.3·Z)·T/((p_atm + ρgh − p_v)·D²) + k.',
+};
+export const SRC_BATTERY_ECM: Source = {
+  citation:
+    'G.L. Plett (2015), "Battery Management Systems, Volume I: Battery Modeling", Artech House, ch. 2 (equivalent-circuit cell: terminal voltage = open-circuit voltage − i·R₀); cells in series add voltage and resistance, strings in parallel divide resistance and add capacity.',
+  use: 'Pack voltage, resistance, current for a power load from P = I·(V − I·R), heat I²R.',
+};
+export const SRC_QUADRATIC_DRAG: Source = {
+  citation:
+    'Standing start with constant thrust and quadratic drag, v(t) = v_t·tanh(t/τ), x(t) = v_t·τ·ln cosh(t/τ) (closed form used to check the integrator; e.g. J.R. Taylor (2005), "Classical Mechanics", University Science Books, §2.4).',
+  use: 'Check of the time integration of m·dv/dt = T(1 − t) − R.',
 };

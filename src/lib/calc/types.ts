@@ -57,14 +57,19 @@ export interface Grid {
   y: Axis;
   /** values are [yIndex][xIndex] */
   z: { name: string; label: string; unit: string; values: (number | null)[][] };
-  /** Cells to point out, e.g. the best of each objective; x and y are values of the axes. */
-  marks?: { x: number; y: number; label: string; symbol: string }[];
+  /** cells that fail a check ([yIndex][xIndex]); shown greyed out, with `failedLabel` saying why */
+  failed?: boolean[][];
+  failedLabel?: string;
+  /** cells to mark, e.g. the best pick, by their x and y values */
+  picks?: { x: number; y: number; label: string }[];
 }
 
 export interface CalcResult<O> {
   outputs: O;
   series?: Record<string, SeriesSet>;
   grid?: Grid;
+  /** further grids, shown after `grid` */
+  grids?: Grid[];
   warnings: string[];
 }
 

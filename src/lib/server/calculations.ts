@@ -1,5 +1,5 @@
-import { and, desc, eq, inArray, isNull, lt, notInArray, or, type SQL } from 'drizzle-orm';
-import { db } from './db/client';
+import { and, desc, eq, inArray, isNull, lt, notInArray, or, sql, type SQL } from 'drizzle-orm';
+import { db, prepared } from './db/client';
 import { calculations, calculationResults, recordCalculations, records, seasons, subsystems, users } from './db/schema';
 import { getCalculator, runCalculator, type CalcResult } from '../calc';
 import { OutOfRangeError } from '../calc/errors';
@@ -42,6 +42,7 @@ export interface CalculationView {
   warnings: string[];
   series: CalcResult<Outputs>['series'] | null;
   grid: CalcResult<Outputs>['grid'] | null;
+  grids: NonNullable<CalcResult<Outputs>['grids']>;
   engineVersion: string;
   currentEngineVersion: string | null;
   computedAt: string;
@@ -117,7 +118,7 @@ function insertResult(
       calculationId,
       engineVersion: run.engineVersion,
       outputs: run.result.outputs,
-      series: { series: run.result.series ?? null, grid: run.result.grid ?? null },
+      series: { series: run.result.series ?? null, grid: run.result.grid ?? null, grids: run.result.grids ?? [] },
       warnings: run.result.warnings,
       computedById: actorId,
       computedAt: at,
@@ -289,6 +290,7 @@ export function getCalculation(id: string): CalculationView | null {
     warnings: latest?.warnings ?? [],
     series: stored?.series ?? null,
     grid: stored?.grid ?? null,
+    grids: stored?.grids ?? [],
     engineVersion: latest?.engineVersion ?? '',
     currentEngineVersion: getCalculator(c.kind)?.engineVersion ?? null,
     computedAt: (latest?.computedAt ?? c.createdAt).toISOString(),
@@ -318,6 +320,43 @@ export interface CalculationListItem {
   url: string;
 }
 
+const p = (name: string) => sql.placeholder(name);
+
+/** One prepared statement per combination of filters (at most 16), with the values as parameters. */
+function calculationListQuery(shape: { subsystem: boolean; season: boolean; kind: boolean; cursor: boolean }) {
+  const key = `calculations.list:${Object.values(shape).map(Number).join('')}`;
+  return prepared(key, (d) => {
+    const where: (SQL | undefined)[] = [isNull(calculations.deletedAt)];
+    if (shape.subsystem) where.push(eq(calculations.subsystemSlug, p('subsystem')));
+    if (shape.season) where.push(eq(calculations.seasonId, p('season')));
+    if (shape.kind) where.push(eq(calculations.kind, p('kind')));
+    if (shape.cursor)
+      where.push(
+        or(lt(calculations.createdAt, p('at')), and(eq(calculations.createdAt, p('at')), lt(calculations.id, p('id')))),
+      );
+    return d
+      .select({
+        id: calculations.id,
+        kind: calculations.kind,
+        title: calculations.title,
+        subsystem: calculations.subsystemSlug,
+        subsystemName: subsystems.name,
+        seasonId: calculations.seasonId,
+        season: seasons.name,
+        author: users.name,
+        createdAt: calculations.createdAt,
+      })
+      .from(calculations)
+      .innerJoin(subsystems, eq(subsystems.slug, calculations.subsystemSlug))
+      .innerJoin(seasons, eq(seasons.id, calculations.seasonId))
+      .leftJoin(users, eq(users.id, calculations.authorId))
+      .where(and(...where))
+      .orderBy(desc(calculations.createdAt), desc(calculations.id))
+      .limit(p('limit'))
+      .prepare();
+  });
+}
+
 export function listCalculations(q: {
   subsystem?: string;
   season?: string;
@@ -325,35 +364,17 @@ export function listCalculations(q: {
   limit: number;
   cursor?: string;
 }) {
-  const where: (SQL | undefined)[] = [isNull(calculations.deletedAt)];
-  if (q.subsystem) where.push(eq(calculations.subsystemSlug, q.subsystem));
-  if (q.season) where.push(eq(calculations.seasonId, q.season));
-  if (q.kind) where.push(eq(calculations.kind, q.kind));
   const c = decodeCursor(q.cursor);
-  if (c) {
-    const at = new Date(c.at);
-    where.push(or(lt(calculations.createdAt, at), and(eq(calculations.createdAt, at), lt(calculations.id, c.id))));
-  }
-  const rows = db()
-    .select({
-      id: calculations.id,
-      kind: calculations.kind,
-      title: calculations.title,
-      subsystem: calculations.subsystemSlug,
-      subsystemName: subsystems.name,
-      seasonId: calculations.seasonId,
-      season: seasons.name,
-      author: users.name,
-      createdAt: calculations.createdAt,
-    })
-    .from(calculations)
-    .innerJoin(subsystems, eq(subsystems.slug, calculations.subsystemSlug))
-    .innerJoin(seasons, eq(seasons.id, calculations.seasonId))
-    .leftJoin(users, eq(users.id, calculations.authorId))
-    .where(and(...where))
-    .orderBy(desc(calculations.createdAt), desc(calculations.id))
-    .limit(q.limit + 1)
-    .all();
+  const shape = { subsystem: !!q.subsystem, season: !!q.season, kind: !!q.kind, cursor: !!c };
+  // Placeholders reach SQLite as given: timestamps are stored as milliseconds, like the cursor carries them.
+  const rows = calculationListQuery(shape).all({
+    subsystem: q.subsystem,
+    season: q.season,
+    kind: q.kind,
+    at: c?.at,
+    id: c?.id,
+    limit: q.limit + 1,
+  });
   const page: CalculationListItem[] = rows
     .slice(0, q.limit)
     .map((r) => ({ ...r, createdAt: r.createdAt.toISOString(), url: `/calculations/${r.id}` }));

@@ -48,11 +48,14 @@ function allGuides(): Promise<GuideEntry[]> {
   return all;
 }
 
+// One collator for every sort (String#localeCompare builds its comparison anew on each call).
+const byText = new Intl.Collator().compare;
+
 export async function listGuides(subsystem?: string): Promise<GuideSummary[]> {
   const entries = (await allGuides()).filter((e) => !subsystem || e.data.subsystem === subsystem);
   return entries
     .map((e) => toGuideSummary(e))
-    .sort((a, b) => a.subsystem.localeCompare(b.subsystem) || a.order - b.order || a.title.localeCompare(b.title));
+    .sort((a, b) => byText(a.subsystem, b.subsystem) || a.order - b.order || byText(a.title, b.title));
 }
 
 export async function findGuide(slug: string): Promise<GuideEntry | undefined> {

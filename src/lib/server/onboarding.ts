@@ -93,19 +93,25 @@ async function resolve(refs: { kind: ItemKind; ref: string }[]): Promise<Map<str
   return out;
 }
 
-/** A subsystem's route with each item resolved, shared by everyone until the next write. */
-function routeItems(slug: string): Promise<Omit<RouteItem, 'done'>[]> {
-  return memoUntilWrite(`onboarding.route:${slug}`, async () => {
+type ResolvedItem = Omit<RouteItem, 'done'>;
+
+/**
+ * Every subsystem's route with each item resolved (one query, one lookup of what the items point at), shared by
+ * everyone until the next write: a page that shows the progress of every route probes the write generation once.
+ */
+function allRouteItems(): Promise<Map<string, ResolvedItem[]>> {
+  return memoUntilWrite('onboarding.routes', async () => {
     const rows = db()
       .select()
       .from(onboardingItems)
-      .where(eq(onboardingItems.subsystemSlug, slug))
-      .orderBy(asc(onboardingItems.position))
+      .orderBy(asc(onboardingItems.subsystemSlug), asc(onboardingItems.position))
       .all();
     const resolved = await resolve(rows.map((r) => ({ kind: r.kind, ref: r.ref })));
-    return rows.map((r) => {
+    const out = new Map<string, ResolvedItem[]>();
+    for (const r of rows) {
       const x = resolved.get(`${r.kind}:${r.ref}`);
-      return {
+      const list = out.get(r.subsystemSlug) ?? [];
+      list.push({
         id: r.id,
         kind: r.kind,
         ref: r.ref,
@@ -114,8 +120,10 @@ function routeItems(slug: string): Promise<Omit<RouteItem, 'done'>[]> {
         url: x?.url ?? null,
         exists: !!x,
         seasonId: x?.seasonId ?? null,
-      };
-    });
+      });
+      out.set(r.subsystemSlug, list);
+    }
+    return out;
   });
 }
 
@@ -138,12 +146,15 @@ function ticked(userId: string): Set<string> {
   );
 }
 
-export async function getRoute(slug: string, userId: string | null): Promise<RouteView> {
-  if (!findSubsystem(slug)) throw notFound('That subsystem');
-  const done = userId ? ticked(userId) : new Set<string>();
-  const items: RouteItem[] = (await routeItems(slug)).map((i) => ({ ...i, done: done.has(i.id) }));
+function routeView(slug: string, routes: Map<string, ResolvedItem[]>, done: Set<string>): RouteView {
+  const items: RouteItem[] = (routes.get(slug) ?? []).map((i) => ({ ...i, done: done.has(i.id) }));
   const live = items.filter((i) => i.exists);
   return { subsystem: slug, items, progress: { done: live.filter((i) => i.done).length, total: live.length } };
+}
+
+export async function getRoute(slug: string, userId: string | null): Promise<RouteView> {
+  if (!findSubsystem(slug)) throw notFound('That subsystem');
+  return routeView(slug, await allRouteItems(), userId ? ticked(userId) : new Set<string>());
 }
 
 /** Replaces a route. Items that stay keep their ids, so people's ticks survive a reorder. */
@@ -218,8 +229,10 @@ export function setProgress(slug: string, userId: string, itemId: string, done: 
 /** Route progress of one person across all subsystems that have a route. */
 export async function progressOf(userId: string) {
   const out: { slug: string; name: string; done: number; total: number }[] = [];
+  const routes = await allRouteItems();
+  const done = ticked(userId);
   for (const s of listSubsystems()) {
-    const r = await getRoute(s.slug, userId);
+    const r = routeView(s.slug, routes, done);
     if (r.progress.total > 0) out.push({ slug: s.slug, name: s.name, ...r.progress });
   }
   return out;
@@ -235,10 +248,12 @@ export async function progressTable(seasonId: string) {
     .orderBy(asc(users.name))
     .all();
   const subsystems = listSubsystems();
+  const routes = await allRouteItems();
   const rows = [];
   for (const p of people) {
     const cells = [];
-    for (const s of subsystems) cells.push({ slug: s.slug, ...(await getRoute(s.slug, p.id)).progress });
+    const done = ticked(p.id);
+    for (const s of subsystems) cells.push({ slug: s.slug, ...routeView(s.slug, routes, done).progress });
     rows.push({ ...p, cells });
   }
   return { subsystems, rows };

@@ -1,5 +1,5 @@
-import { asc, eq } from 'drizzle-orm';
-import { db } from './db/client';
+import { asc, eq, sql } from 'drizzle-orm';
+import { db, prepared } from './db/client';
 import type { Role } from '../domain';
 import { users, seasons, seasonMemberships, membershipSubsystems, subsystems } from './db/schema';
 
@@ -82,14 +82,16 @@ export function listPeople(): PersonView[] {
 
 /** Who owns each subsystem in one season: slug → names. */
 export function ownersBySubsystem(seasonId: string): Map<string, { id: string; name: string }[]> {
-  const rows = db()
-    .select({ slug: membershipSubsystems.subsystemSlug, id: users.id, name: users.name })
-    .from(membershipSubsystems)
-    .innerJoin(seasonMemberships, eq(seasonMemberships.id, membershipSubsystems.membershipId))
-    .innerJoin(users, eq(users.id, seasonMemberships.userId))
-    .where(eq(seasonMemberships.seasonId, seasonId))
-    .orderBy(asc(users.name))
-    .all();
+  const rows = prepared('people.ownersBySubsystem', (d) =>
+    d
+      .select({ slug: membershipSubsystems.subsystemSlug, id: users.id, name: users.name })
+      .from(membershipSubsystems)
+      .innerJoin(seasonMemberships, eq(seasonMemberships.id, membershipSubsystems.membershipId))
+      .innerJoin(users, eq(users.id, seasonMemberships.userId))
+      .where(eq(seasonMemberships.seasonId, sql.placeholder('seasonId')))
+      .orderBy(asc(users.name))
+      .prepare(),
+  ).all({ seasonId });
   const out = new Map<string, { id: string; name: string }[]>();
   for (const r of rows) out.set(r.slug, [...(out.get(r.slug) ?? []), { id: r.id, name: r.name }]);
   return out;

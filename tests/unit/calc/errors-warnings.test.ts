@@ -73,7 +73,11 @@ describe('warnings where specified', () => {
     expect(warnings('propeller-sweep', {})).toMatch(/[Cc]avitation/);
   });
 
-  it('glycol coolant warns that its specific heat is from memory', () => {
-    expect(warnings('cooling', { coolant: 'glycol50' })).toMatch(/from memory/);
+  it('glycol coolant properties come from a published correlation now, so no memory warning remains (issue 15)', () => {
+    expect(warnings('cooling', { coolant: 'glycol50' })).not.toMatch(/memory/);
+    expect(calculators.cooling.sources.map((s) => s.citation).join(' ')).toMatch(/Melinder \(2010\)/);
+  });
+  it('a weak glycol mix warns about frost and corrosion protection (common practice)', () => {
+    expect(warnings('cooling', { coolant: 'glycol', glycolFraction: 0.1 })).toMatch(/frost protection/);
   });
 });

@@ -7,14 +7,18 @@ const kinds = calculatorKinds;
 describe('every calculator', () => {
   it('is registered under its own kind', () => {
     expect([...kinds].sort()).toEqual([
+      'battery',
       'cable',
       'cooling',
       'energy',
+      'foil',
+      'planing',
       'propeller',
       'propeller-sweep',
       'race',
       'resistance',
       'solar',
+      'sprint',
       'water',
     ]);
     for (const k of kinds) expect(getCalculator(k)?.kind).toBe(k);
@@ -25,12 +29,15 @@ describe('every calculator', () => {
   for (const kind of kinds) {
     const calc = calculators[kind];
     describe(kind, () => {
-      it('runs on {} with its defaults, giving finite numbers or null for every declared output', () => {
+      it('runs on {} with its defaults, giving finite numbers, text or null for every declared output', () => {
         const r = runCalculator(kind, {});
         if (!r.ok) throw new Error(JSON.stringify(r));
         for (const o of calc.outputs) {
           const v = r.result.outputs[o.name];
-          expect(v === null || (typeof v === 'number' && Number.isFinite(v)), `${o.name} = ${v}`).toBe(true);
+          expect(
+            v === null || (typeof v === 'number' && Number.isFinite(v)) || (typeof v === 'string' && v.length > 0),
+            `${o.name} = ${v}`,
+          ).toBe(true);
         }
         expect(Object.keys(r.result.outputs).sort()).toEqual(calc.outputs.map((o) => o.name).sort());
         expect(r.engineVersion).toMatch(/^\d+\.\d+\.\d+$/);
@@ -136,12 +143,24 @@ describe('every calculator', () => {
   });
 
   it('cautions are present where people can get hurt', () => {
-    for (const k of ['propeller', 'race', 'propeller-sweep', 'energy', 'cable', 'cooling'] as const) {
+    for (const k of [
+      'propeller',
+      'race',
+      'propeller-sweep',
+      'energy',
+      'cable',
+      'cooling',
+      'sprint',
+      'battery',
+    ] as const) {
       expect(calculators[k].cautions.length, k).toBeGreaterThan(0);
       expect(calculators[k].cautions.join(' '), k).toMatch(/race rules|qualified/);
     }
     expect(calculators.propeller.cautions.join(' ')).toMatch(/propeller/i);
     expect(calculators.cooling.cautions.join(' ')).toMatch(/pressure/i);
     expect(calculators.cable.cautions.join(' ')).toMatch(/fuse/i);
+    expect(calculators.sprint.cautions.join(' ')).toMatch(/propeller/i);
+    expect(calculators.battery.cautions.join(' ')).toMatch(/fuse/i);
+    expect(calculators.battery.cautions.join(' ')).toMatch(/thermal runaway/i);
   });
 });

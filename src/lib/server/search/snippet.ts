@@ -2,7 +2,7 @@
 // every row it quotes (1–50 ms for ten rows of a 50,000-document index, see the decision record), while the ten
 // hits' text is a rowid lookup away. Words are matched with the same folding as the index (./tokens). The output is
 // HTML: every piece of stored text is escaped, and only our own <mark> elements are added.
-import { foldCase } from './tokens';
+import { foldCase, isAscii } from './tokens';
 
 export interface Highlighter {
   /** Folded terms matched whole. */
@@ -23,6 +23,10 @@ const clean = (s: string) => s.replace(CONTROL, '').replace(/\s+/g, ' ');
 
 // Marks stay in a word so "naïve" is one word, as FTS5 sees it.
 const WORD = /[\p{L}\p{N}\p{Co}][\p{L}\p{N}\p{Co}\p{M}]*/gu;
+// The same words in lower-cased plain ASCII text (no marks or private-use characters there).
+const ASCII_WORD = /[a-z0-9]+/g;
+
+const NON_ASCII = /[^\u0000-\u007f]/;
 
 interface Word {
   start: number;
@@ -31,8 +35,8 @@ interface Word {
   hit: string | null;
 }
 
-function matchOf(word: string, h: Highlighter): string | null {
-  const w = foldCase(word);
+/** The query term a folded word matches, or null. */
+function matchOf(w: string, h: Highlighter): string | null {
   if (h.exact.has(w)) return w;
   for (const p of h.prefixes) if (w.startsWith(p)) return p;
   return null;
@@ -40,7 +44,20 @@ function matchOf(word: string, h: Highlighter): string | null {
 
 function words(text: string, h: Highlighter): Word[] {
   const out: Word[] = [];
-  for (const m of text.matchAll(WORD)) out.push({ start: m.index, end: m.index + m[0].length, hit: matchOf(m[0], h) });
+  // The text is lower-cased once rather than word by word. Lower-casing never shortens a string, so when the length
+  // is kept every offset is too (else each word is folded on its own); only words with non-ASCII letters still need
+  // their marks removed.
+  const lower = text.toLowerCase();
+  const sameOffsets = lower.length === text.length;
+  if (sameOffsets && isAscii(text)) {
+    for (const m of lower.matchAll(ASCII_WORD))
+      out.push({ start: m.index, end: m.index + m[0].length, hit: matchOf(m[0], h) });
+    return out;
+  }
+  for (const m of (sameOffsets ? lower : text).matchAll(WORD)) {
+    const w = sameOffsets && !NON_ASCII.test(m[0]) ? m[0] : foldCase(m[0]);
+    out.push({ start: m.index, end: m.index + m[0].length, hit: matchOf(w, h) });
+  }
   return out;
 }
 

@@ -39,7 +39,11 @@ export const calculationResults = sqliteTable(
       .references(() => calculations.id, { onDelete: 'cascade' }),
     engineVersion: text().notNull(),
     outputs: text({ mode: 'json' }).$type<Record<string, unknown>>().notNull(),
-    series: text({ mode: 'json' }).$type<{ series?: Record<string, SeriesSet> | null; grid?: Grid | null }>(),
+    series: text({ mode: 'json' }).$type<{
+      series?: Record<string, SeriesSet> | null;
+      grid?: Grid | null;
+      grids?: Grid[];
+    }>(),
     warnings: text({ mode: 'json' }).$type<string[]>().notNull(),
     computedById: text().references(() => users.id, { onDelete: 'set null' }),
     computedAt: timestamp().notNull(),
