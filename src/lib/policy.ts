@@ -31,6 +31,7 @@ export type Action =
   | 'attachment:upload'
   | 'calculation:create'
   | 'calculation:recompute'
+  | 'calculation:edit' // rename, re-note, move to another subsystem, delete
   | 'onboarding:curate'
   | 'onboarding:follow'
   | 'onboarding:see-all'
@@ -50,6 +51,7 @@ export interface Subject {
 type Rule = boolean | ((subject: Subject) => boolean);
 const currentSeasonOnly: Rule = (s) => s.seasonIsCurrent === true;
 const ownOnly: Rule = (s) => s.isOwn === true;
+const ownInCurrentSeason: Rule = (s) => s.seasonIsCurrent === true && s.isOwn === true;
 
 const POLICY: Record<Role, Partial<Record<Action, Rule>>> = {
   lead: {}, // leads may do everything; see can()
@@ -80,6 +82,7 @@ const POLICY: Record<Role, Partial<Record<Action, Rule>>> = {
     'attachment:upload': currentSeasonOnly,
     'calculation:create': currentSeasonOnly,
     'calculation:recompute': currentSeasonOnly,
+    'calculation:edit': ownInCurrentSeason,
     'onboarding:follow': true,
     'guide:suggest': true,
   },
@@ -126,6 +129,7 @@ export const ALL_ACTIONS: Action[] = [
   'attachment:upload',
   'calculation:create',
   'calculation:recompute',
+  'calculation:edit',
   'onboarding:curate',
   'onboarding:follow',
   'onboarding:see-all',

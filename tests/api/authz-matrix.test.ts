@@ -76,6 +76,8 @@ const MATRIX: Record<string, Row> = {
   'GET /api/calculations': { allow: ALL },
   'POST /api/calculations': { allow: WRITERS },
   'GET /api/calculations/[id]': { allow: ALL, params: CALC },
+  'PATCH /api/calculations/[id]': { allow: WRITERS, params: { id: 'nope' } },
+  'DELETE /api/calculations/[id]': { allow: WRITERS, params: { id: 'nope' } },
   'POST /api/calculations/[id]/recompute': { allow: WRITERS, params: { id: 'nope' } },
   'GET /api/calculations/compare': { allow: ALL },
   'GET /api/guides': { allow: ALL },

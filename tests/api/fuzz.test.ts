@@ -55,6 +55,9 @@ const FIELDS: Record<string, Record<string, FieldType>> = {
   'POST /api/guides/[slug]/review': { note: 'string' },
   'POST /api/guides/[slug]/suggestions': { body: 'string', section: 'string' },
   'PATCH /api/guides/suggestions/[id]': { state: 'string' },
+  'PATCH /api/calculations/[id]': { title: 'string', notes: 'string', subsystem: 'string' },
+  // Shares its file with PATCH; reads no body, so whatever is sent must change nothing.
+  'DELETE /api/calculations/[id]': { title: 'string' },
   'PUT /api/onboarding/[subsystem]': { items: 'array' },
   'POST /api/onboarding/[subsystem]/progress': { itemId: 'string', done: 'boolean' },
 };

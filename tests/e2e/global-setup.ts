@@ -38,6 +38,7 @@ export default async function setup(project: TestProject) {
     await new Promise((r) => setTimeout(r, 200));
   }
   project.provide('e2eBaseUrl', base);
+  project.provide('e2eDbPath', join(dir, 'e2e.db'));
   return () => {
     server?.kill('SIGTERM');
   };
@@ -46,5 +47,7 @@ export default async function setup(project: TestProject) {
 declare module 'vitest' {
   export interface ProvidedContext {
     e2eBaseUrl: string;
+    /** The server's SQLite file, for tests that must set up a state no route creates (an older engine's result). */
+    e2eDbPath: string;
   }
 }

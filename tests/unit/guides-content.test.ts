@@ -33,7 +33,7 @@ describe('the guides collection', () => {
   });
 
   it('at least two guides embed a live calculator', () => {
-    expect(files.filter((f) => /<LiveCalculator kind="[a-z-]+"/.test(read(f).text)).length).toBeGreaterThanOrEqual(2);
+    expect(files.filter((f) => /<LiveCalculator\s+kind="[a-z-]+"/.test(read(f).text)).length).toBeGreaterThanOrEqual(2);
   });
 
   it('guides that touch batteries, propellers, high current or coolant carry a safety block', () => {

@@ -9,7 +9,9 @@ const Y = true;
 const N = false;
 const C = 'current' as const;
 const O = 'own' as const;
-type Cell = boolean | typeof C | typeof O;
+/** Only their own work, and only in the current season. */
+const OC = 'own-current' as const;
+type Cell = boolean | typeof C | typeof O | typeof OC;
 const EXPECTED: Record<Action, Record<Role, Cell>> = {
   read: { lead: Y, advisor: Y, member: Y, alumni: Y },
   'season:manage': { lead: Y, advisor: N, member: N, alumni: N },
@@ -33,6 +35,7 @@ const EXPECTED: Record<Action, Record<Role, Cell>> = {
   'attachment:upload': { lead: Y, advisor: N, member: C, alumni: N },
   'calculation:create': { lead: Y, advisor: N, member: C, alumni: N },
   'calculation:recompute': { lead: Y, advisor: N, member: C, alumni: N },
+  'calculation:edit': { lead: Y, advisor: N, member: OC, alumni: N },
   'onboarding:curate': { lead: Y, advisor: Y, member: N, alumni: N },
   'onboarding:follow': { lead: Y, advisor: Y, member: Y, alumni: Y },
   'onboarding:see-all': { lead: Y, advisor: N, member: N, alumni: N },
@@ -56,21 +59,28 @@ describe('policy: every role × action', () => {
           ? 'may, in the current season only,'
           : cell === O
             ? 'may, for their own only,'
-            : cell
-              ? 'may'
-              : 'may not';
+            : cell === OC
+              ? 'may, own work this season only,'
+              : cell
+                ? 'may'
+                : 'may not';
       it(`${role} ${how} ${action}`, () => {
         if (cell === O) {
           expect(can({ role }, action, { isOwn: true })).toBe(true);
           expect(can({ role }, action, { isOwn: false, seasonIsCurrent: true })).toBe(false);
           expect(can({ role }, action)).toBe(false);
+        } else if (cell === OC) {
+          expect(can({ role }, action, { seasonIsCurrent: true, isOwn: true })).toBe(true);
+          expect(can({ role }, action, { seasonIsCurrent: true, isOwn: false })).toBe(false);
+          expect(can({ role }, action, { seasonIsCurrent: false, isOwn: true })).toBe(false);
+          expect(can({ role }, action, { seasonIsCurrent: true })).toBe(false);
         } else if (cell === C) {
           expect(can({ role }, action, { seasonIsCurrent: true })).toBe(true);
           expect(can({ role }, action, { seasonIsCurrent: false })).toBe(false);
           expect(can({ role }, action)).toBe(false);
         } else {
           expect(can({ role }, action, { seasonIsCurrent: true })).toBe(cell);
-          expect(can({ role }, action, { seasonIsCurrent: false })).toBe(cell);
+          expect(can({ role }, action, { seasonIsCurrent: false, isOwn: false })).toBe(cell);
         }
       });
     }

@@ -1,8 +1,11 @@
 import { useDeferredValue, useMemo, useState, type FormEvent } from 'react';
 import { getCalculator, runCalculator } from '~/lib/calc';
+import { activeInputs } from '~/lib/calc/fields';
 import type { InputMeta } from '~/lib/calc/types';
+import { titlePlaceholderFor } from '~/lib/calc-defaults';
+import { operatingPoints } from '~/lib/chart-marks';
 import { apiFetch, ApiError } from '~/lib/client/api';
-import { formatNumber, plainText } from '~/lib/format';
+import { formatQuantity, plainText } from '~/lib/format';
 import LineChart from '../ui/LineChart';
 import GridTable from './GridTable';
 
@@ -27,10 +30,13 @@ function initialRaw(inputs: InputMeta[], given: Record<string, unknown> = {}): R
   return raw;
 }
 
-/** Form text → the JSON the calculator's schema expects. Bad numbers stay strings so the schema names them. */
+/**
+ * Form text → the JSON the calculator's schema expects, for the inputs the chosen options show (a hidden input
+ * never feeds the result). Bad numbers stay strings so the schema names them.
+ */
 function toInputs(inputs: InputMeta[], raw: Raw): Record<string, unknown> {
   const out: Record<string, unknown> = {};
-  for (const m of inputs) {
+  for (const m of activeInputs(inputs, raw)) {
     const text = (raw[m.name] ?? '').trim();
     if (text === '') {
       if (m.optional) out[m.name] = null;
@@ -60,10 +66,17 @@ export default function CalculatorForm({
     () => (calc ? runCalculator(kind, toInputs(calc.inputs, deferred)) : null),
     [calc, kind, deferred],
   );
-  const datasets = useMemo(
-    () => (run?.ok && run.result.series ? Object.values(run.result.series).map((set) => [{ set }]) : []),
+  const charts = useMemo(
+    () =>
+      run?.ok && run.result.series
+        ? Object.values(run.result.series).map((set) => ({
+            datasets: [{ set }],
+            marks: operatingPoints(set, run.result.outputs, run.inputs),
+          }))
+        : [],
     [run],
   );
+  const shown = useMemo(() => new Set(activeInputs(calc?.inputs ?? [], raw).map((m) => m.name)), [calc, raw]);
 
   if (!calc || !run) return <p className="alert">Unknown calculator “{kind}”.</p>;
 
@@ -72,12 +85,17 @@ export default function CalculatorForm({
     for (const i of run.issues) fieldErrors[i.path.split('.')[0]] ??= i.message;
   if (!run.ok && run.error === 'out_of_range') fieldErrors[run.input] ??= run.message;
 
-  const groups = [...new Set(calc.inputs.map((m) => m.group ?? 'Inputs'))];
+  const visible = calc.inputs.filter((m) => shown.has(m.name));
+  const groups = [...new Set(visible.map((m) => m.group ?? 'Inputs'))];
   const set = (name: string, value: string) => setRaw((r) => ({ ...r, [name]: value }));
 
   return (
     <div
-      className={embedded ? 'card my-6 font-sans' : 'grid gap-8 lg:grid-cols-[minmax(0,26rem)_minmax(0,1fr)]'}
+      className={
+        embedded
+          ? 'calc-embed card my-6 flex flex-col gap-6'
+          : 'grid items-start gap-8 lg:grid-cols-[minmax(0,26rem)_minmax(0,1fr)]'
+      }
       data-calculator={kind}
     >
       <form
@@ -90,7 +108,7 @@ export default function CalculatorForm({
         {groups.map((g) => (
           <fieldset key={g} className="flex flex-col gap-3">
             <legend className="mb-1 text-sm font-bold uppercase tracking-wide text-muted">{g}</legend>
-            {calc.inputs
+            {visible
               .filter((m) => (m.group ?? 'Inputs') === g)
               .map((m) => (
                 <Field
@@ -104,12 +122,27 @@ export default function CalculatorForm({
               ))}
           </fieldset>
         ))}
-        <button type="button" className="btn btn-quiet self-start" onClick={() => setRaw(initialRaw(calc.inputs))}>
-          Reset to defaults
+        <button
+          type="button"
+          className="btn btn-quiet self-start"
+          onClick={() => setRaw(initialRaw(calc.inputs, initialInputs))}
+        >
+          {initialInputs ? 'Reset to the starting values' : 'Reset to defaults'}
         </button>
       </form>
 
-      <section aria-labelledby={`results-${kind}`} aria-live="polite" className="flex min-w-0 flex-col gap-4">
+      {/* On a wide screen the results stay in view while the form scrolls past (long forms: race, sweep); charts,
+          the heat map and the save form follow below, across both columns. */}
+      <section
+        aria-labelledby={`results-${kind}`}
+        aria-live="polite"
+        data-testid="results"
+        className={
+          embedded
+            ? 'flex min-w-0 flex-col gap-4'
+            : 'sticky-results flex min-w-0 flex-col gap-4 lg:sticky lg:top-4 lg:max-h-[calc(100vh-2rem)] lg:self-start lg:overflow-y-auto lg:pr-1'
+        }
+      >
         <h2 id={`results-${kind}`} className="text-lg font-semibold">
           Results
         </h2>
@@ -123,17 +156,20 @@ export default function CalculatorForm({
             <table className="tabular w-full border-collapse text-sm" data-testid="outputs">
               <caption className="sr-only">Computed outputs</caption>
               <tbody>
-                {calc.outputs.map((o) => (
-                  <tr key={o.name} className="border-b border-line">
-                    <th scope="row" className="py-1.5 pr-3 text-left font-medium" title={o.help}>
-                      {o.label}
-                    </th>
-                    <td className="py-1.5 text-right font-semibold" data-output={o.name}>
-                      {formatNumber(run.result.outputs[o.name], o.digits)}
-                    </td>
-                    <td className="w-20 py-1.5 pl-2 text-muted">{o.unit}</td>
-                  </tr>
-                ))}
+                {calc.outputs.map((o) => {
+                  const q = formatQuantity(run.result.outputs[o.name], o.unit, o.digits);
+                  return (
+                    <tr key={o.name} className="border-b border-line">
+                      <th scope="row" className="py-1.5 pr-3 text-left font-medium" title={o.help}>
+                        {o.label}
+                      </th>
+                      <td className="py-1.5 text-right font-semibold" data-output={o.name}>
+                        {q.value}
+                      </td>
+                      <td className="w-20 py-1.5 pl-2 text-muted">{q.unit}</td>
+                    </tr>
+                  );
+                })}
               </tbody>
             </table>
             {run.result.warnings.length > 0 && (
@@ -146,18 +182,31 @@ export default function CalculatorForm({
                 ))}
               </ul>
             )}
-            {!embedded && datasets.map((d, i) => <LineChart key={i} datasets={d} />)}
-            {embedded && datasets[0] && <LineChart datasets={datasets[0]} height={220} />}
-            {run.result.grid && <GridTable grid={run.result.grid} />}
-            {run.result.grids?.map((g) => (
-              <GridTable key={g.title} grid={g} />
-            ))}
           </>
         )}
-        {!embedded && canSave && run.ok && (
-          <SaveForm kind={kind} inputs={run.inputs} subsystems={subsystems} defaultSubsystem={defaultSubsystem} />
-        )}
       </section>
+      {run.ok && (charts.length > 0 || run.result.grid || run.result.grids?.length) && (
+        <div className={embedded ? 'flex min-w-0 flex-col gap-4' : 'flex min-w-0 flex-col gap-6 lg:col-span-2'}>
+          {(embedded ? charts.slice(0, 1) : charts).map((c, i) => (
+            <LineChart key={i} datasets={c.datasets} marks={c.marks} height={embedded ? 280 : 320} />
+          ))}
+          {run.result.grid && <GridTable grid={run.result.grid} />}
+          {run.result.grids?.map((g) => (
+            <GridTable key={g.title} grid={g} />
+          ))}
+        </div>
+      )}
+      {!embedded && canSave && run.ok && (
+        <div className="lg:col-span-2">
+          <SaveForm
+            kind={kind}
+            placeholder={titlePlaceholderFor(kind, calc.title)}
+            inputs={run.inputs}
+            subsystems={subsystems}
+            defaultSubsystem={defaultSubsystem}
+          />
+        </div>
+      )}
     </div>
   );
 }
@@ -239,11 +288,13 @@ function Field({
 
 function SaveForm({
   kind,
+  placeholder,
   inputs,
   subsystems,
   defaultSubsystem,
 }: {
   kind: string;
+  placeholder: string;
   inputs: Record<string, unknown>;
   subsystems: { slug: string; name: string }[];
   defaultSubsystem?: string;
@@ -276,7 +327,7 @@ function SaveForm({
   }
 
   return (
-    <form onSubmit={save} className="card mt-2 flex flex-col gap-3" aria-labelledby="save-h" noValidate>
+    <form onSubmit={save} className="card mt-2 flex max-w-2xl flex-col gap-3" aria-labelledby="save-h" noValidate>
       <h2 id="save-h" className="text-lg font-semibold">
         Save this calculation
       </h2>
@@ -292,7 +343,7 @@ function SaveForm({
           className="input"
           value={title}
           onChange={(e) => setTitle(e.target.value)}
-          placeholder="e.g. Endurance propeller at race pace"
+          placeholder={placeholder}
           aria-invalid={errors.title ? true : undefined}
           aria-describedby={errors.title ? 'save-title-error' : undefined}
         />

@@ -9,10 +9,11 @@ export default function GridTable({ grid, highlight }: { grid: Grid; highlight?:
   const values = grid.z.values.flat().filter((v): v is number => typeof v === 'number' && Number.isFinite(v));
   const lo = Math.min(...values);
   const hi = Math.max(...values);
-  const shade = (v: number | null) => {
-    if (v === null || !Number.isFinite(v) || hi === lo) return undefined;
-    const t = (v - lo) / (hi - lo);
-    return `color-mix(in oklab, var(--wb-accent) ${Math.round(10 + t * 70)}%, var(--wb-surface))`;
+  // Six fill steps; each step's text colour is set with its fill in global.css (.heat-0 … .heat-5), per theme.
+  const step = (v: number | null) => {
+    if (v === null || !Number.isFinite(v)) return '';
+    if (hi === lo) return ' heat-3';
+    return ` heat-${Math.min(5, Math.floor(((v - lo) / (hi - lo)) * 6))}`;
   };
   const marks = [...(highlight ?? []).map((h) => ({ ...h, label: 'best' })), ...(grid.picks ?? [])];
   const pickAt = (xi: number, yi: number) =>
@@ -21,7 +22,7 @@ export default function GridTable({ grid, highlight }: { grid: Grid; highlight?:
   const anyFailed = grid.failed?.some((row) => row.some(Boolean)) ?? false;
   return (
     <div className="overflow-x-auto">
-      <table className="tabular border-collapse text-xs">
+      <table className="heat-map tabular border-collapse text-xs">
         <caption className="mb-1 text-left text-sm font-semibold">
           {grid.title} — {grid.z.label}
           {grid.z.unit ? ` (${grid.z.unit})` : ''}; rows: {grid.y.label}, columns: {grid.x.label}. Empty cells: no
@@ -53,11 +54,8 @@ export default function GridTable({ grid, highlight }: { grid: Grid; highlight?:
                 return (
                   <td
                     key={xi}
-                    className={`border border-line px-1.5 py-1 text-right${failed ? ' text-muted line-through' : ''}`}
-                    style={{
-                      background: failed ? 'var(--wb-line)' : shade(v),
-                      outline: pick ? '2px solid var(--wb-amber)' : undefined,
-                    }}
+                    className={`border border-line px-1.5 py-1 text-right${failed ? ' line-through' : step(v)}${pick ? ' heat-mark' : ''}`}
+                    style={failed ? { background: 'var(--wb-line)' } : undefined}
                     data-failed={failed || undefined}
                     data-pick={pick}
                   >

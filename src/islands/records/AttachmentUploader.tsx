@@ -1,5 +1,15 @@
 import { useRef, useState, type DragEvent } from 'react';
 import { apiErrorMessage } from '~/lib/client/api';
+import CsvPreview from './CsvPreview';
+
+/** What POST /api/records/{id}/attachments answers with (the fields this island shows). */
+interface Added {
+  id: string;
+  fileName: string;
+  url: string;
+  isImage: boolean;
+  isCsv: boolean;
+}
 
 interface Upload {
   name: string;
@@ -11,6 +21,7 @@ interface Upload {
 /** Drag-and-drop or pick files; each uploads with its own progress bar (XHR, since fetch reports no upload progress). */
 export default function AttachmentUploader({ recordId, maxMb }: { recordId: string; maxMb: number }) {
   const [uploads, setUploads] = useState<Upload[]>([]);
+  const [added, setAdded] = useState<Added[]>([]);
   const [over, setOver] = useState(false);
   const input = useRef<HTMLInputElement>(null);
 
@@ -31,8 +42,15 @@ export default function AttachmentUploader({ recordId, maxMb }: { recordId: stri
         xhr.open('POST', `/api/records/${recordId}/attachments`);
         xhr.upload.onprogress = (e) => e.lengthComputable && update(i, { progress: e.loaded / e.total });
         xhr.onload = () => {
-          if (xhr.status === 201) update(i, { state: 'done', progress: 1 });
-          else {
+          if (xhr.status === 201) {
+            update(i, { state: 'done', progress: 1 });
+            try {
+              const attachment = (JSON.parse(xhr.responseText) as { attachment: Added }).attachment;
+              setAdded((a) => [...a, attachment]);
+            } catch {
+              // stored all the same; it shows with the other attachments next time the page is opened
+            }
+          } else {
             const message = apiErrorMessage(xhr.responseText) ?? `Upload failed (${xhr.status}).`;
             update(i, { state: 'error', message });
           }
@@ -51,8 +69,6 @@ export default function AttachmentUploader({ recordId, maxMb }: { recordId: stri
     setOver(false);
     if (e.dataTransfer.files.length) send(e.dataTransfer.files);
   };
-  const anyDone = uploads.some((u) => u.state === 'done');
-  const busy = uploads.some((u) => u.state === 'uploading');
 
   return (
     <div className="flex flex-col gap-2">
@@ -95,10 +111,31 @@ export default function AttachmentUploader({ recordId, maxMb }: { recordId: stri
           </li>
         ))}
       </ul>
-      {anyDone && !busy && (
-        <button type="button" className="btn btn-primary self-start text-sm" onClick={() => window.location.reload()}>
-          Show the new attachments
-        </button>
+      {added.length > 0 && (
+        <section aria-label="Just attached" className="flex flex-col gap-3">
+          {added.map((a) =>
+            a.isImage ? (
+              <figure key={a.id}>
+                <img
+                  src={a.url}
+                  alt={`Attached image ${a.fileName}`}
+                  className="max-h-[28rem] rounded border border-line"
+                />
+                <figcaption className="mt-1 text-sm text-muted">{a.fileName}</figcaption>
+              </figure>
+            ) : a.isCsv ? (
+              <div key={a.id} className="card">
+                <CsvPreview url={a.url} name={a.fileName} />
+              </div>
+            ) : (
+              <p key={a.id} className="text-sm">
+                <a href={a.url} download={a.fileName}>
+                  {a.fileName}
+                </a>
+              </p>
+            ),
+          )}
+        </section>
       )}
     </div>
   );

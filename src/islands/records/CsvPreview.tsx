@@ -1,6 +1,7 @@
 import { useEffect, useMemo, useState } from 'react';
 import LineChart from '../ui/LineChart';
 import { parseCsv, numericColumns } from '~/lib/csv';
+import { unitFromName } from '~/lib/units';
 
 /** Plots a CSV test log: pick the x column and the columns to draw against it. */
 export default function CsvPreview({ url, name }: { url: string; name: string }) {
@@ -28,24 +29,25 @@ export default function CsvPreview({ url, name }: { url: string; name: string })
     return <p className="text-sm text-muted">This file has fewer than two numeric columns to plot.</p>;
 
   const col = (i: number) => table.rows.map((r) => Number(r[i]));
-  const unitOf = (h: string) => /_(\w+)$/.exec(h)?.[1] ?? '';
-  const set = {
-    title: name,
-    x: { name: table.header[x], label: table.header[x], unit: unitOf(table.header[x]), values: col(x) },
-    y: ys.map((i) => ({
-      name: table.header[i],
-      label: table.header[i],
-      unit: unitOf(table.header[i]),
-      values: col(i),
-    })),
-  };
+  // Columns named the way calculators name fields carry their unit: motor_C → °C, speed_mps → m/s, time_s → s.
+  const axis = (i: number) => ({ name: table.header[i], ...unitFromName(table.header[i]), values: col(i) });
+  const set = { title: name, x: axis(x), y: ys.map(axis) };
   const id = `csv-${name.replace(/\W+/g, '-')}`;
   return (
     <div className="flex flex-col gap-2">
-      <div className="flex flex-wrap items-end gap-4 text-sm">
+      <div className="csv-controls flex flex-wrap items-end gap-4 text-sm">
         <div className="field">
           <label htmlFor={`${id}-x`}>Along (x)</label>
-          <select id={`${id}-x`} className="input py-1" value={x} onChange={(e) => setX(Number(e.target.value))}>
+          <select
+            id={`${id}-x`}
+            className="input py-1"
+            value={x}
+            onChange={(e) => {
+              const next = Number(e.target.value);
+              setX(next);
+              setYs(ys.filter((i) => i !== next));
+            }}
+          >
             {numeric.map((i) => (
               <option key={i} value={i}>
                 {table.header[i]}

@@ -18,6 +18,7 @@ import { SRC_COLEBROOK, SRC_FLUIDS, SRC_IAPWS08_VISC, SRC_IAPWS95, SRC_MELINDER,
 import type { Calculator, InputMeta } from './types';
 
 export interface CoolingInput {
+  heatFrom: 'losses' | 'heat';
   heat_W?: number;
   inputPower_W?: number;
   efficiency?: number;
@@ -43,7 +44,20 @@ export type CoolingOutput = {
 const DEMO_INPUT_POWER_W = 4000;
 const DEMO_EFFICIENCY = 0.97;
 
+const HEAT_FROM = 'heatFrom';
 const inputs: InputMeta[] = [
+  choice({
+    name: HEAT_FROM,
+    label: 'Heat known as',
+    unit: '',
+    default: 'losses',
+    group: 'Heat',
+    options: [
+      { value: 'losses', label: 'Input power and efficiency' },
+      { value: 'heat', label: 'Heat to remove' },
+    ],
+    help: 'Give the heat directly, or the power into the cooled unit and its efficiency.',
+  }),
   num({
     name: 'heat_W',
     label: 'Heat to remove',
@@ -51,9 +65,10 @@ const inputs: InputMeta[] = [
     min: 0,
     max: 100000,
     step: 1,
-    optional: true,
+    default: 150,
+    when: { input: HEAT_FROM, is: ['heat'] },
     group: 'Heat',
-    help: 'Heat into the coolant. Leave empty to compute it from input power and efficiency.',
+    help: 'Heat into the coolant (demo default 150 W).',
   }),
   num({
     name: 'inputPower_W',
@@ -63,9 +78,9 @@ const inputs: InputMeta[] = [
     max: 500000,
     step: 10,
     default: DEMO_INPUT_POWER_W,
-    optional: true,
+    when: { input: HEAT_FROM, is: ['losses'] },
     group: 'Heat',
-    help: 'Electrical power into the motor or controller; with its efficiency gives the heat (1 − η)·P. Demo values 4000 W and 0.97 are used when no heat figure is given.',
+    help: 'Electrical power into the motor or controller (demo default 4000 W); with its efficiency gives the heat (1 − η)·P.',
   }),
   num({
     name: 'efficiency',
@@ -75,9 +90,9 @@ const inputs: InputMeta[] = [
     max: 1,
     step: 0.005,
     default: DEMO_EFFICIENCY,
-    optional: true,
+    when: { input: HEAT_FROM, is: ['losses'] },
     group: 'Heat',
-    help: 'Efficiency of the cooled unit at that power, as a fraction.',
+    help: 'Efficiency of the cooled unit at that power, as a fraction (demo default 0.97).',
   }),
   num({
     name: 'flow_lpm',
@@ -171,22 +186,18 @@ const inputs: InputMeta[] = [
   }),
 ];
 
-const fillDemoHeat = (raw: unknown) => {
+// Calculations saved before the choice existed (and API callers who leave it out) say which heat they mean by
+// what they give: a heat figure means "heat", anything else the input power and efficiency.
+const inferHeatFrom = (raw: unknown) => {
   if (raw && typeof raw === 'object' && !Array.isArray(raw)) {
     const r = raw as Record<string, unknown>;
-    if (r.heat_W == null && r.inputPower_W == null && r.efficiency == null)
-      return { ...r, inputPower_W: DEMO_INPUT_POWER_W, efficiency: DEMO_EFFICIENCY };
+    if (r[HEAT_FROM] == null) return { ...r, [HEAT_FROM]: r.heat_W == null ? 'losses' : 'heat' };
   }
   return raw;
 };
 
-const schema = z.preprocess(fillDemoHeat, objectSchema(inputs)).superRefine((v, ctx) => {
+const schema = z.preprocess(inferHeatFrom, objectSchema(inputs)).superRefine((v, ctx) => {
   const o = v as Record<string, number | undefined>;
-  if (o.heat_W === undefined && (o.inputPower_W === undefined || o.efficiency === undefined)) {
-    for (const path of ['inputPower_W', 'efficiency'])
-      if (o[path] === undefined)
-        ctx.addIssue({ code: 'custom', path: [path], message: 'Give the heat, or both input power and efficiency.' });
-  }
   if ((o.pipeBore_mm === undefined) !== (o.pipeLength_m === undefined)) {
     const missing = o.pipeBore_mm === undefined ? 'pipeBore_mm' : 'pipeLength_m';
     ctx.addIssue({ code: 'custom', path: [missing], message: 'Give both pipe bore and pipe length, or neither.' });
@@ -229,7 +240,10 @@ export const coolingCalculator: Calculator<CoolingInput, CoolingOutput> = {
   sources: [SRC_IAPWS95, SRC_IAPWS08_VISC, SRC_MELINDER, SRC_SCP, SRC_COLEBROOK, SRC_FLUIDS],
   cautions: [CAUTION_COOLING, CAUTION_DEFER],
   compute(input) {
-    const heat = input.heat_W ?? (input.inputPower_W as number) * (1 - (input.efficiency as number));
+    const heat =
+      input.heatFrom === 'heat'
+        ? (input.heat_W as number)
+        : (input.inputPower_W as number) * (1 - (input.efficiency as number));
     const fraction = glycolFractionOf(input.coolant, input.glycolFraction);
     const [tMin, tMax] = coolantRange(input.coolant, fraction);
     if (input.inlet_C < tMin)

@@ -4,7 +4,8 @@
 import { z } from 'zod';
 import { CAUTION_BATTERY, CAUTION_DEFER } from './cautions';
 import { num, objectSchema } from './fields';
-import type { Calculator, InputMeta } from './types';
+import { linspace } from './numeric';
+import type { Calculator, InputMeta, SeriesSet } from './types';
 
 export interface EnergyInput {
   batteryEnergy_Wh: number;
@@ -121,6 +122,7 @@ export const energyCalculator: Calculator<EnergyCalcInput, EnergyOutput> = {
   title: 'Race energy budget',
   summary:
     'Usable battery energy plus solar energy over the race, and the average electrical and shaft power they sustain.',
+  // 1.1.0: average C-rate and a chart of average power against race duration.
   engineVersion: '1.1.0',
   inputSchema: objectSchema(inputs) as unknown as z.ZodType<EnergyCalcInput>,
   inputs,
@@ -164,6 +166,26 @@ export const energyCalculator: Calculator<EnergyCalcInput, EnergyOutput> = {
       warnings.push(
         `Using ${(100 * input.usableFraction).toFixed(0)} % of the pack in ${input.raceDuration_h} h is an average discharge of ${cRate.toFixed(1)} C, above the ${input.maxCRate} C limit you gave: the cells will overheat and deliver less than their rated energy. Check the cell datasheet and the battery calculator.`,
       );
-    return { outputs: { ...b, averageCRate: cRate }, warnings };
+    const durations = linspace(Math.min(0.25, input.raceDuration_h), Math.max(2 * input.raceDuration_h, 1), 48);
+    const budgets = durations.map((t) => energyBudget({ ...input, raceDuration_h: t }));
+    const series: SeriesSet = {
+      title: 'Average power the budget sustains against race duration',
+      x: { name: 'raceDuration_h', label: 'Race duration', unit: 'h', values: durations },
+      y: [
+        {
+          name: 'averageElectricalPower_W',
+          label: 'Average electrical power',
+          unit: 'W',
+          values: budgets.map((x) => x.averageElectricalPower_W),
+        },
+        {
+          name: 'averageShaftPower_W',
+          label: 'Average shaft power',
+          unit: 'W',
+          values: budgets.map((x) => x.averageShaftPower_W),
+        },
+      ],
+    };
+    return { outputs: { ...b, averageCRate: cRate }, series: { duration: series }, warnings };
   },
 };

@@ -42,10 +42,40 @@ export function fieldSchema(meta: InputMeta): z.ZodType {
   return base;
 }
 
+/**
+ * The inputs the chosen options leave in play, given the raw or parsed values: an input with `when` counts only
+ * while its choice (or, when absent, the choice's default) has one of the listed values.
+ */
+export function activeInputs(inputs: InputMeta[], values: Record<string, unknown>): InputMeta[] {
+  const byName = new Map(inputs.map((m) => [m.name, m]));
+  const chosen = (name: string) => {
+    const v = values[name];
+    return v === undefined || v === null || v === '' ? byName.get(name)?.default : v;
+  };
+  return inputs.filter((m) => !m.when || m.when.is.some((v) => v === chosen(m.when!.input)));
+}
+
+function withoutHidden(inputs: InputMeta[], raw: unknown): unknown {
+  if (!raw || typeof raw !== 'object' || Array.isArray(raw)) return raw;
+  const values = raw as Record<string, unknown>;
+  const hidden = new Set(inputs.map((m) => m.name));
+  for (const m of activeInputs(inputs, values)) hidden.delete(m.name);
+  return Object.fromEntries(Object.entries(values).filter(([k]) => !hidden.has(k)));
+}
+
 export function objectSchema(inputs: InputMeta[]) {
   const shape: Record<string, z.ZodType> = {};
-  for (const m of inputs) shape[m.name] = fieldSchema(m);
-  return z.object(shape);
+  for (const m of inputs) {
+    // A hidden input is absent when parsed, so it must be able to be: optional, or with a default.
+    if (m.when && !m.optional && m.default === undefined)
+      throw new Error(`input ${m.name} has a condition, so it needs a default or optional: true`);
+    shape[m.name] = fieldSchema(m);
+  }
+  const object = z.object(shape);
+  if (!inputs.some((m) => m.when)) return object;
+  // Hidden inputs are dropped before parsing (a stale hidden value cannot fail the form) and after it (a hidden
+  // input's default cannot reach the result or the saved inputs).
+  return z.preprocess((raw) => withoutHidden(inputs, raw), object).transform((v) => withoutHidden(inputs, v));
 }
 
 /** Labels for the shared water choice. */

@@ -14,6 +14,11 @@ export interface InputMeta {
   optional?: boolean;
   help: string;
   group?: string;
+  /**
+   * Shown and used only while the choice input `input` has one of the values `is`. A hidden input never feeds
+   * the result: the form leaves it out and the schema drops it (see `activeInputs` in fields.ts).
+   */
+  when?: { input: string; is: string[] };
 }
 
 export interface OutputMeta {

@@ -31,6 +31,18 @@ export const calculationInputSchema = z.object({
 });
 export type CalculationInput = z.infer<typeof calculationInputSchema>;
 
+/** Rename, re-note or move a saved calculation; its inputs and results never change after saving. */
+export const calculationPatchSchema = z
+  .strictObject({
+    title: calculationInputSchema.shape.title.optional(),
+    notes: typedText().max(20_000).optional(),
+    subsystem: slug.optional(),
+  })
+  .refine((p) => p.title !== undefined || p.notes !== undefined || p.subsystem !== undefined, {
+    message: 'Change at least one of title, notes or subsystem.',
+  });
+export type CalculationPatch = z.infer<typeof calculationPatchSchema>;
+
 export const calculationListQuerySchema = z.object({
   subsystem: slug.optional().or(z.literal('')),
   season: id.optional().or(z.literal('')),

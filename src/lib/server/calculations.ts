@@ -1,13 +1,13 @@
-import { and, desc, eq, inArray, isNull, lt, or, sql, type SQL } from 'drizzle-orm';
+import { and, desc, eq, inArray, isNull, lt, notInArray, or, sql, type SQL } from 'drizzle-orm';
 import { db, prepared } from './db/client';
 import { calculations, calculationResults, recordCalculations, records, seasons, subsystems, users } from './db/schema';
 import { getCalculator, runCalculator, type CalcResult } from '../calc';
 import { OutOfRangeError } from '../calc/errors';
-import { HttpError, invalidInput, notFound } from './http';
+import { conflict, HttpError, invalidInput, notFound } from './http';
 import { newId } from './ids';
 import { recordAudit } from './audit';
 import { currentSeason, findSeason, findSubsystem } from './seasons';
-import type { CalculationInput } from '../schemas/calculations';
+import type { CalculationInput, CalculationPatch } from '../schemas/calculations';
 import { onCalculationChanged } from './records/hooks';
 import { can } from '../policy';
 import type { Role } from '../domain';
@@ -35,6 +35,7 @@ export interface CalculationView {
   season: string;
   seasonIsCurrent: boolean;
   author: string | null;
+  authorId: string | null;
   notes: string;
   inputs: Record<string, unknown>;
   outputs: Outputs;
@@ -149,6 +150,84 @@ export function recomputeCalculation(id: string, actor: Actor) {
   return { calculation: after, previous: before.results[0], changes: diffOutputs(before.outputs, after.outputs) };
 }
 
+/** The calculation as an edit needs it: who wrote it, whether its season is current, live or not. */
+function loadForEdit(id: string, actor: Actor) {
+  const row = db()
+    .select({ authorId: calculations.authorId, title: calculations.title, seasonIsCurrent: seasons.isCurrent })
+    .from(calculations)
+    .innerJoin(seasons, eq(seasons.id, calculations.seasonId))
+    .where(and(eq(calculations.id, id), isNull(calculations.deletedAt)))
+    .get();
+  if (!row) throw notFound('That calculation');
+  const subject = { seasonIsCurrent: row.seasonIsCurrent, isOwn: row.authorId === actor.id };
+  if (!can(actor, 'calculation:edit', subject))
+    throw new HttpError(
+      403,
+      'forbidden',
+      'Only its author (in the current season) or a lead may change or delete a calculation.',
+    );
+  const accepted = db()
+    .select({ id: records.id, title: records.title })
+    .from(recordCalculations)
+    .innerJoin(records, eq(records.id, recordCalculations.recordId))
+    .where(
+      and(
+        eq(recordCalculations.calculationId, id),
+        eq(records.kind, 'decision'),
+        eq(records.status, 'accepted'),
+        isNull(records.deletedAt),
+      ),
+    )
+    .get();
+  if (accepted)
+    throw conflict(
+      `The accepted decision record “${accepted.title}” rests on this calculation; it stays as it was. Save a new calculation instead.`,
+      { recordId: accepted.id },
+    );
+  return row;
+}
+
+/** Renames, re-notes or moves a saved calculation (its inputs and results stay as computed). */
+export function updateCalculation(id: string, patch: CalculationPatch, actor: Actor): CalculationView {
+  loadForEdit(id, actor);
+  if (patch.subsystem !== undefined && !findSubsystem(patch.subsystem))
+    throw invalidInput([{ path: 'subsystem', message: 'No such subsystem.' }]);
+  db()
+    .update(calculations)
+    .set({
+      ...(patch.title !== undefined ? { title: patch.title } : {}),
+      ...(patch.notes !== undefined ? { notes: patch.notes } : {}),
+      ...(patch.subsystem !== undefined ? { subsystemSlug: patch.subsystem } : {}),
+      updatedAt: new Date(),
+    })
+    .where(eq(calculations.id, id))
+    .run();
+  recordAudit({
+    actor,
+    action: 'calculation.update',
+    targetType: 'calculation',
+    targetId: id,
+    detail: { fields: Object.keys(patch).filter((k) => patch[k as keyof CalculationPatch] !== undefined) },
+  });
+  onCalculationChanged(id);
+  return getCalculation(id)!;
+}
+
+/** Deletes a saved calculation: gone from lists, search, records' links, routes and the bundle; kept in the audit. */
+export function deleteCalculation(id: string, actor: Actor): void {
+  const row = loadForEdit(id, actor);
+  const now = new Date();
+  db().update(calculations).set({ deletedAt: now, updatedAt: now }).where(eq(calculations.id, id)).run();
+  recordAudit({
+    actor,
+    action: 'calculation.delete',
+    targetType: 'calculation',
+    targetId: id,
+    detail: { title: row.title },
+  });
+  onCalculationChanged(id);
+}
+
 export function diffOutputs(a: Outputs, b: Outputs) {
   const names = [...new Set([...Object.keys(a), ...Object.keys(b)])];
   return names
@@ -204,6 +283,7 @@ export function getCalculation(id: string): CalculationView | null {
     season: row.season,
     seasonIsCurrent: row.seasonIsCurrent,
     author: row.author,
+    authorId: c.authorId,
     notes: c.notes,
     inputs: c.inputs,
     outputs: (latest?.outputs ?? {}) as Outputs,
@@ -318,6 +398,34 @@ export function compareCalculations(aId: string, bId: string) {
       differs: !sameValue(x[name] ?? null, y[name] ?? null),
     }));
   return { a, b, sameKind: a.kind === b.kind, inputs: rows(a.inputs, b.inputs), outputs: rows(a.outputs, b.outputs) };
+}
+
+/**
+ * Records of the current season this person may edit and that do not link the calculation yet: the choices of
+ * "link to a record" on a calculation page. Its own subsystem's records come first.
+ */
+export function linkableRecords(calculation: Pick<CalculationView, 'subsystem' | 'records'>, actor: Actor) {
+  const season = currentSeason();
+  if (!season || !can(actor, 'record:edit', { seasonIsCurrent: true })) return [];
+  const linked = new Set(calculation.records.map((r) => r.id));
+  const rows = db()
+    .select({ id: records.id, title: records.title, subsystem: records.subsystemSlug, name: subsystems.name })
+    .from(records)
+    .innerJoin(subsystems, eq(subsystems.slug, records.subsystemSlug))
+    .where(
+      and(
+        eq(records.seasonId, season.id),
+        isNull(records.deletedAt),
+        notInArray(records.status, ['superseded', 'withdrawn']),
+      ),
+    )
+    .orderBy(desc(records.updatedAt))
+    .limit(200)
+    .all()
+    .filter((r) => !linked.has(r.id));
+  const own = rows.filter((r) => r.subsystem === calculation.subsystem);
+  const others = rows.filter((r) => r.subsystem !== calculation.subsystem);
+  return [...own, ...others].map((r) => ({ id: r.id, title: r.title, note: r.name }));
 }
 
 export function existingCalculationIds(ids: string[]): Set<string> {

@@ -45,6 +45,15 @@ export const settingsSchema = z
       .refine((v) => v === undefined || v.length >= 32, 'must be at least 32 characters (e.g. `openssl rand -hex 32`)'),
     /** Behind a reverse proxy that sets X-Forwarded-For: trust it for the client's address (throttling, audit). */
     WAKEBOOK_TRUST_PROXY: flag,
+    /** The team's name, printed at the top of every printout (the demo uses its own team's name). */
+    WAKEBOOK_TEAM_NAME: z
+      .string()
+      .optional()
+      .transform((v) => (v ? v.trim() : undefined))
+      .refine(
+        (v) => v === undefined || /^[^\u0000-\u001f]{1,120}$/.test(v),
+        'must be one line of at most 120 characters',
+      ),
     WAKEBOOK_MAX_UPLOAD_MB: z.coerce.number().positive().max(1024).default(20),
     /** Memory for rendered signed-in reads kept until the next write (0 turns the cache off). */
     WAKEBOOK_RESPONSE_CACHE_MB: z.coerce.number().min(0).max(1024).default(24),

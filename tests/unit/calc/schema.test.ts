@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { calculatorKinds, calculators, getCalculator, runCalculator } from '../../../src/lib/calc';
+import { activeInputs } from '../../../src/lib/calc/fields';
 
 const kinds = calculatorKinds;
 
@@ -44,7 +45,10 @@ describe('every calculator', () => {
 
       it('applies each declared default', () => {
         const parsed = calc.inputSchema.parse({}) as unknown as Record<string, unknown>;
-        for (const m of calc.inputs) if (m.default !== undefined) expect(parsed[m.name], m.name).toBe(m.default);
+        // An input the default choices hide is left out altogether (it must not feed the result unseen).
+        const active = new Set(activeInputs(calc.inputs, parsed).map((m) => m.name));
+        for (const m of calc.inputs)
+          if (m.default !== undefined) expect(parsed[m.name], m.name).toBe(active.has(m.name) ? m.default : undefined);
       });
 
       it('has inputs with help text, and numeric inputs with min and max', () => {
@@ -106,16 +110,27 @@ describe('every calculator', () => {
     expect(runCalculator('cooling', { heat_W: null, inputPower_W: 2000, efficiency: 0.95 }).ok).toBe(true);
   });
 
-  it('cooling needs the heat or both input power and efficiency', () => {
-    const r = runCalculator('cooling', { inputPower_W: 3000 });
-    expect(r).toMatchObject({ ok: false, error: 'invalid_input' });
-    if (!r.ok && r.error === 'invalid_input') expect(r.issues.map((i) => i.path)).toContain('efficiency');
-    const h = runCalculator('cooling', { heat_W: 150 });
-    if (!h.ok) throw new Error(JSON.stringify(h));
-    expect(h.result.outputs.heat_W).toBe(150);
-    const p = runCalculator('cooling', { inputPower_W: 3000, efficiency: 0.95 });
-    if (!p.ok) throw new Error(JSON.stringify(p));
-    expect(p.result.outputs.heat_W).toBeCloseTo(150, 9);
+  it('cooling uses only the inputs of the chosen heat option (issue 14: 120 W came from hidden defaults)', () => {
+    const heat = (r: ReturnType<typeof runCalculator>) => {
+      if (!r.ok) throw new Error(JSON.stringify(r));
+      return r.result.outputs.heat_W;
+    };
+    // Heat given: input power and efficiency are ignored even when sent, and not kept with the inputs.
+    const given = runCalculator('cooling', { heatFrom: 'heat', heat_W: 500, inputPower_W: 4000, efficiency: 0.97 });
+    expect(heat(given)).toBe(500);
+    if (given.ok) expect(Object.keys(given.inputs)).not.toContain('inputPower_W');
+    // A stale, even invalid, hidden value cannot fail the form.
+    expect(heat(runCalculator('cooling', { heatFrom: 'heat', heat_W: 80, efficiency: 'abc' }))).toBe(80);
+    // Losses chosen: a heat figure left in the form is ignored.
+    const losses = runCalculator('cooling', { heatFrom: 'losses', heat_W: 500, inputPower_W: 3000, efficiency: 0.95 });
+    expect(heat(losses)).toBeCloseTo(150, 9);
+    if (losses.ok) expect(Object.keys(losses.inputs)).not.toContain('heat_W');
+    // Without the choice (older saved calculations, API callers), what is given decides.
+    expect(heat(runCalculator('cooling', { heat_W: 150 }))).toBe(150);
+    expect(heat(runCalculator('cooling', { inputPower_W: 3000, efficiency: 0.95 }))).toBeCloseTo(150, 9);
+    const bad = runCalculator('cooling', { heatFrom: 'losses', efficiency: 2 });
+    expect(bad).toMatchObject({ ok: false, error: 'invalid_input' });
+    if (!bad.ok && bad.error === 'invalid_input') expect(bad.issues.map((i) => i.path)).toEqual(['efficiency']);
     expect(runCalculator('cooling', { pipeBore_mm: 8 })).toMatchObject({ ok: false, error: 'invalid_input' });
   });
 

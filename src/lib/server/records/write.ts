@@ -1,13 +1,13 @@
 import { and, eq, inArray, isNull } from 'drizzle-orm';
 import { db } from '../db/client';
-import { comments, onboardingItems, recordCalculations, recordLinks, recordRevisions, records } from '../db/schema';
+import { onboardingItems, recordCalculations, recordLinks, recordRevisions, records } from '../db/schema';
 import { HttpError, conflict, invalidInput, notFound } from '../http';
 import { newId } from '../ids';
 import { recordAudit } from '../audit';
 import { currentSeason, findSeason, findSubsystem } from '../seasons';
 import { existingCalculationIds } from '../calculations';
 import { processBody } from './body';
-import { getRecordView, recordExists, type RecordView } from './view';
+import { getRecordView, type RecordView } from './view';
 import { actionForMove, canMove, INITIAL_STATUS, isValidStatus, needsReplacement } from '../../record-rules';
 import type { RecordStatus, Role } from '../../domain';
 import { can, type Action } from '../../policy';

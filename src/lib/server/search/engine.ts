@@ -10,6 +10,7 @@ import { highlightHtml, snippetHtml } from './snippet';
 import { indexState, readIndex, readSaved, save, saveAdded, type IndexState } from './vocabulary-store';
 import { rankPage, type Filters } from './rank';
 import type { SearchHit, SearchResponse, SearchType } from '../../schemas/search';
+import { describeInputs } from '../../calc-describe';
 
 export interface SearchParams extends Filters {
   q: string;
@@ -54,6 +55,22 @@ interface DetailRow {
   kind: string | null;
   title: string;
   body: string;
+  /** Calculations only: what a snippet is cut from instead of the indexed words, which hold field keys. */
+  calcInputs: string | null;
+  calcNotes: string | null;
+}
+
+/** The text a hit's snippet is cut from: for a calculation its notes and its inputs in words, never field keys. */
+function snippetText(d: DetailRow): string {
+  if (d.type !== 'calculation' || d.calcInputs === null || d.kind === null) return d.body;
+  let inputs: Record<string, unknown> = {};
+  try {
+    inputs = JSON.parse(d.calcInputs) as Record<string, unknown>;
+  } catch {
+    // unreadable inputs: the notes alone
+  }
+  const words = describeInputs(d.kind, inputs);
+  return [d.calcNotes, words && `${words}.`].filter(Boolean).join(' ');
 }
 
 export class SearchEngine {
@@ -242,7 +259,7 @@ export class SearchEngine {
         id: d.refId,
         title: d.title,
         titleHtml: highlightHtml(d.title, highlighter),
-        snippet: snippetHtml(d.body, highlighter),
+        snippet: snippetHtml(snippetText(d), highlighter),
         subsystem: d.subsystem,
         subsystemName: d.subsystemName,
         season: d.season,
@@ -261,10 +278,12 @@ export class SearchEngine {
     if (ids.length === 0) return new Map();
     const rows = this.stmt(
       `SELECT d.id AS docId, d.type AS type, d.ref_id AS refId, d.subsystem AS subsystem, sub.name AS subsystemName,
-              d.season_id AS seasonId, s.name AS season, d.status AS status, d.kind AS kind, f.title AS title, f.body AS body
+              d.season_id AS seasonId, s.name AS season, d.status AS status, d.kind AS kind, f.title AS title, f.body AS body,
+              c.inputs AS calcInputs, c.notes AS calcNotes
          FROM search_docs d CROSS JOIN search_fts f ON f.rowid = d.id
          LEFT JOIN seasons s ON s.id = d.season_id
          LEFT JOIN subsystems sub ON sub.slug = d.subsystem
+         LEFT JOIN calculations c ON d.type = 'calculation' AND c.id = d.ref_id
         WHERE d.id IN (SELECT value FROM json_each(?))`,
     ).all(JSON.stringify(ids)) as DetailRow[];
     return new Map(rows.map((r) => [r.docId, r]));
