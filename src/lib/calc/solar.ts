@@ -2,7 +2,8 @@
 import { z } from 'zod';
 import { choice, num, objectSchema } from './fields';
 import { SRC_FAIMAN, SRC_PVLIB, SRC_PVLIB_FAIMAN, SRC_PVWATTS, SRC_ROSS } from './sources';
-import type { Calculator, InputMeta } from './types';
+import { linspace } from './numeric';
+import type { Calculator, InputMeta, SeriesSet } from './types';
 
 export interface SolarInput {
   area_m2: number;
@@ -178,16 +179,34 @@ export const solarCalculator: Calculator<SolarInput, SolarOutput> = {
   compute(input) {
     const pStc = input.area_m2 * input.moduleEfficiency * 1000;
     const faiman = input.cellTemperatureModel === 'faiman';
-    const Tc = faiman
-      ? faimanCellTemperature(
-          input.irradiance_Wm2,
-          input.ambient_C,
-          input.windSpeed_mps,
-          input.faimanU0,
-          input.faimanU1,
-        )
-      : rossCellTemperature(input.irradiance_Wm2, input.ambient_C, input.noct_C);
-    const pDc = Math.max(0, pvwattsDc(input.irradiance_Wm2, Tc, pStc, input.tempCoefficient_perK));
+    const cellTemperature = (G: number) =>
+      faiman
+        ? faimanCellTemperature(G, input.ambient_C, input.windSpeed_mps, input.faimanU0, input.faimanU1)
+        : rossCellTemperature(G, input.ambient_C, input.noct_C);
+    const arrayPower = (G: number, Tc: number) =>
+      Math.max(0, pvwattsDc(G, Tc, pStc, input.tempCoefficient_perK)) * (1 - input.otherLosses);
+    const Tc = cellTemperature(input.irradiance_Wm2);
+    // The day's range of sun on the same array: power and cell temperature from dawn light to a clear noon.
+    const irradiances = linspace(0, Math.max(1200, input.irradiance_Wm2), 49);
+    const temps = irradiances.map(cellTemperature);
+    const x = { name: 'irradiance_Wm2', label: 'Irradiance G', unit: 'W/m²', values: irradiances };
+    const power: SeriesSet = {
+      title: 'Array power against irradiance',
+      x,
+      y: [
+        {
+          name: 'power_W',
+          label: 'Array power',
+          unit: 'W',
+          values: irradiances.map((G, i) => arrayPower(G, temps[i])),
+        },
+      ],
+    };
+    const temperature: SeriesSet = {
+      title: 'Cell temperature against irradiance',
+      x,
+      y: [{ name: 'cellTemperature_C', label: 'Cell temperature T_c', unit: '°C', values: temps }],
+    };
     const warnings = [
       faiman
         ? 'Faiman’s U₀ and U₁ were fitted to open-rack modules: a panel flush on a deck loses heat from one face only, so lower U₀ (or measure the cell temperature) for a flush-mounted array.'
@@ -200,7 +219,8 @@ export const solarCalculator: Calculator<SolarInput, SolarOutput> = {
     if (input.irradiance_Wm2 > 1100)
       warnings.push('Irradiance above 1100 W/m² is unusual outside brief cloud-edge peaks; check the value.');
     return {
-      outputs: { cellTemperature_C: Tc, power_W: pDc * (1 - input.otherLosses), ratedPower_W: pStc },
+      outputs: { cellTemperature_C: Tc, power_W: arrayPower(input.irradiance_Wm2, Tc), ratedPower_W: pStc },
+      series: { power, temperature },
       warnings,
     };
   },
