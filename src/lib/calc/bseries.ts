@@ -1,5 +1,6 @@
 import { KQ_TERMS, KT_TERMS, type BTerm } from './data/wageningen-b';
 import { OutOfRangeError } from './errors';
+import { timesTenTo } from './numeric';
 
 // Wageningen B-series open-water model. For a fixed propeller (Z, A_E/A_0, P/D) both polynomials collapse to
 // cubics in J, which is what makes the race solve and the propeller sweep cheap.
@@ -156,5 +157,5 @@ export const RN_SERIES = 2e6;
 
 export function reynoldsWarning(rn: number): string | null {
   if (rn >= RN_SERIES) return null;
-  return `Blade Reynolds number Rn₀.₇₅ ≈ ${rn.toExponential(1)} is below the 2·10⁶ of the series polynomials: small propellers in partly laminar flow usually give less thrust and need more torque than predicted, so expect the real efficiency to be somewhat lower (no correction is applied below 2·10⁶).`;
+  return `Blade Reynolds number Rn₀.₇₅ ≈ ${timesTenTo(rn, 1)} is below the 2·10⁶ of the series polynomials: small propellers in partly laminar flow usually give less thrust and need more torque than predicted, so expect the real efficiency to be somewhat lower (no correction is applied below 2·10⁶).`;
 }

@@ -79,3 +79,27 @@ export function interp(x: number, xs: readonly number[], ys: readonly number[]):
   const t = (x - xs[i - 1]) / (xs[i] - xs[i - 1]);
   return ys[i - 1] + t * (ys[i] - ys[i - 1]);
 }
+
+const SUPERSCRIPT: Record<string, string> = {
+  '-': '⁻',
+  '0': '⁰',
+  '1': '¹',
+  '2': '²',
+  '3': '³',
+  '4': '⁴',
+  '5': '⁵',
+  '6': '⁶',
+  '7': '⁷',
+  '8': '⁸',
+  '9': '⁹',
+};
+
+/** A number for warning text in the form people write it, "1.3·10⁶", never "1.3e+6". */
+export function timesTenTo(x: number, digits = 1): string {
+  const [mantissa, exponent] = x.toExponential(digits).split('e');
+  const power = String(Number(exponent))
+    .split('')
+    .map((c) => SUPERSCRIPT[c] ?? c)
+    .join('');
+  return `${mantissa}·10${power}`;
+}

@@ -4,7 +4,7 @@
 import { z } from 'zod';
 import { OutOfRangeError } from './errors';
 import { num, objectSchema } from './fields';
-import { linspace } from './numeric';
+import { linspace, timesTenTo } from './numeric';
 import { waterProperties, type WaterKind } from './properties/water';
 import { SRC_ITTC57, SRC_ITTC78, SRC_ITTC_WATER } from './sources';
 import type { Calculator, InputMeta, SeriesSet } from './types';
@@ -170,7 +170,7 @@ export const resistanceCalculator: Calculator<ResistanceInput, ResistanceOutput>
     if (r.reynolds < RE_MIN)
       throw new OutOfRangeError(
         'speed_mps',
-        `Reynolds number ${r.reynolds.toExponential(2)} is below 1·10⁵, where the ITTC-1957 line does not apply; raise the speed or check the length.`,
+        `Reynolds number ${timesTenTo(r.reynolds, 2)} is below 1·10⁵, where the ITTC-1957 line does not apply; raise the speed or check the length.`,
       );
     const warnings: string[] = [];
     if (r.reynolds < 1e6)

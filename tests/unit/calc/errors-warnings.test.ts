@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { calculators, runCalculator } from '../../../src/lib/calc';
+import { timesTenTo } from '../../../src/lib/calc/numeric';
 
 describe('out-of-range errors name the input', () => {
   const cases: [string, object, string][] = [
@@ -79,5 +80,24 @@ describe('warnings where specified', () => {
   });
   it('a weak glycol mix warns about frost and corrosion protection (common practice)', () => {
     expect(warnings('cooling', { coolant: 'glycol', glycolFraction: 0.1 })).toMatch(/frost protection/);
+  });
+});
+
+describe('numbers in warning text', () => {
+  it('are written 1.3·10⁶, never 1.3e+6', () => {
+    expect(timesTenTo(1.26e6, 1)).toBe('1.3·10⁶');
+    expect(timesTenTo(4.2e-7, 2)).toBe('4.20·10⁻⁷');
+    // a small propeller at low speed is below the series' Reynolds number, and a short slow hull below 1·10⁵
+    // what a person reads: the warnings of a result, or the sentence of a refusal (422)
+    const textOf = (kind: string, inputs: object) => {
+      const r = runCalculator(kind, inputs);
+      return r.ok ? r.result.warnings : [r.message];
+    };
+    const all = [
+      ...textOf('propeller', { diameter_m: 0.1, rpm: 600, speed_mps: 0.5 }),
+      ...textOf('resistance', { length_m: 0.3, speed_mps: 0.2 }),
+    ].join(' ');
+    expect(all).toMatch(/·10⁵|·10⁴/);
+    expect(all).not.toMatch(/\de[+-]\d/);
   });
 });
