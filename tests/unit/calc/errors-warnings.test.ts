@@ -91,7 +91,7 @@ describe('numbers in warning text', () => {
     // what a person reads: the warnings of a result, or the sentence of a refusal (422)
     const textOf = (kind: string, inputs: object) => {
       const r = runCalculator(kind, inputs);
-      return r.ok ? r.result.warnings : [r.message];
+      return r.ok ? r.result.warnings : 'message' in r ? [r.message] : [];
     };
     const all = [
       ...textOf('propeller', { diameter_m: 0.1, rpm: 600, speed_mps: 0.5 }),
