@@ -65,12 +65,15 @@ const MAIN_PAGES = [
   '/handover',
   '/search?q=propeller',
   '/account',
+  '/questions',
 ];
 const EXTRA: Partial<Record<Role, string[]>> = {
   lead: [
     '/onboarding',
     '/admin',
-    // '/admin/people' is 469 px wide at 390 px (its cause not found yet; see the report)
+    // its table scrolls in its own box; the box is positioned so that the table's screen-reader-only labels stay inside it
+    '/admin/people',
+    '/guides/suggestions',
     '/admin/invitations',
     '/admin/audit',
     '/admin/outbox',
@@ -378,7 +381,7 @@ describe('records: layout and print', () => {
     expect(await page.locator('.chart-canvas').first().isVisible()).toBe(false);
     expect(
       await page
-        .getByRole('heading', { name: /Questions and answers/ })
+        .getByRole('heading', { name: /Questions and notes/ })
         .first()
         .isVisible(),
     ).toBe(true);

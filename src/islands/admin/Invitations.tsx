@@ -108,7 +108,7 @@ export default function Invitations({ subsystems, season, capturing, initial }: 
         {list.length === 0 ? (
           <p className="empty">No invitations in the last 30 days.</p>
         ) : (
-          <div className="overflow-x-auto">
+          <div className="relative overflow-x-auto">
             <table className="w-full border-collapse text-sm">
               <caption className="sr-only">Invitations, newest first</caption>
               <thead>

@@ -21,7 +21,7 @@ export default function GridTable({ grid, highlight }: { grid: Grid; highlight?:
   const isFailed = (xi: number, yi: number) => grid.failed?.[yi]?.[xi] === true;
   const anyFailed = grid.failed?.some((row) => row.some(Boolean)) ?? false;
   return (
-    <div className="overflow-x-auto">
+    <div className="relative overflow-x-auto">
       <table className="heat-map tabular border-collapse text-xs">
         <caption className="mb-1 text-left text-sm font-semibold">
           {grid.title} — {grid.z.label}
