@@ -66,6 +66,8 @@ describe('test data against the prediction', () => {
     const section = page.locator('section', {
       has: page.getByRole('heading', { name: 'Test data against the prediction' }),
     });
+    // The section's island wakes when it scrolls into view, as a reader reaches it.
+    await section.scrollIntoViewIfNeeded();
     await section.getByRole('button', { name: 'Fit form factor' }).waitFor();
     await section.getByLabel('Drivetrain efficiency (battery to thrust)').fill('1.5');
     await section.getByRole('button', { name: 'Fit form factor' }).click();

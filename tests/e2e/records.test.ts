@@ -110,11 +110,13 @@ describe('decision records in the browser', () => {
         buffer: Buffer.from('time_s,current_A,voltage_V\n0,10,48\n1,60,47.1\n2,80,46.5\n3,75,46.7\n'),
       },
     ]);
-    await page.getByRole('button', { name: 'Show the new attachments' }).click();
+    // Both appear where they were dropped, without a reload: the image, and the log plotted with its column picker.
     await page.getByRole('img', { name: 'Attached image loop.png' }).waitFor();
-    const csvCard = page.getByLabel('Along (x)');
-    await csvCard.scrollIntoViewIfNeeded();
-    await page.locator('canvas').first().waitFor();
+    const added = page.getByRole('region', { name: 'Just attached' });
+    await added.getByLabel('Along (x)').scrollIntoViewIfNeeded();
+    await added.locator('canvas').first().waitFor();
+    // and they stay: after a reload the record lists the log once
+    await page.reload();
     expect(await page.getByRole('link', { name: 'current-log.csv' }).count()).toBe(1);
     await shot(page, 'record-attachments');
   });

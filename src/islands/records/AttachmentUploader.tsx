@@ -1,6 +1,8 @@
-import { useRef, useState, type DragEvent } from 'react';
+import { lazy, Suspense, useRef, useState, type DragEvent } from 'react';
 import { apiErrorMessage } from '~/lib/client/api';
-import CsvPreview from './CsvPreview';
+
+// The plot (uPlot and the CSV parser, ~33 kB gzip) loads only once a CSV has been added here, not with every record page.
+const CsvPreview = lazy(() => import('./CsvPreview'));
 
 /** What POST /api/records/{id}/attachments answers with (the fields this island shows). */
 interface Added {
@@ -125,7 +127,9 @@ export default function AttachmentUploader({ recordId, maxMb }: { recordId: stri
               </figure>
             ) : a.isCsv ? (
               <div key={a.id} className="card">
-                <CsvPreview url={a.url} name={a.fileName} />
+                <Suspense fallback={<p className="text-sm text-muted">Loading the plot of {a.fileName}…</p>}>
+                  <CsvPreview url={a.url} name={a.fileName} />
+                </Suspense>
               </div>
             ) : (
               <p key={a.id} className="text-sm">
