@@ -71,6 +71,7 @@ describe('seasons admin', () => {
       await lead.getByRole('heading', { name: 'Open the next season' }).waitFor();
       expect(await lead.locator('#next-season-startsOn').inputValue()).toBe('2026-12-19');
       expect(await lead.locator('#next-season-endsOn').inputValue()).toBe('2027-12-18');
+      expect(await lead.locator('#next-season-name').inputValue()).toBe('2026–27');
     } else {
       const options = await lead.locator('#roll-target option').allTextContents();
       expect(options.every((o) => o.startsWith('2026–27'))).toBe(true);

@@ -18,7 +18,10 @@ function following(date: string | undefined) {
   const start = d.toISOString().slice(0, 10);
   d.setUTCFullYear(d.getUTCFullYear() + 1);
   d.setUTCDate(d.getUTCDate() - 1);
-  return { startsOn: start, endsOn: d.toISOString().slice(0, 10) };
+  const end = d.toISOString().slice(0, 10);
+  // named the way seasons are: the years it spans, "2026–27" (one year alone when it starts on 1 January)
+  const [y0, y1] = [start.slice(0, 4), end.slice(0, 4)];
+  return { name: y0 === y1 ? y0 : `${y0}–${y1.slice(2)}`, startsOn: start, endsOn: end };
 }
 
 /**

@@ -261,7 +261,8 @@ export class SearchEngine {
         titleHtml: highlightHtml(d.title, highlighter),
         snippet: snippetHtml(snippetText(d), highlighter),
         subsystem: d.subsystem,
-        subsystemName: d.subsystemName,
+        // team-wide guides sit under 'general', which is no subsystem; say it as the guide page does
+        subsystemName: d.subsystemName ?? (d.subsystem === 'general' ? 'Team-wide' : null),
         season: d.season,
         seasonId: d.seasonId,
         status: d.status,
