@@ -39,3 +39,9 @@ export type CommentKind = (typeof COMMENT_KINDS)[number];
 /** Where a suggested change to a guide stands. */
 export const SUGGESTION_STATES = ['open', 'done', 'declined'] as const;
 export type SuggestionState = (typeof SUGGESTION_STATES)[number];
+
+/** Where an import of files stands, and where each of its files stands. */
+export const IMPORT_STATES = ['queued', 'running', 'done'] as const;
+export type ImportState = (typeof IMPORT_STATES)[number];
+export const IMPORT_ITEM_STATES = ['queued', 'done', 'skipped', 'failed'] as const;
+export type ImportItemState = (typeof IMPORT_ITEM_STATES)[number];

@@ -4,3 +4,5 @@ export * from './records';
 export * from './calculations';
 export * from './activity';
 export * from './guides';
+export * from './sync';
+export * from './imports';
