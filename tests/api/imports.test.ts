@@ -2,6 +2,9 @@
 // duplicate, a broken file, zip bombs) goes through POST /api/imports; every stored draft is checked.
 import { describe, it, expect, beforeAll, afterEach } from 'vitest';
 import { eq } from 'drizzle-orm';
+import { randomBytes } from 'node:crypto';
+import { existsSync, readdirSync } from 'node:fs';
+import { join, resolve } from 'node:path';
 import { call } from '../setup/http';
 import { seedDemo, sessionsForAllRoles, type DemoRole } from '../setup/db';
 import { makeDocx, makePdf, makePng, makeZip } from '../setup/documents';
@@ -12,10 +15,16 @@ import * as download from '../../src/pages/api/attachments/[id]';
 import * as seasonsRoute from '../../src/pages/api/seasons/index';
 import * as audit from '../../src/pages/api/audit';
 import { importsSettled, resumeImports } from '../../src/lib/server/imports/queue';
-import { resetSettingsForTests } from '../../src/lib/server/config';
 import { db } from '../../src/lib/server/db/client';
 import { importItems, imports, users } from '../../src/lib/server/db/schema';
 import { storeBytes } from '../../src/lib/server/storage';
+import { resetSettingsForTests, settings } from '../../src/lib/server/config';
+
+/** Files still in the uploads folder's incoming/ (half-received uploads). */
+function incomingFiles(): string[] {
+  const dir = join(resolve(settings().WAKEBOOK_UPLOADS), 'incoming');
+  return existsSync(dir) ? readdirSync(dir) : [];
+}
 
 let s: Record<DemoRole, string>;
 let seasons: { id: string; name: string; current: boolean; startsOn: string }[] = [];
@@ -279,6 +288,15 @@ describe('a fixture folder imported', () => {
     expect(item.recordId).toBe(byName('transom.md').recordId);
   });
 
+  it('once the record holding the bytes is discarded, the same file imports again', async () => {
+    const first = await importAndWait('member', [['discard-me.md', '# Short-lived note\n\nText.']]);
+    const id = first.done.items[0].recordId;
+    expect((await call(recordRoute, 'DELETE', { session: s.member, params: { id } })).status).toBe(204);
+    const again = await importAndWait('member', [['discard-me.md', '# Short-lived note\n\nText.']]);
+    expect(again.done.items[0].state).toBe('done');
+    expect(again.done.items[0].recordId).not.toBe(id);
+  });
+
   it('a zip of a folder: each document one draft; folders, __MACOSX and .DS_Store left out; entry dates used', async () => {
     const zip = await makeZip(
       [
@@ -413,6 +431,8 @@ describe('limits', () => {
     expect(res.status).toBe(413);
     expect(res.body.error.message).toContain('zip bomb');
     expect(db().select().from(imports).all().length).toBe(before);
+    // Nothing half-received is left behind in the uploads folder.
+    expect(incomingFiles()).toEqual([]);
   });
 
   it('a zip that declares more than the unzipped limit is refused with 413 before anything is inflated', async () => {
@@ -423,6 +443,15 @@ describe('limits', () => {
     const res = await importFiles('member', [['huge.zip', zip]]);
     expect(res.status).toBe(413);
     expect(res.body.error.message).toMatch(/over 500 MB unzipped/);
+  });
+
+  it('a zip over the zip limit: 413, and nothing left behind', async () => {
+    setEnv({ WAKEBOOK_IMPORT_ZIP_MB: '0.01' });
+    const zip = await makeZip([['noise.txt', randomBytes(20_000).toString('base64')]]);
+    const res = await importFiles('member', [['big.zip', zip]]);
+    expect(res.status).toBe(413);
+    expect(res.body.error.message).toContain('big.zip is over 0.01 MB');
+    expect(incomingFiles()).toEqual([]);
   });
 
   it('a file over the size limit: 413', async () => {
