@@ -42,7 +42,8 @@ type FileSpec = [string, Uint8Array | string];
 function form(files: FileSpec[], fields: Record<string, string> = {}) {
   const f = new FormData();
   for (const [k, v] of Object.entries({ subsystem: 'hull', kind: 'decision', ...fields })) f.set(k, v);
-  for (const [name, bytes] of files) f.append('file', new Blob([bytes]), name);
+  for (const [name, bytes] of files)
+    f.append('file', new Blob([typeof bytes === 'string' ? bytes : new Uint8Array(bytes)]), name);
   return f;
 }
 
