@@ -198,10 +198,10 @@ function htmlToDocument(
         return isSafeHref(src) && /^https?:/i.test(src.trim()) ? src.trim() : null;
       },
     });
-    const doc = parser.parse(parsed.body as unknown as Node).toJSON() as JSONContent;
+    const doc = parser.parse(parsed.body).toJSON() as JSONContent;
     return { title: chosen, doc, meta: parsed };
   } finally {
-    window.happyDOM.abort();
+    void window.happyDOM.abort();
     void window.happyDOM.close();
   }
 }

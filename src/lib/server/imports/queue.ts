@@ -18,7 +18,6 @@ import { cleanName } from '../records/attachments';
 import { createRecord } from '../records/write';
 import { recordCreateSchema } from '../../schemas/records';
 import { can } from '../../policy';
-import type { Role } from '../../domain';
 import { baseName, convertFile, extensionOf, ImportProblem } from './convert';
 
 const queue = new PQueue({ concurrency: 1 });
@@ -174,7 +173,7 @@ async function convertItem(item: typeof importItems.$inferSelect, imp: typeof im
       message: `${item.fileName} was not imported: the person who started it is no longer on the team.`,
       recordId: null,
     };
-  const actor = { id: user.id, email: user.email, role: user.role as Role };
+  const actor = { id: user.id, email: user.email, role: user.role };
   const holder = holderOf(item.sha256);
   if (holder)
     return {
