@@ -446,6 +446,20 @@ describe('limits', () => {
     expect(res.body.error.message).toMatch(/over 500 MB unzipped/);
   });
 
+  it('a Word file that is a zip bomb inside fails alone, unopened', async () => {
+    const bomb = await makeZip([
+      ['word/document.xml', Buffer.alloc(40 * 1024 * 1024, 0x20)],
+      ['docProps/core.xml', '<x/>'],
+    ]);
+    const { done } = await importAndWait('member', [
+      ['inflated.docx', bomb],
+      ['beside-it.md', '# Beside the bomb'],
+    ]);
+    expect(done.items[0].state).toBe('failed');
+    expect(done.items[0].message).toMatch(/^inflated\.docx was not imported: it is not a Word file we can open safely/);
+    expect(done.items[1].state).toBe('done');
+  });
+
   it('a zip over the zip limit: 413, and nothing left behind', async () => {
     setEnv({ WAKEBOOK_IMPORT_ZIP_MB: '0.01' });
     const zip = await makeZip([['noise.txt', randomBytes(20_000).toString('base64')]]);
