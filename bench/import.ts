@@ -1,8 +1,10 @@
 // Importing 100 mixed documents (20 each of Word, PDF, HTML, Markdown and text, all different) through the API of
 // the built server: one POST /api/imports, then GET /api/imports/{id} until every file is done. Reports the time to
 // the 202, the time until the last file is a draft, files per second, and how quickly the server kept answering
-// other requests (GET /api/health) while it converted. Needs `npm run build`; run alone with `--only import`.
+// other requests (GET /api/health) while it converted, and the server's CPU time per file. Needs `npm run build`; run alone with `--only import`.
 import { makeDocx, makePdf, makePng } from '../tests/setup/documents';
+import { loadavg } from 'node:os';
+import { cpuMs } from './load';
 import { percentile } from './stats';
 import { startBuiltServer, signInCookie } from './server';
 
@@ -78,6 +80,7 @@ export default async function benchImport(): Promise<object[]> {
       }
     })();
 
+    const cpu0 = cpuMs(server.child.pid!);
     const t0 = performance.now();
     const res = await fetch(`${server.base}/api/imports`, {
       method: 'POST',
@@ -96,6 +99,7 @@ export default async function benchImport(): Promise<object[]> {
       await new Promise((r) => setTimeout(r, 25));
     }
     const total = performance.now() - t0;
+    const cpu = cpuMs(server.child.pid!) - cpu0;
     running = false;
     await probe;
     const states = view.items.reduce<Record<string, number>>(
@@ -115,6 +119,9 @@ export default async function benchImport(): Promise<object[]> {
         accepted_ms: round(accepted, 1),
         seconds: round(total / 1000, 2),
         files_per_s: round((FILES * 1000) / total, 1),
+        // The server's own CPU time per file (steadier than seconds on a shared machine; includes the polling GETs).
+        server_cpu_ms_per_file: round(cpu / FILES, 1),
+        load_avg_1m: round(loadavg()[0]),
         other_requests: others.length,
         other_p50_ms: round(percentile(sorted, 50), 1),
         other_max_ms: round(sorted[sorted.length - 1] ?? NaN, 1),
