@@ -42,3 +42,21 @@ export function restingIndex(
   }
   return best;
 }
+
+/** A line's value at `x`, straight between its two neighbouring points (x ascending); null outside its points. */
+export function valueAt(
+  xs: ArrayLike<number | null | undefined>,
+  ys: ArrayLike<number | null | undefined>,
+  x: number,
+): number | null {
+  let prev: [number, number] | null = null;
+  for (let i = 0; i < xs.length; i++) {
+    const xi = xs[i];
+    const yi = ys[i];
+    if (typeof xi !== 'number' || !Number.isFinite(xi) || typeof yi !== 'number' || !Number.isFinite(yi)) continue;
+    if (xi === x) return yi;
+    if (prev && (prev[0] - x) * (xi - x) < 0) return prev[1] + ((yi - prev[1]) * (x - prev[0])) / (xi - prev[0]);
+    prev = [xi, yi];
+  }
+  return null;
+}

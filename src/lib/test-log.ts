@@ -1,6 +1,6 @@
 // Units of a test log's columns from their suffixes ("speed_mps", "power_kW", "temp_C"), and conversion to the units
 // a calculator's curves use, so a log can be drawn over a prediction. Pure; used by the test-log island.
-import { readableWords, unitFromName } from './units';
+import { readableWords, unitFromName, UNIT_SUFFIXES } from './units';
 
 interface UnitInfo {
   /** unit as the calculators write it */
@@ -72,10 +72,13 @@ export function unitConversion(from: string, to: string): ((v: number) => number
 
 /**
  * A column's header as people read it: `thrust_N` → "Thrust (N)", `boat_speed_kts` → "Boat speed (kn)",
- * `motorTemp_C` → "Motor temp (°C)". A header without a known unit suffix stays its own words (`lap_count` → "Lap
+ * `motorTemp_C` → "Motor temp (°C)", `rpm` → "rpm". A header without a known unit suffix stays its own words (`lap_count` → "Lap
  * count", `Speed (m/s)` as written). Screens keep the header itself at hand (a title) for people who know the file.
  */
 export function columnLabel(header: string): string {
+  // A column named by its unit alone ("rpm", "V") is read as that unit.
+  const bare = header.trim();
+  if (UNIT_SUFFIXES[bare]) return UNIT_SUFFIXES[bare];
   const named = unitFromName(header);
   if (named.unit) return `${named.label} (${named.unit})`;
   const col = logColumn(header);

@@ -39,7 +39,8 @@ describe('decision records in the browser', () => {
     const picker = page.getByRole('group', { name: /Linked calculations/ });
     await picker.getByPlaceholder('Filter by title…').fill('Main battery lead');
     // Each calculation is named with its calculator's name, not its kind key.
-    expect(await picker.locator('label').first().textContent()).toContain('Cable voltage drop');
+    const option = picker.locator('label', { has: page.getByRole('checkbox') }).first();
+    expect(await option.textContent()).toContain('Cable voltage drop ·');
     await picker.getByRole('checkbox').first().check();
     await Promise.all([
       page.waitForURL(/\/records\/[a-z2-7]{16}$/),
@@ -120,7 +121,7 @@ describe('decision records in the browser', () => {
     // Column choices read as words with units; the header as written stays in the title.
     const voltage = added.getByLabel('Voltage (V)');
     expect(await voltage.isChecked()).toBe(true);
-    expect(await added.locator('label', { has: voltage }).getAttribute('title')).toBe('voltage_V');
+    expect(await added.locator('label[title="voltage_V"]').textContent()).toBe('Voltage (V)');
     expect(await added.getByLabel('Along (x)').locator('option:checked').textContent()).toBe('Time (s)');
     // and they stay: after a reload the record lists the log once
     await page.reload();

@@ -38,6 +38,7 @@ describe('readable column labels from CSV headers', () => {
     expect(columnLabel('coolant_in_C')).toBe('Coolant in (°C)');
     expect(columnLabel('motorTemp_C')).toBe('Motor temp (°C)');
     expect(columnLabel('time_s')).toBe('Time (s)');
+    expect(columnLabel('rpm')).toBe('rpm');
   });
   it('a header without a known unit stays readable words, capitals kept', () => {
     expect(columnLabel('lap')).toBe('Lap');

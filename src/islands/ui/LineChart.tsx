@@ -2,7 +2,7 @@ import { useEffect, useRef, useState } from 'react';
 import uPlot from 'uplot';
 import 'uplot/dist/uPlot.min.css';
 import type { SeriesSet } from '~/lib/calc/types';
-import { restingIndex, type ChartMark } from '~/lib/chart-marks';
+import { restingIndex, valueAt, type ChartMark } from '~/lib/chart-marks';
 import { formatNumber } from '~/lib/format';
 import { plainSymbols } from '~/lib/symbols';
 import Sym from './Sym';
@@ -54,6 +54,12 @@ function useSchemeVersion(): number {
 
 const NO_MARKS: ChartMark[] = [];
 
+/** Legend values to about three significant figures: 1,600 rpm, 619.9 N, 0.123. */
+const legendNumber = (v: number) => {
+  const abs = Math.abs(v);
+  return formatNumber(v, abs >= 100 ? 0 : abs >= 10 ? 1 : abs >= 1 ? 2 : 3);
+};
+
 const tick = (v: number) => formatNumber(v, Math.abs(v) >= 100 || Number.isInteger(v) ? 0 : 2);
 
 /** Room for the widest tick value, so the axis title beside it is never drawn over or cut off. */
@@ -98,10 +104,17 @@ export default function LineChart({
     // While nobody points at the chart the legend reads the operating point (or the last point), not a dash.
     const atX = marks[0]?.x;
     const resting = data.map((ys) => restingIndex(data[0], ys, atX));
-    const legendValue = (_u: uPlot, v: number | null, sidx: number, idx: number | null) => {
+    const atRest = (sidx: number) => {
+      if (atX !== undefined) {
+        const at = sidx === 0 ? atX : valueAt(data[0], data[sidx], atX);
+        if (at !== null) return at;
+      }
       const rest = resting[sidx];
-      const shown = idx == null ? (rest == null ? null : data[sidx][rest]) : v;
-      return shown == null ? '–' : formatNumber(shown, 3);
+      return rest == null ? null : (data[sidx][rest] ?? null);
+    };
+    const legendValue = (_u: uPlot, v: number | null, sidx: number, idx: number | null) => {
+      const shown = idx == null ? atRest(sidx) : v;
+      return shown == null ? '–' : legendNumber(shown);
     };
     const lines: uPlot.Series[] = [];
     datasets.forEach((d, di) =>
