@@ -101,6 +101,8 @@ describe('calculators as a member uses them', () => {
     await page.getByRole('heading', { name: 'Compare calculations' }).waitFor();
     const pitchRow = page.getByRole('row', { name: /Pitch ratio/ });
     expect(await pitchRow.textContent()).toContain('differs');
+    // A choice reads as its option's name, as on the saved page, not as its key.
+    expect(await page.getByRole('row', { name: /^Water Fresh water Fresh water/ }).count()).toBe(1);
     await page.locator('figure').first().scrollIntoViewIfNeeded();
     await page.locator('canvas').first().waitFor();
     expect(await page.locator('figcaption').first().textContent()).toContain('(B, dashed)');
