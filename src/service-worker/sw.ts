@@ -160,10 +160,10 @@ async function refreshPack(person: string): Promise<void> {
   if (!res.ok) return;
   const answer = (await res.json()) as PackAnswer;
   if (answer.person !== person || !(await stillMine())) return;
-  const pack = applyPack(before, answer, WAKEBOOK_BUILD, new Date().toISOString());
+  const { pack, dropped } = applyPack(before, answer, WAKEBOOK_BUILD, new Date().toISOString());
 
   const pages = await caches.open(pagesCache(person));
-  for (const url of answer.removed ?? []) await pages.delete(url.url);
+  for (const url of dropped) await pages.delete(url);
   const keptUrls = new Set((await pages.keys()).map((r) => new URL(r.url).pathname + new URL(r.url).search));
   const queue = pagesToWarm(pack, answer, keptUrls).slice(0, WARM_PER_REFRESH);
   const worker = async () => {
