@@ -93,6 +93,7 @@ const MATRIX: Record<string, Row> = {
   'POST /api/imports': { allow: WRITERS },
   // Any signed-in person reaches the lookup; only the importer or a lead sees an import (tests/api/imports.test.ts).
   'GET /api/imports/[id]': { allow: ALL, params: { id: 'nope' } },
+  'GET /api/offline/pack': { allow: ALL },
   'GET /api/search': { allow: ALL },
 };
 
