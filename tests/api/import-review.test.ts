@@ -106,10 +106,10 @@ describe('the review list', () => {
     expect(rows[3]).toMatchObject({ state: 'failed', message: 'broken.docx could not be read.', draft: null });
   });
 
-  it('is the importer’s and the leads’: another member gets 404, advisors and alumni 403', async () => {
+  it('is the importer’s and the leads’: another member, advisors and alumni get 403', async () => {
     const imp = await makeImport('lead', ['decision']);
     expect((await review(imp.id, s.lead)).status).toBe(200);
-    expect((await review(imp.id, s.member)).status).toBe(404);
+    expect((await review(imp.id, s.member)).status).toBe(403);
     expect((await review(imp.id, s.advisor)).status).toBe(403);
     expect((await review(imp.id, s.alumni)).status).toBe(403);
     expect((await call(reviewRoute, 'GET', { params: { id: imp.id } })).status).toBe(401);
@@ -188,9 +188,9 @@ describe('changing many drafts at once', () => {
     }
     const r = (await call(recordRoute, 'GET', { session: s.member, params: { id: imp.recordIds[0] } })).body.record;
     expect(r).toMatchObject({ kind: 'decision', version: 1 });
-    // Someone else's import is not found for a member, whatever the ids.
+    // Someone else's import is refused to a member, whatever the ids.
     const leads = await makeImport('lead', ['decision']);
-    expect((await change(leads.id, s.member, { recordIds: leads.recordIds, kind: 'lesson' })).status).toBe(404);
+    expect((await change(leads.id, s.member, { recordIds: leads.recordIds, kind: 'lesson' })).status).toBe(403);
   });
 
   it('leaves a draft alone once it has moved on from draft', async () => {
@@ -240,7 +240,7 @@ describe('discarding many drafts at once', () => {
   it('refuses another member, advisors and alumni, and a skipped file’s older record', async () => {
     const imp = await makeImport('lead', ['decision']);
     const body = { recordIds: imp.recordIds };
-    expect((await call(discardRoute, 'POST', { session: s.member, params: { id: imp.id }, body })).status).toBe(404);
+    expect((await call(discardRoute, 'POST', { session: s.member, params: { id: imp.id }, body })).status).toBe(403);
     expect((await call(discardRoute, 'POST', { session: s.advisor, params: { id: imp.id }, body })).status).toBe(403);
     const older = await call(discardRoute, 'POST', {
       session: s.lead,

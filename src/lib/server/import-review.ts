@@ -5,12 +5,14 @@ import { db } from './db/client';
 import { importItems, imports, records, seasons, subsystems } from './db/schema';
 import { HttpError, conflict, invalidInput, notFound } from './http';
 import { recordAudit } from './audit';
+import { settings } from './config';
 import { findSeason, findSubsystem } from './seasons';
 import { insertRevision, softDeleteIn } from './records/write';
 import { onRecordChanged } from './records/hooks';
 import { INITIAL_STATUS } from '../record-rules';
 import { can } from '../policy';
 import type { RecordKind, Role } from '../domain';
+import type { ImportLimits } from '../import-files';
 import type {
   ImportBulkChangeInput,
   ImportDiscardInput,
@@ -33,10 +35,12 @@ function previewOf(text: string): string {
   return lines.length > PREVIEW_CHARS ? `${lines.slice(0, PREVIEW_CHARS - 1).trimEnd()}…` : lines;
 }
 
-/** The import, if the actor may see it: their own, or any for a lead. Others get a 404 (ids are not guessable). */
+/** The import, if the actor may see it: the person who started it, or a lead (as GET /api/imports/{id}). */
 function loadImport(id: string, actor: Actor) {
   const row = db().select().from(imports).where(eq(imports.id, id)).get();
-  if (!row || (row.userId !== actor.id && actor.role !== 'lead')) throw notFound('That import');
+  if (!row) throw notFound('That import');
+  if (row.userId !== actor.id && actor.role !== 'lead')
+    throw new HttpError(403, 'forbidden', 'Only the person who started an import (or a lead) may review it.');
   return row;
 }
 
@@ -252,4 +256,26 @@ export function discardImportedDrafts(importId: string, input: ImportDiscardInpu
     onRecordChanged(r.id);
   }
   return drafts.length;
+}
+
+/** For the page: the review, or null when there is no such import, or 'forbidden' when it is someone else's. */
+export function reviewPageOf(id: string, actor: Actor): ImportReview | null | 'forbidden' {
+  try {
+    return getImportReview(id, actor);
+  } catch (e) {
+    if (e instanceof HttpError && e.status === 404) return null;
+    if (e instanceof HttpError && e.status === 403) return 'forbidden';
+    throw e;
+  }
+}
+
+/** The limits of one import, from the settings, for the page to say in words. */
+export function importLimits(): ImportLimits {
+  const s = settings();
+  return {
+    fileMb: s.WAKEBOOK_MAX_UPLOAD_MB,
+    zipMb: s.WAKEBOOK_IMPORT_ZIP_MB,
+    totalMb: s.WAKEBOOK_IMPORT_TOTAL_MB,
+    files: s.WAKEBOOK_IMPORT_MAX_FILES,
+  };
 }
