@@ -27,6 +27,8 @@ const WORDS: Record<string, string> = {
   'record.discard': 'discarded the draft',
   'record.import-change': 'changed the kind, subsystem or season of the imported draft',
   'record.question-answered': 'marked a question answered on',
+  'record.import': 'imported a document as',
+  'import.start': 'started an import of documents',
   'calculation.create': 'saved the calculation',
   'calculation.recompute': 'recomputed',
   'calculation.update': 'changed',
