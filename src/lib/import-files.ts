@@ -46,7 +46,8 @@ export function problemWith(file: { name: string; size: number }, l: ImportLimit
     return `${file.name} is not a file an import reads (${ENDINGS.map((e) => `.${e}`).join(' ')}).`;
   if (file.size === 0) return `${file.name} is empty.`;
   const max = ending === 'zip' ? l.zipMb : l.fileMb;
-  if (file.size > max * MB) return `${file.name} is over ${max} MB, the largest ${ending === 'zip' ? 'zip' : 'file'} an import takes.`;
+  if (file.size > max * MB)
+    return `${file.name} is over ${max} MB, the largest ${ending === 'zip' ? 'zip' : 'file'} an import takes.`;
   return null;
 }
 
@@ -54,6 +55,7 @@ export function problemWith(file: { name: string; size: number }, l: ImportLimit
 export function problemWithAll(files: { size: number }[], l: ImportLimits): string | null {
   if (files.length > l.files) return `Choose at most ${l.files} files for one import.`;
   const total = files.reduce((a, f) => a + f.size, 0);
-  if (total > l.totalMb * MB) return `Together these files are ${fileSize(total)}; one import takes up to ${l.totalMb} MB.`;
+  if (total > l.totalMb * MB)
+    return `Together these files are ${fileSize(total)}; one import takes up to ${l.totalMb} MB.`;
   return null;
 }

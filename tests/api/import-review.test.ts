@@ -9,6 +9,8 @@ import * as revisions from '../../src/pages/api/records/[id]/revisions';
 import * as reviewRoute from '../../src/pages/api/imports/[id]/records';
 import * as discardRoute from '../../src/pages/api/imports/[id]/discard';
 import * as audit from '../../src/pages/api/audit';
+import * as importsRoute from '../../src/pages/api/imports/index';
+import { importsSettled } from '../../src/lib/server/imports/queue';
 import { db } from '../../src/lib/server/db/client';
 import { importItems, imports, users } from '../../src/lib/server/db/schema';
 import { listSeasons } from '../../src/lib/server/seasons';
@@ -90,7 +92,58 @@ const review = (importId: string, session: string) => call(reviewRoute, 'GET', {
 const change = (importId: string, session: string, body: object) =>
   call(reviewRoute, 'PATCH', { session, params: { id: importId }, body });
 
+/** Starts an import through the real API, as the page does, and waits for the queue to convert it. */
+async function importThroughApi(role: DemoRole, files: Record<string, string>, fields: Record<string, string>) {
+  const form = new FormData();
+  for (const [name, text] of Object.entries(files)) form.append('file', new Blob([text]), name);
+  for (const [k, v] of Object.entries(fields)) form.set(k, v);
+  const request = new Request('http://localhost/', { method: 'POST', body: form });
+  const res = await call(importsRoute, 'POST', {
+    session: s[role],
+    rawBody: new Uint8Array(await request.arrayBuffer()),
+    headers: { 'content-type': request.headers.get('content-type')! },
+  });
+  expect(res.status, res.text).toBe(202);
+  await importsSettled();
+  return res.body.import.id as string;
+}
+
 describe('the review list', () => {
+  it('follows an import made through the API: each file a draft with title, kind, season and preview', async () => {
+    const stamp = Date.now();
+    const id = await importThroughApi(
+      'member',
+      {
+        'shaft-notes.md': `# Shaft line notes ${stamp}\n\nThe coupling slipped twice at full power.\n\nSecond line.`,
+        'crew.txt': `Crew roster habits ${stamp}\nEveryone signs the logbook.`,
+      },
+      { subsystem: 'propulsion', kind: 'lesson' },
+    );
+    const res = await review(id, s.member);
+    expect(res.status).toBe(200);
+    expect(res.body.review).toMatchObject({ state: 'done', total: 2, done: 2 });
+    const [md, txt] = res.body.review.rows;
+    expect(md).toMatchObject({ fileName: 'shaft-notes.md', state: 'done' });
+    expect(md.draft).toMatchObject({ kind: 'lesson', subsystem: 'propulsion', seasonId: current });
+    expect(md.draft.title).toBe(`Shaft line notes ${stamp}`);
+    expect(md.draft.preview).toContain('The coupling slipped twice at full power.');
+    expect(txt.draft.subsystemName).toBe('Propulsion and motor drive');
+    // The same bytes again: skipped, naming the draft that already holds them.
+    const again = await importThroughApi(
+      'member',
+      { 'shaft-notes.md': `# Shaft line notes ${stamp}\n\nThe coupling slipped twice at full power.\n\nSecond line.` },
+      { subsystem: 'propulsion', kind: 'lesson' },
+    );
+    const skipped = (await review(again, s.member)).body.review.rows[0];
+    expect(skipped).toMatchObject({ state: 'skipped', draft: null });
+    expect(skipped.existing).toEqual({ id: md.draft.id, title: md.draft.title });
+    // Bulk change on the real import: both become decision drafts.
+    const changed = await change(id, s.member, { recordIds: [md.draft.id, txt.draft.id], kind: 'decision' });
+    expect(changed.body).toEqual({ updated: 2 });
+    const r = (await call(recordRoute, 'GET', { session: s.member, params: { id: md.draft.id } })).body.record;
+    expect(r).toMatchObject({ kind: 'decision', status: 'draft' });
+  });
+
   it('shows each file with its draft, the record a skipped file is already in, and why one failed', async () => {
     const imp = await makeImport('member', ['decision', 'lesson']);
     const res = await review(imp.id, s.member);

@@ -47,11 +47,13 @@ describe('importing documents', () => {
   });
 
   it('imports the sample Markdown, text and HTML files and follows the conversion to the end', async () => {
-    await page.getByLabel('Documents to import').setInputFiles([
-      sample('launch-day-checklist.md', 'text/markdown'),
-      sample('charger-notes.txt', 'text/plain'),
-      sample('pod-seal-leak.html', 'text/html'),
-    ]);
+    await page
+      .getByLabel('Documents to import')
+      .setInputFiles([
+        sample('launch-day-checklist.md', 'text/markdown'),
+        sample('charger-notes.txt', 'text/plain'),
+        sample('pod-seal-leak.html', 'text/html'),
+      ]);
     await page.getByRole('heading', { name: /^3 files chosen/ }).waitFor();
     await page.getByLabel('Subsystem').selectOption('battery');
     await page.getByLabel('decision record').check();
@@ -80,7 +82,9 @@ describe('importing documents', () => {
     await page.getByLabel('Kind').selectOption('lesson');
     await page.getByRole('button', { name: 'Change 2 selected' }).click();
     await page.getByText('Changed 2 drafts.').waitFor();
-    await expect.poll(async () => (await imported(page).allTextContents()).filter((t) => t.includes('Lesson ·')).length).toBe(2);
+    await expect
+      .poll(async () => (await imported(page).allTextContents()).filter((t) => t.includes('Lesson ·')).length)
+      .toBe(2);
     // Still the same drafts after a reload: the change was stored.
     await page.reload();
     const after = await imported(page).allTextContents();
@@ -114,7 +118,10 @@ describe('importing documents', () => {
   it('opens a draft in the editor', async () => {
     await Promise.all([
       page.waitForURL(/\/records\/[A-Za-z0-9_-]+\/edit$/),
-      page.getByRole('link', { name: /^Open “.+” in the editor$/ }).first().click(),
+      page
+        .getByRole('link', { name: /^Open “.+” in the editor$/ })
+        .first()
+        .click(),
     ]);
     await page.locator('.ProseMirror').waitFor();
   });

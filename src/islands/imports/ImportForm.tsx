@@ -53,7 +53,7 @@ export default function ImportForm({
   const add = (list: FileList | File[]) => {
     const known = new Set(files.map((f) => `${f.name}:${f.size}`));
     setFiles([...files, ...Array.from(list).filter((f) => !known.has(`${f.name}:${f.size}`))]);
-    setErrors(({ file: _, ...rest }) => rest);
+    setErrors((e) => Object.fromEntries(Object.entries(e).filter(([k]) => k !== 'file')));
     setProblem('');
   };
   const remove = (i: number) => setFiles(files.filter((_, j) => j !== i));
@@ -297,8 +297,8 @@ export default function ImportForm({
         {sending.state === 'uploading' && (
           <>
             <label htmlFor={`${ids}-upload`} className="text-sm">
-              Uploading {files.length} {files.length === 1 ? 'file' : 'files'}:{' '}
-              {fileSize(sending.loaded)} of {fileSize(sending.total)}
+              Uploading {files.length} {files.length === 1 ? 'file' : 'files'}: {fileSize(sending.loaded)} of{' '}
+              {fileSize(sending.total)}
             </label>
             <progress id={`${ids}-upload`} className="w-full" max={sending.total || 1} value={sending.loaded} />
           </>

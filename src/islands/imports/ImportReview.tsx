@@ -31,7 +31,7 @@ const POLL_MS = 1000;
 export default function ImportReview({ initial, subsystems, seasons }: Props) {
   const id = initial.id;
   // A finished import needs no polling; a running one is asked every second until it is done.
-  const { data: progress, error: progressError } = useSWR<Progress>(
+  const { data: progress, error: progressError } = useSWR<Progress, unknown>(
     initial.state === 'done' ? null : `/api/imports/${id}`,
     fetcher,
     { refreshInterval: (latest) => (latest?.import.state === 'done' ? 0 : POLL_MS) },
@@ -228,7 +228,13 @@ function ReviewList({
                   error={errors.subsystem}
                   options={subsystems}
                 />
-                <BulkSelect label="Season" value={seasonId} onChange={setSeasonId} error={errors.seasonId} options={seasons} />
+                <BulkSelect
+                  label="Season"
+                  value={seasonId}
+                  onChange={setSeasonId}
+                  error={errors.seasonId}
+                  options={seasons}
+                />
               </div>
               {errors.recordIds && <p className="field-error">{errors.recordIds}</p>}
               <div className="flex flex-wrap gap-2">
@@ -349,8 +355,14 @@ function Row({ row, checked, toggle }: { row: ImportReviewRow; checked: boolean;
             ) : (
               <span className="font-semibold break-words">{row.fileName}</span>
             )}
-            <span className={`status ${row.state === 'failed' ? 'status-withdrawn' : row.state === 'done' ? 'status-draft' : 'status-proposed'}`}>
-              {row.gone === 'discarded' ? 'Discarded' : row.gone === 'moved-on' ? 'Moved on from draft' : STATE_WORDS[row.state]}
+            <span
+              className={`status ${row.state === 'failed' ? 'status-withdrawn' : row.state === 'done' ? 'status-draft' : 'status-proposed'}`}
+            >
+              {row.gone === 'discarded'
+                ? 'Discarded'
+                : row.gone === 'moved-on'
+                  ? 'Moved on from draft'
+                  : STATE_WORDS[row.state]}
             </span>
           </p>
           <p className="mt-0.5 text-sm text-muted break-words">
