@@ -128,8 +128,10 @@ export default function ImportForm({
           className={`rounded-lg border-2 border-dashed p-6 text-center ${over ? 'border-accent bg-accent-soft' : 'border-line bg-surface'}`}
         >
           <p className="font-semibold">Drop documents or a zipped folder here</p>
-          <p className="mt-1 text-sm text-muted">Word (.docx), Markdown (.md, .markdown), web pages (.html, .htm),</p>
-          <p className="text-sm text-muted">text (.txt), PDF (.pdf), or a .zip of a folder of them.</p>
+          <p className="mx-auto mt-1 max-w-md text-sm text-muted">
+            Word (.docx), Markdown (.md, .markdown), web pages (.html, .htm), text (.txt), PDF (.pdf), or a .zip of a
+            folder of them.
+          </p>
           <button
             type="button"
             className="btn btn-quiet mt-3"
@@ -170,7 +172,23 @@ export default function ImportForm({
           <h2 id={`${ids}-chosen`} className="font-semibold">
             {files.length} {files.length === 1 ? 'file' : 'files'} chosen · {fileSize(total)}
           </h2>
-          <ul className="flex flex-col divide-y divide-line rounded-lg border border-line bg-surface">
+          {files.length > 1 && (
+            <p>
+              <button
+                type="button"
+                className="btn btn-quiet px-2 py-1 text-xs"
+                onClick={() => setFiles([])}
+                disabled={busy}
+              >
+                Remove all
+              </button>
+            </p>
+          )}
+          <ul
+            className="flex max-h-80 flex-col divide-y divide-line overflow-y-auto rounded-lg border border-line bg-surface"
+            aria-label="Chosen files"
+            tabIndex={files.length > 6 ? 0 : undefined}
+          >
             {files.map((f, i) => (
               <li key={`${f.name}:${f.size}`} className="flex flex-wrap items-center gap-x-3 gap-y-1 px-3 py-2 text-sm">
                 <span className="min-w-0 flex-1 break-words">{f.name}</span>
@@ -243,7 +261,7 @@ export default function ImportForm({
           ) : (
             <input
               id={`${ids}-season`}
-              className="input"
+              className="input bg-sunken"
               value={currentSeason?.label ?? 'No season is current'}
               readOnly
               aria-describedby={`${ids}-season-hint`}

@@ -384,7 +384,7 @@ function Row({ row, checked, toggle }: { row: ImportReviewRow; checked: boolean;
           {d && (
             <p className="mt-2">
               <a className="btn btn-quiet px-2 py-1 text-sm" href={`/records/${d.id}/edit`}>
-                Open “{shorten(d.title)}” in the editor
+                Open in the editor<span className="sr-only">: {d.title}</span>
               </a>
             </p>
           )}
@@ -392,8 +392,4 @@ function Row({ row, checked, toggle }: { row: ImportReviewRow; checked: boolean;
       </div>
     </li>
   );
-}
-
-function shorten(title: string): string {
-  return title.length > 40 ? `${title.slice(0, 39)}…` : title;
 }
