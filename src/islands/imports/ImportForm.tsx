@@ -251,7 +251,7 @@ export default function ImportForm({
               aria-describedby={errors.seasonId ? `${ids}-season-error` : `${ids}-season-hint`}
               disabled={busy}
             >
-              <option value="">Each file’s own date (else the current season)</option>
+              <option value="">By each file’s own date</option>
               {seasons.map((s) => (
                 <option key={s.value} value={s.value}>
                   {s.label}
@@ -269,7 +269,7 @@ export default function ImportForm({
           )}
           <p id={`${ids}-season-hint`} className="text-xs text-muted">
             {canPickSeason
-              ? 'A file’s date is the one saved inside it (or in the zip), when it has one.'
+              ? 'The season a file’s own date (saved inside it, or in the zip) falls in; else the current one.'
               : 'Members import into the current season; a lead can move drafts to earlier seasons.'}
           </p>
           {errors.seasonId && (

@@ -15,7 +15,7 @@ import type { RecordCreateInput, RecordPatchInput } from '../../schemas/records'
 import { onRecordChanged } from './hooks';
 
 type Actor = { id: string; email: string; role: Role };
-export type Tx = Parameters<Parameters<ReturnType<typeof db>['transaction']>[0]>[0];
+type Tx = Parameters<Parameters<ReturnType<typeof db>['transaction']>[0]>[0];
 
 function forbidden(message = 'Your role may not do this.') {
   return new HttpError(403, 'forbidden', message);
