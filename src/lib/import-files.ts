@@ -1,7 +1,8 @@
 // What the import page checks before sending, and says in words. Pure: shared by the page and its islands.
 
-/** The file name endings an import reads (see the server's own list in domain.ts). */
-const ENDINGS = ['docx', 'md', 'markdown', 'html', 'htm', 'txt', 'pdf', 'zip'] as const;
+import { IMPORT_EXTENSIONS } from './domain';
+
+const ENDINGS: readonly string[] = IMPORT_EXTENSIONS;
 
 /** For the file picker's `accept`. */
 export const IMPORT_ACCEPT = ENDINGS.map((e) => `.${e}`).join(',');
@@ -42,7 +43,7 @@ export function limitsInWords(l: ImportLimits): string[] {
 /** Why a chosen file would be refused before it is sent, or null when it may go. */
 export function problemWith(file: { name: string; size: number }, l: ImportLimits): string | null {
   const ending = endingOf(file.name);
-  if (!(ENDINGS as readonly string[]).includes(ending))
+  if (!ENDINGS.includes(ending))
     return `${file.name} is not a file an import reads (${ENDINGS.map((e) => `.${e}`).join(' ')}).`;
   if (file.size === 0) return `${file.name} is empty.`;
   const max = ending === 'zip' ? l.zipMb : l.fileMb;
