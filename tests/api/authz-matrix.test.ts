@@ -93,6 +93,10 @@ const MATRIX: Record<string, Row> = {
   'PATCH /api/imports/[id]/records': { allow: WRITERS, params: { id: 'nope' } },
   'POST /api/imports/[id]/discard': { allow: WRITERS, params: { id: 'nope' } },
   'GET /api/readiness': { allow: ALL },
+  'GET /api/imports': { allow: WRITERS },
+  'POST /api/imports': { allow: WRITERS },
+  // Any signed-in person reaches the lookup; only the importer or a lead sees an import (tests/api/imports.test.ts).
+  'GET /api/imports/[id]': { allow: ALL, params: { id: 'nope' } },
   'GET /api/search': { allow: ALL },
 };
 

@@ -91,7 +91,9 @@ async function expandZip(path: string, zipName: string, out: PendingItem[]): Pro
   try {
     for (const entry of zip.entries) {
       if (isSystemEntry(entry.name)) continue;
-      const name = cleanPath(`${zipName.replace(/\.zip$/i, '')}/${entry.name}`);
+      // A zipped folder already starts with the folder's name; loose files get the zip's name in front.
+      const folder = zipName.replace(/\.zip$/i, '');
+      const name = cleanPath(entry.name.startsWith(`${folder}/`) ? entry.name : `${folder}/${entry.name}`);
       if (!importable(entry.name)) out.push(failed(name, entry.size, notImportable(name)));
       else if (extensionOf(entry.name) === 'zip')
         out.push(failed(name, entry.size, `${name} was not imported: a zip inside a zip is not opened.`));

@@ -18,10 +18,11 @@ import { cleanName } from '../records/attachments';
 import { createRecord } from '../records/write';
 import { recordCreateSchema } from '../../schemas/records';
 import { can } from '../../policy';
-import type { Role } from '../../domain';
 import { baseName, convertFile, extensionOf, ImportProblem } from './convert';
 
 const queue = new PQueue({ concurrency: 1 });
+/** The longest one file may take to convert. */
+const FILE_SECONDS = 60;
 
 /**
  * Dates the files inside a zip carry (the zip's own entry dates), kept only while the file waits: the tables have no
@@ -79,13 +80,22 @@ async function runItem(itemId: string): Promise<void> {
   if (row.imp.state === 'queued')
     db().update(imports).set({ state: 'running' }).where(eq(imports.id, row.imp.id)).run();
   let finish: Finish;
+  let timer: NodeJS.Timeout | undefined;
   try {
-    finish = await convertItem(row.item, row.imp);
+    // A file that takes unreasonably long (a crafted PDF, say) fails instead of holding up every import behind it.
+    const tooSlow = new Promise<never>((_, reject) => {
+      timer = setTimeout(
+        () => reject(new ImportProblem(`reading it took over ${FILE_SECONDS} seconds, so it was given up.`)),
+        FILE_SECONDS * 1000,
+      );
+    });
+    finish = await Promise.race([convertItem(row.item, row.imp), tooSlow]);
   } catch (e) {
     finish = { state: 'failed', message: failureMessage(row.item.fileName, e), recordId: null };
     if (!(e instanceof ImportProblem) && !(e instanceof HttpError))
       console.error(`[wakebook] import of ${row.item.fileName} failed:`, e);
   }
+  clearTimeout(timer);
   entryDates.delete(itemId);
   finishItem(row.item.id, row.imp.id, finish);
 }
@@ -174,7 +184,7 @@ async function convertItem(item: typeof importItems.$inferSelect, imp: typeof im
       message: `${item.fileName} was not imported: the person who started it is no longer on the team.`,
       recordId: null,
     };
-  const actor = { id: user.id, email: user.email, role: user.role as Role };
+  const actor = { id: user.id, email: user.email, role: user.role };
   const holder = holderOf(item.sha256);
   if (holder)
     return {
