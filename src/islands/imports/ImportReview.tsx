@@ -78,7 +78,7 @@ export default function ImportReview({ initial, subsystems, seasons }: Props) {
             .filter(Boolean)
             .join(' · ') || 'Waiting for the first file…'}
         </p>
-        {progressError && (
+        {progressError !== undefined && (
           <p className="field-error" role="alert">
             {progressError instanceof ApiError ? progressError.message : 'Lost touch with the server; retrying.'}
           </p>
