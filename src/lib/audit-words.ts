@@ -28,7 +28,7 @@ const WORDS: Record<string, string> = {
   'record.import-change': 'changed the kind, subsystem or season of the imported draft',
   'record.question-answered': 'marked a question answered on',
   'record.import': 'imported a document as',
-  'import.start': 'started an import of documents',
+  'import.start': 'started importing',
   'calculation.create': 'saved the calculation',
   'calculation.recompute': 'recomputed',
   'calculation.update': 'changed',

@@ -343,6 +343,9 @@ describe('a fixture folder imported', () => {
     const actions = res.body.entries.map((e: { action: string }) => e.action);
     expect(actions).toContain('import.start');
     expect(actions).toContain('record.import');
+    const start = res.body.entries.find((e: { action: string }) => e.action === 'import.start');
+    expect(start.actionText).toBe('started importing');
+    expect(start.targetTitle).toMatch(/^\d+ files? into /);
   });
 });
 

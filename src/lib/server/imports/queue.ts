@@ -81,15 +81,16 @@ async function runItem(itemId: string): Promise<void> {
     db().update(imports).set({ state: 'running' }).where(eq(imports.id, row.imp.id)).run();
   let finish: Finish;
   let timer: NodeJS.Timeout | undefined;
+  const clock = { timedOut: false };
   try {
     // A file that takes unreasonably long (a crafted PDF, say) fails instead of holding up every import behind it.
     const tooSlow = new Promise<never>((_, reject) => {
-      timer = setTimeout(
-        () => reject(new ImportProblem(`reading it took over ${FILE_SECONDS} seconds, so it was given up.`)),
-        FILE_SECONDS * 1000,
-      );
+      timer = setTimeout(() => {
+        clock.timedOut = true;
+        reject(new ImportProblem(`reading it took over ${FILE_SECONDS} seconds, so it was given up.`));
+      }, FILE_SECONDS * 1000);
     });
-    finish = await Promise.race([convertItem(row.item, row.imp), tooSlow]);
+    finish = await Promise.race([convertItem(row.item, row.imp, clock), tooSlow]);
   } catch (e) {
     finish = { state: 'failed', message: failureMessage(row.item.fileName, e), recordId: null };
     if (!(e instanceof ImportProblem) && !(e instanceof HttpError))
@@ -176,7 +177,11 @@ function unlink(n: JSONContent, dropped: Set<string>): JSONContent {
   return out;
 }
 
-async function convertItem(item: typeof importItems.$inferSelect, imp: typeof imports.$inferSelect): Promise<Finish> {
+async function convertItem(
+  item: typeof importItems.$inferSelect,
+  imp: typeof imports.$inferSelect,
+  clock: { timedOut: boolean },
+): Promise<Finish> {
   const user = imp.userId ? db().select().from(users).where(eq(users.id, imp.userId)).get() : undefined;
   if (!user)
     return {
@@ -242,6 +247,8 @@ async function convertItem(item: typeof importItems.$inferSelect, imp: typeof im
   });
   // Lessons have no draft status: they start open, as typed ones do.
   if (imp.kind === 'lesson') delete input.status;
+  // Given up meanwhile (the file is already marked failed): write nothing.
+  if (clock.timedOut) return { state: 'failed', message: null, recordId: null };
   const record = createRecord(input, actor);
   const now = new Date();
   const base = baseName(item.fileName);
