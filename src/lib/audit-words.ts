@@ -25,6 +25,7 @@ const WORDS: Record<string, string> = {
   'record.attachment': 'attached a file to',
   'record.delete': 'deleted',
   'record.discard': 'discarded the draft',
+  'record.import-change': 'changed the kind, subsystem or season of the imported draft',
   'record.question-answered': 'marked a question answered on',
   'record.import': 'imported a document as',
   'import.start': 'started importing',

@@ -60,6 +60,8 @@ const FIELDS: Record<string, Record<string, FieldType>> = {
   // Shares its file with PATCH; reads no body, so whatever is sent must change nothing.
   'DELETE /api/calculations/[id]': { title: 'string' },
   'PUT /api/onboarding/[subsystem]': { items: 'array' },
+  'PATCH /api/imports/[id]/records': { recordIds: 'array', kind: 'string', subsystem: 'string', seasonId: 'string' },
+  'POST /api/imports/[id]/discard': { recordIds: 'array' },
   'POST /api/onboarding/[subsystem]/progress': { itemId: 'string', done: 'boolean' },
 };
 
