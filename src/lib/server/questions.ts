@@ -4,7 +4,7 @@
 // either e-mail off (users.notifyQuestions / users.notifyAnswers).
 import { and, asc, desc, eq, inArray, isNotNull, isNull, lt, ne, sql } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/sqlite-core';
-import { db } from './db/client';
+import { db, prepared } from './db/client';
 import { comments, membershipSubsystems, records, seasonMemberships, seasons, subsystems, users } from './db/schema';
 import { HttpError, conflict, invalidInput, notFound } from './http';
 import { newId } from './ids';
@@ -78,10 +78,14 @@ function toView(c: CommentRow): CommentView {
 
 /** Every comment on a record, oldest first (answers follow their question in the islands). */
 export function listComments(recordId: string): CommentView[] {
-  return commentQuery()
-    .where(eq(comments.recordId, recordId))
-    .orderBy(asc(comments.createdAt), asc(comments.id))
-    .all()
+  // Prepared once: every record page reads these, and building the joined SQL cost more than running it.
+  return prepared('listComments', () =>
+    commentQuery()
+      .where(eq(comments.recordId, sql.placeholder('recordId')))
+      .orderBy(asc(comments.createdAt), asc(comments.id))
+      .prepare(),
+  )
+    .all({ recordId })
     .map(toView);
 }
 
