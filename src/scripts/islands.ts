@@ -40,7 +40,7 @@ const registry = {
 export type IslandName = keyof typeof registry;
 
 /** Marks the island mounted once React has committed it. A single child: React's useId paths stay the same. */
-function Mounted({ el, children }: { el: HTMLElement; children: ReactNode }) {
+function Mounted({ el, children }: { el: HTMLElement; children?: ReactNode }) {
   useEffect(() => {
     el.removeAttribute('data-pending');
     el.setAttribute('data-mounted', '');

@@ -340,28 +340,35 @@ export function listQuestions(filter: { state?: QuestionState; subsystem?: strin
  * season. Never their own questions.
  */
 export function questionsWaitingFor(userId: string): (QuestionView & { reason: QuestionReason })[] {
-  const current = currentSeason();
-  const owned = db()
-    .selectDistinct({ slug: membershipSubsystems.subsystemSlug })
-    .from(seasonMemberships)
-    .innerJoin(membershipSubsystems, eq(membershipSubsystems.membershipId, seasonMemberships.id))
-    .innerJoin(seasons, eq(seasons.id, seasonMemberships.seasonId))
-    .where(and(eq(seasonMemberships.userId, userId), current ? lt(seasons.startsOn, current.startsOn) : undefined))
-    .all()
+  // Both statements are prepared once (every home page asks): the subsystems come in as a JSON array, and "before
+  // the current season" is a date bound that every season passes when none is current.
+  const before = currentSeason()?.startsOn ?? '9999-12-31';
+  const owned = prepared('questionsWaitingFor.owned', (d) =>
+    d
+      .selectDistinct({ slug: membershipSubsystems.subsystemSlug })
+      .from(seasonMemberships)
+      .innerJoin(membershipSubsystems, eq(membershipSubsystems.membershipId, seasonMemberships.id))
+      .innerJoin(seasons, eq(seasons.id, seasonMemberships.seasonId))
+      .where(
+        and(eq(seasonMemberships.userId, sql.placeholder('userId')), lt(seasons.startsOn, sql.placeholder('before'))),
+      )
+      .prepare(),
+  )
+    .all({ userId, before })
     .map((r) => r.slug);
-  const rows = questionQuery()
-    .where(
-      and(
-        eq(comments.kind, 'question'),
-        isNull(records.deletedAt),
-        isNull(comments.answeredAt),
-        ne(sql`coalesce(${comments.authorId}, '')`, userId),
-        owned.length
-          ? sql`(${records.authorId} = ${userId} or ${inArray(records.subsystemSlug, owned)})`
-          : eq(records.authorId, userId),
-      ),
-    )
-    .orderBy(desc(comments.createdAt))
-    .all();
+  const rows = prepared('questionsWaitingFor.rows', () =>
+    questionQuery()
+      .where(
+        and(
+          eq(comments.kind, 'question'),
+          isNull(records.deletedAt),
+          isNull(comments.answeredAt),
+          ne(sql`coalesce(${comments.authorId}, '')`, sql.placeholder('userId')),
+          sql`(${records.authorId} = ${sql.placeholder('userId')} or ${records.subsystemSlug} in (select value from json_each(${sql.placeholder('owned')})))`,
+        ),
+      )
+      .orderBy(desc(comments.createdAt))
+      .prepare(),
+  ).all({ userId, owned: JSON.stringify(owned) });
   return rows.map((q) => ({ ...toQuestion(q), reason: q.recordAuthorId === userId ? 'author' : 'earlier-owner' }));
 }
