@@ -26,6 +26,8 @@ const WORDS: Record<string, string> = {
   'record.delete': 'deleted',
   'record.discard': 'discarded the draft',
   'record.question-answered': 'marked a question answered on',
+  'record.import': 'imported a document as',
+  'import.start': 'started importing',
   'calculation.create': 'saved the calculation',
   'calculation.recompute': 'recomputed',
   'calculation.update': 'changed',

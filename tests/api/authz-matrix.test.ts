@@ -89,6 +89,11 @@ const MATRIX: Record<string, Row> = {
   'PUT /api/onboarding/[subsystem]': { allow: REVIEWERS, params: { subsystem: 'nope' } },
   'POST /api/onboarding/[subsystem]/progress': { allow: ALL, params: { subsystem: 'hull' } },
   'GET /api/readiness': { allow: ALL },
+  'GET /api/imports': { allow: WRITERS },
+  'POST /api/imports': { allow: WRITERS },
+  // Any signed-in person reaches the lookup; only the importer or a lead sees an import (tests/api/imports.test.ts).
+  'GET /api/imports/[id]': { allow: ALL, params: { id: 'nope' } },
+  'GET /api/offline/pack': { allow: ALL },
   'GET /api/search': { allow: ALL },
 };
 
