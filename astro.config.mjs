@@ -43,15 +43,13 @@ export default defineConfig({
   },
   server: { port: 4321, host: '127.0.0.1' },
   devToolbar: { enabled: false },
-  experimental: {
-    // Astro hashes the inline scripts it writes itself (island loaders, small bundled scripts) at build time and
-    // names them in the page's content-security-policy header; src/lib/server/security-headers.ts keeps exactly
-    // those script hashes and adds the rest of our policy. Nothing found in a rendered page is ever trusted.
-    csp: { algorithm: 'SHA-256' },
-  },
+  // No inline scripts at all: islands are mounted by one bundled module (src/scripts/islands.ts, see
+  // src/components/Island.astro) and every <script> is bundled to a file, so the policy is script-src 'self' with
+  // nothing hashed per render (docs/decisions/020-islands-from-one-script.md). Astro's experimental.csp is off.
   vite: {
     plugins: [tailwindcss()],
     // Fonts (KaTeX's small ones included) stay files from our origin: a data: URL would break font-src 'self'.
-    build: { assetsInlineLimit: (file) => (/\.(woff2?|ttf|otf)$/.test(file) ? false : undefined) },
+    // Scripts are never inlined into the page either, however small: script-src 'self' allows only files.
+    build: { assetsInlineLimit: (file) => (/\.(woff2?|ttf|otf|[cm]?[jt]sx?)$/.test(file) ? false : undefined) },
   },
 });

@@ -31,8 +31,8 @@ describe('calculators as a member uses them', () => {
     await page.getByRole('link', { name: 'Propeller open-water performance' }).click();
     await page.waitForURL(/\/calculations\/new\/propeller$/);
     await output('thrust_N').waitFor();
-    // Typing before the form's island has hydrated would be lost: Astro drops `ssr` from an island once hydrated.
-    await page.waitForFunction(() => !document.querySelector('astro-island[ssr]'));
+    // Typing before the form's island has hydrated would be lost: an island is marked `data-mounted` once React has committed it.
+    await page.waitForFunction(() => !document.querySelector('[data-island][data-pending]'));
     const thrustBefore = await output('thrust_N').textContent();
     const chartLabelBefore = await page.locator('figure figcaption').first().textContent();
     await page.getByLabel('Pitch ratio P/D').fill('1.2');

@@ -31,7 +31,7 @@ interface Node {
 /** Comments load their JavaScript when they come into view: scroll there and wait until the island is live. */
 async function commentsReady(page: Page) {
   await page.getByRole('heading', { name: /^Questions and notes/ }).scrollIntoViewIfNeeded();
-  await page.locator('astro-island[component-url*="Comments"]:not([ssr])').waitFor({ state: 'attached' });
+  await page.locator('[data-island="records/Comments"][data-mounted]').waitFor({ state: 'attached' });
 }
 
 /** Edits a record through the API in the page's session: `change` rewrites its document in place. */
@@ -228,7 +228,7 @@ describe('questions', () => {
     const { ctx, page } = await signedIn('alumni@wakebook.test');
     await page.goto(`${baseUrl()}/account`);
     const box = page.getByLabel(/E-mail me new questions/);
-    await page.locator('astro-island:not([ssr])').first().waitFor({ state: 'attached' });
+    await page.locator('[data-island][data-mounted]').first().waitFor({ state: 'attached' });
     await box.uncheck();
     await page.getByText('No e-mails about new questions').waitFor();
     await page.reload();

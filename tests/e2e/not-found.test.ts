@@ -60,7 +60,7 @@ describe('seasons admin', () => {
     const lead = await (await browser.newContext({ viewport: { width: 1280, height: 900 } })).newPage();
     await signIn(lead, 'lead@wakebook.test');
     await lead.goto(`${baseUrl()}/seasons`);
-    await lead.locator('astro-island:not([ssr]) button').first().waitFor({ state: 'attached' });
+    await lead.locator('[data-island][data-mounted] button').first().waitFor({ state: 'attached' });
     // 2023–24 and 2024–25 are earlier than 2025–26; another test may have opened 2026–27 (which may be made current).
     expect(await lead.getByText('Earlier than the current season').count()).toBe(2);
     const later = await lead.getByRole('heading', { name: '2026–27', level: 2 }).count();

@@ -20,7 +20,7 @@ describe('onboarding, seasons and handover', () => {
       .or(page.locator('section[aria-labelledby="route-h"]'));
     await route.getByText(/of 5 done/).waitFor();
     const before = await route.getByText(/of 5 done/).textContent();
-    await page.locator('astro-island:not([ssr]) input[type="checkbox"]').first().waitFor({ state: 'attached' });
+    await page.locator('[data-island][data-mounted] input[type="checkbox"]').first().waitFor({ state: 'attached' });
     const box = route.getByRole('checkbox', { name: /Done: / }).nth(1);
     // The tick shows at once and is saved in the background: wait for the save before reloading.
     const saved = page.waitForResponse(
@@ -49,8 +49,8 @@ describe('onboarding, seasons and handover', () => {
     await page.getByText('Arrange this route').click();
     const list = page.getByRole('list', { name: 'Route items in order' });
     await list.getByRole('listitem').first().waitFor();
-    // The buttons answer once the island has hydrated (Astro drops the island's `ssr` attribute then).
-    await page.locator('astro-island:not([ssr])').getByRole('list', { name: 'Route items in order' }).waitFor();
+    // The buttons answer once the island has hydrated (it is marked `data-mounted` then).
+    await page.locator('[data-island][data-mounted]').getByRole('list', { name: 'Route items in order' }).waitFor();
     const title = (i: number) => list.getByRole('listitem').nth(i).locator('span.font-medium').textContent();
     const firstBefore = (await title(0))!;
     await list
@@ -71,7 +71,7 @@ describe('onboarding, seasons and handover', () => {
     const page = await browser.newPage({ viewport: { width: 1280, height: 1000 } });
     await signIn(page, 'lead@wakebook.test');
     await page.goto(`${baseUrl()}/seasons`);
-    await page.locator('astro-island:not([ssr]) #season-name').waitFor({ state: 'attached' });
+    await page.locator('[data-island][data-mounted] #season-name').waitFor({ state: 'attached' });
     await page.getByRole('button', { name: 'Open season' }).click();
     await page.getByText('Name the season').first().waitFor();
     await page.getByLabel('Name (e.g. 2026–27)').fill('2026–27');
@@ -80,7 +80,7 @@ describe('onboarding, seasons and handover', () => {
     await page.getByLabel('Boat (optional)').fill('Tern 6');
     await Promise.all([page.waitForLoadState('load'), page.getByRole('button', { name: 'Open season' }).click()]);
     await page.getByRole('heading', { name: '2026–27', level: 2 }).waitFor();
-    await page.locator('astro-island:not([ssr]) #season-name').waitFor({ state: 'attached' });
+    await page.locator('[data-island][data-mounted] #season-name').waitFor({ state: 'attached' });
     await page.getByRole('button', { name: 'Start the rollover…' }).click();
     await page.locator('#roll-target').waitFor();
     // Every member of the current season starts ticked as continuing; the lead unticks who leaves.

@@ -15,9 +15,9 @@ afterAll(async () => {
 const NEWCOMER = { email: 'noor.haddad@northmere.example', name: 'Noor Haddad', password: 'tern-five-rudder-bearing' };
 const NEW_PASSWORD = 'winter-layup-checklist-9';
 
-/** Islands ignore clicks until hydrated (Astro then drops the ssr attribute). */
+/** Islands ignore clicks until hydrated (they are then marked data-mounted). */
 async function hydrated(page: Page, selector: string): Promise<void> {
-  await page.locator(`astro-island:not([ssr]) ${selector}`).first().waitFor({ state: 'attached' });
+  await page.locator(`[data-island][data-mounted] ${selector}`).first().waitFor({ state: 'attached' });
 }
 
 /** The link in the newest captured e-mail to an address, read from the outbox page as a lead would. */

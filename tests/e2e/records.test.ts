@@ -98,8 +98,8 @@ describe('decision records in the browser', () => {
   it('uploads an image and a CSV log and sees them on the record', async () => {
     await page.goto(recordUrl);
     await page.getByText('Drop photos, PDFs').scrollIntoViewIfNeeded();
-    // Wait until the island has hydrated (Astro removes the ssr attribute), so the change event is heard.
-    await page.locator('astro-island:not([ssr]) input[aria-label="Attach files"]').waitFor({ state: 'attached' });
+    // Wait until the island has hydrated (it is then marked data-mounted), so the change event is heard.
+    await page.locator('[data-island][data-mounted] input[aria-label="Attach files"]').waitFor({ state: 'attached' });
     const input = page.getByLabel('Attach files');
     await input.setInputFiles([
       {

@@ -39,7 +39,7 @@ async function settled(page: Page): Promise<void> {
     window.scrollTo(0, 0);
   });
   await page
-    .waitForFunction(() => !document.querySelector('astro-island[ssr]'), null, { timeout: 5_000 })
+    .waitForFunction(() => !document.querySelector('[data-island][data-pending]'), null, { timeout: 5_000 })
     .catch(() => undefined); // an island inside a closed <details> wakes only when opened
   await page.evaluate(() => new Promise((r) => requestAnimationFrame(() => requestAnimationFrame(r))));
 }

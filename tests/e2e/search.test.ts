@@ -11,11 +11,11 @@ afterAll(async () => {
   await browser?.close();
 });
 
-/** Waits until the header's search island is hydrated (Astro drops `ssr` from an island once it is). */
+/** Waits until the header's search island is mounted (src/scripts/islands.ts marks it `data-mounted`). */
 async function headerReady(page: Page): Promise<void> {
   await page.waitForFunction(() => {
-    const island = document.querySelector('astro-island[component-url*="HeaderSearch"]');
-    return island !== null && !island.hasAttribute('ssr');
+    const island = document.querySelector('[data-island="search/HeaderSearch"]');
+    return island !== null && island.hasAttribute('data-mounted');
   });
 }
 

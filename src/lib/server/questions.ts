@@ -4,7 +4,7 @@
 // either e-mail off (users.notifyQuestions / users.notifyAnswers).
 import { and, asc, desc, eq, inArray, isNotNull, isNull, lt, ne, sql } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/sqlite-core';
-import { db } from './db/client';
+import { db, prepared } from './db/client';
 import { comments, membershipSubsystems, records, seasonMemberships, seasons, subsystems, users } from './db/schema';
 import { HttpError, conflict, invalidInput, notFound } from './http';
 import { newId } from './ids';
@@ -78,10 +78,14 @@ function toView(c: CommentRow): CommentView {
 
 /** Every comment on a record, oldest first (answers follow their question in the islands). */
 export function listComments(recordId: string): CommentView[] {
-  return commentQuery()
-    .where(eq(comments.recordId, recordId))
-    .orderBy(asc(comments.createdAt), asc(comments.id))
-    .all()
+  // Prepared once: every record page reads these, and building the joined SQL cost more than running it.
+  return prepared('listComments', () =>
+    commentQuery()
+      .where(eq(comments.recordId, sql.placeholder('recordId')))
+      .orderBy(asc(comments.createdAt), asc(comments.id))
+      .prepare(),
+  )
+    .all({ recordId })
     .map(toView);
 }
 
@@ -336,28 +340,35 @@ export function listQuestions(filter: { state?: QuestionState; subsystem?: strin
  * season. Never their own questions.
  */
 export function questionsWaitingFor(userId: string): (QuestionView & { reason: QuestionReason })[] {
-  const current = currentSeason();
-  const owned = db()
-    .selectDistinct({ slug: membershipSubsystems.subsystemSlug })
-    .from(seasonMemberships)
-    .innerJoin(membershipSubsystems, eq(membershipSubsystems.membershipId, seasonMemberships.id))
-    .innerJoin(seasons, eq(seasons.id, seasonMemberships.seasonId))
-    .where(and(eq(seasonMemberships.userId, userId), current ? lt(seasons.startsOn, current.startsOn) : undefined))
-    .all()
+  // Both statements are prepared once (every home page asks): the subsystems come in as a JSON array, and "before
+  // the current season" is a date bound that every season passes when none is current.
+  const before = currentSeason()?.startsOn ?? '9999-12-31';
+  const owned = prepared('questionsWaitingFor.owned', (d) =>
+    d
+      .selectDistinct({ slug: membershipSubsystems.subsystemSlug })
+      .from(seasonMemberships)
+      .innerJoin(membershipSubsystems, eq(membershipSubsystems.membershipId, seasonMemberships.id))
+      .innerJoin(seasons, eq(seasons.id, seasonMemberships.seasonId))
+      .where(
+        and(eq(seasonMemberships.userId, sql.placeholder('userId')), lt(seasons.startsOn, sql.placeholder('before'))),
+      )
+      .prepare(),
+  )
+    .all({ userId, before })
     .map((r) => r.slug);
-  const rows = questionQuery()
-    .where(
-      and(
-        eq(comments.kind, 'question'),
-        isNull(records.deletedAt),
-        isNull(comments.answeredAt),
-        ne(sql`coalesce(${comments.authorId}, '')`, userId),
-        owned.length
-          ? sql`(${records.authorId} = ${userId} or ${inArray(records.subsystemSlug, owned)})`
-          : eq(records.authorId, userId),
-      ),
-    )
-    .orderBy(desc(comments.createdAt))
-    .all();
+  const rows = prepared('questionsWaitingFor.rows', () =>
+    questionQuery()
+      .where(
+        and(
+          eq(comments.kind, 'question'),
+          isNull(records.deletedAt),
+          isNull(comments.answeredAt),
+          ne(sql`coalesce(${comments.authorId}, '')`, sql.placeholder('userId')),
+          sql`(${records.authorId} = ${sql.placeholder('userId')} or ${records.subsystemSlug} in (select value from json_each(${sql.placeholder('owned')})))`,
+        ),
+      )
+      .orderBy(desc(comments.createdAt))
+      .prepare(),
+  ).all({ userId, owned: JSON.stringify(owned) });
   return rows.map((q) => ({ ...toQuestion(q), reason: q.recordAuthorId === userId ? 'author' : 'earlier-owner' }));
 }

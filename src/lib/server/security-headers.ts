@@ -1,9 +1,10 @@
 import { STATUS_CODES } from 'node:http';
 
-/** Our policy without its script-src, which each page gets from the scripts Astro hashed at build time. */
+/** Our policy without its script-src. */
 const POLICY = [
   "default-src 'self'",
-  // Styles: the editor and the charts inject <style> elements and inline style attributes at run time.
+  // Styles: the editor and the charts inject <style> elements and inline style attributes at run time, and
+  // Astro inlines small stylesheets into the head.
   "style-src 'self' 'unsafe-inline'",
   "img-src 'self' data: blob:",
   "font-src 'self'",
@@ -23,25 +24,19 @@ const HEADERS: Record<string, string> = {
   'x-frame-options': 'DENY',
 };
 
-// A source that may stand in our script-src: the site itself or the hash of a script.
-const HASH_SOURCE = /^'sha(?:256|384|512)-[A-Za-z0-9+/]+={0,2}'$/;
+/** Pages run only our own script files; other responses (JSON, files) run none of theirs either. */
+const OWN_SCRIPTS_ONLY = `${POLICY}; script-src 'self'`;
 
 /**
- * The policy of an HTML page. Astro (experimental.csp in astro.config.mjs) names in the page's own policy header
- * the hashes of the inline scripts it writes itself, computed at build time from its island loaders and bundled
- * scripts; only those hashes are kept. Nothing found in the rendered HTML is trusted, so a script that user content
- * managed to place in a page would not run. The dev server does not compute hashes, so there inline scripts are
- * allowed.
+ * The policy of an HTML page: scripts only from our own files. Pages carry no inline script at all (islands are
+ * mounted by one bundled module, src/scripts/islands.ts, and every <script> is bundled to a file), so nothing is
+ * hashed and nothing found in a rendered page can ever be allowed. The dev server injects inline scripts of its
+ * own, so there they are allowed.
  */
-export function pagePolicy(astroPolicy: string | null): string {
+export function pagePolicy(): string {
   if (import.meta.env.MODE === 'development') return `${POLICY}; script-src 'self' 'unsafe-inline'`;
-  const declared = astroPolicy ? /(?:^|;)\s*script-src\s+([^;]*)/.exec(astroPolicy)?.[1] : undefined;
-  const hashes = new Set((declared ?? '').split(/\s+/).filter((source) => HASH_SOURCE.test(source)));
-  return `${POLICY}; script-src 'self'${[...hashes].map((h) => ` ${h}`).join('')}`;
+  return OWN_SCRIPTS_ONLY;
 }
-
-/** Responses that are not pages run no script at all. */
-const NON_PAGE_POLICY = `${POLICY}; script-src 'self'`;
 
 /**
  * Adds the headers every response carries. A route that set its own policy on a non-page answer (attachments are
@@ -70,7 +65,7 @@ export function withSecurityHeaders(response: Response): Response {
 function apply(headers: Headers): void {
   const page = (headers.get('content-type') ?? '').startsWith('text/html');
   const own = headers.get('content-security-policy');
-  if (page) headers.set('content-security-policy', pagePolicy(own));
-  else if (!own) headers.set('content-security-policy', NON_PAGE_POLICY);
+  if (page) headers.set('content-security-policy', pagePolicy());
+  else if (!own) headers.set('content-security-policy', OWN_SCRIPTS_ONLY);
   for (const [k, v] of Object.entries(HEADERS)) if (!headers.has(k)) headers.set(k, v);
 }
