@@ -58,7 +58,7 @@ const output = (p: Page, name: string) => p.locator(`[data-output="${name}"]`);
 async function thrustAtPitch(p: Page, pitch: string): Promise<string> {
   await p.goto(`${baseUrl()}${CALCULATOR}`);
   await output(p, 'thrust_N').waitFor();
-  await p.waitForFunction(() => !document.querySelector('astro-island[ssr]'));
+  await p.locator('[data-island="calc/CalculatorForm"][data-mounted]').waitFor();
   const before = await output(p, 'thrust_N').textContent();
   await p.getByLabel('Pitch ratio P/D').fill(pitch);
   await expect.poll(() => output(p, 'thrust_N').textContent()).not.toBe(before);
