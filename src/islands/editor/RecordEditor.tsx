@@ -5,7 +5,9 @@ import { recordExtensions } from '~/lib/editor/extensions';
 import { templateFor, withSectionSlots } from '~/lib/editor/templates';
 import { SectionPrompts } from '~/lib/editor/section-prompts';
 import { MAX_CHANGE_NOTE } from '~/lib/record-rules';
-import { apiFetch, ApiError, fetcher } from '~/lib/client/api';
+import { apiFetch, ApiError, fetcher, KeptOnDevice } from '~/lib/client/api';
+import { discardChange } from '~/lib/client/outbox';
+import { useOutboxDraft } from './outbox-draft';
 import { LESSON_SOURCES, type LessonSource, type RecordKind } from '~/lib/domain';
 import Toolbar from './Toolbar';
 import LinkPicker, { type PickOption } from './LinkPicker';
@@ -93,6 +95,7 @@ export default function RecordEditor({
   const [saving, setSaving] = useState(false);
   const [changeNote, setChangeNote] = useState('');
   const [conflict, setConflict] = useState<Conflict | null>(null);
+  const [kept, setKept] = useState(false);
   const leaving = useRef(false);
 
   const extensions = useMemo(() => [...recordExtensions(), SectionPrompts], []);
@@ -112,6 +115,25 @@ export default function RecordEditor({
   });
 
   const dirty = JSON.stringify({ fields, body: bodyJson }) !== saved;
+
+  // An edit kept offline that met a newer version: load it as "mine" and show the merge view.
+  const fromOutbox = useOutboxDraft(record?.id, editor, ({ edit, current }) => {
+    const { version: base, body, changeNote: note, ...kept } = edit;
+    const mine = { ...fields, ...kept, source: kept.source ?? fields.source };
+    setFields(mine);
+    editor?.commands.setContent(body);
+    setBodyJson(body);
+    setVersion(base);
+    setChangeNote(note ?? '');
+    setRestorable(null);
+    if (current.version !== base) {
+      setConflict(current);
+      setMessage({
+        tone: 'error',
+        text: `Your change kept on this device was made on version ${base}; version ${current.version} was saved meanwhile. Choose per section below, then save.`,
+      });
+    } else setMessage({ tone: 'ok', text: 'Your change kept on this device is in the editor. Save to send it.' });
+  });
 
   // Keep unsaved work in this browser, so a reload or a crash loses nothing.
   useEffect(() => {
@@ -188,6 +210,7 @@ export default function RecordEditor({
           const res = await apiFetch<{ record: { url: string } }>('/api/records', {
             method: 'POST',
             json: { kind, ...payload },
+            offline: { label: newLabel(kind, fields.title) },
           });
           clearDraft(key);
           leaving.current = true;
@@ -201,7 +224,9 @@ export default function RecordEditor({
             ...payload,
             ...(changeNote.trim() ? { changeNote: changeNote.trim() } : {}),
           },
+          offline: { label: `Edit of ‘${fields.title.trim() || record.title}’` },
         });
+        if (fromOutbox) await discardChange(fromOutbox);
         setVersion(res.record.version);
         setChangeNote('');
         setSaved(JSON.stringify({ fields, body }));
@@ -210,7 +235,13 @@ export default function RecordEditor({
         setConflict(null);
         setMessage({ tone: 'ok', text: `Saved as version ${res.record.version}.` });
       } catch (e) {
-        if (e instanceof ApiError && e.status === 409 && e.body?.error.current) {
+        if (e instanceof KeptOnDevice) {
+          // The outbox holds it now (and sends it when the network is back); the draft is no longer needed.
+          clearDraft(key);
+          if (fromOutbox) await discardChange(fromOutbox);
+          leaving.current = true;
+          setKept(true);
+        } else if (e instanceof ApiError && e.status === 409 && e.body?.error.current) {
           const cur = e.body.error.current as {
             version: number;
             title: string;
@@ -246,7 +277,7 @@ export default function RecordEditor({
         setSaving(false);
       }
     },
-    [editor, fields, canPickSeason, kind, record, version, key, changeNote],
+    [editor, fields, canPickSeason, kind, record, version, key, changeNote, fromOutbox],
   );
 
   // Ctrl/Cmd+S saves.
@@ -294,6 +325,26 @@ export default function RecordEditor({
   };
 
   if (!editor) return <p className="text-muted">Loading the editor…</p>;
+  if (kept)
+    return (
+      <div className="notice flex flex-col gap-2" role="status">
+        <p className="font-semibold">Kept on this device — it will be sent when you are back online.</p>
+        <p className="text-sm">
+          <a href="/pending">See the changes waiting to be sent</a>
+          {record ? (
+            <>
+              {' · '}
+              <a href={`/records/${record.id}`}>Back to the record</a>
+            </>
+          ) : (
+            <>
+              {' · '}
+              <a href="/records">Records</a>
+            </>
+          )}
+        </p>
+      </div>
+    );
 
   return (
     <form
@@ -498,4 +549,9 @@ export default function RecordEditor({
       </div>
     </form>
   );
+}
+
+function newLabel(kind: RecordKind, title: string): string {
+  const what = kind === 'lesson' ? 'New lesson' : 'New decision record';
+  return title.trim() ? `${what} ‘${title.trim()}’` : what;
 }

@@ -1,5 +1,6 @@
 // The one way islands talk to the API: JSON in and out, and errors that carry the status and the API error body,
 // so islands branch on `status` and `body.error.code`, never on message text.
+import { keepChange, newKey, type OutboxEntry } from './outbox';
 
 export interface ApiErrorBody {
   error: { code: string; message: string; issues: { path: string; message: string }[]; [k: string]: unknown };
@@ -24,17 +25,55 @@ export class ApiError extends Error {
   }
 }
 
-export async function apiFetch<T>(url: string, init: RequestInit & { json?: unknown } = {}): Promise<T> {
-  const { json, ...rest } = init;
+/** Thrown instead of a network error by a write that may wait: it is in the outbox and will be sent later. */
+export class KeptOnDevice extends Error {
+  constructor(public readonly entry: OutboxEntry) {
+    super('Kept on this device — it will be sent when you are back online.');
+  }
+}
+
+/**
+ * `offline: {label}` opts a JSON write into the outbox: with no network it is kept on this device (KeptOnDevice)
+ * and sent later under the same Idempotency-Key. Every write carries a key, so a retry never makes it twice.
+ */
+export async function apiFetch<T>(
+  url: string,
+  init: RequestInit & { json?: unknown; offline?: { label: string } } = {},
+): Promise<T> {
+  const { json, offline, ...rest } = init;
   const headers = new Headers(rest.headers);
   if (json !== undefined) headers.set('content-type', 'application/json');
   headers.set('accept', 'application/json');
-  const res = await fetch(url, {
-    ...rest,
-    headers,
-    body: json !== undefined ? JSON.stringify(json) : rest.body,
-    credentials: 'same-origin',
-  });
+  const method = (rest.method ?? 'GET').toUpperCase();
+  if (method !== 'GET' && method !== 'HEAD' && !headers.has('idempotency-key'))
+    headers.set('idempotency-key', newKey());
+  const keep = async (error: unknown): Promise<never> => {
+    if (!offline) throw error;
+    const version = (json as { version?: unknown } | undefined)?.version;
+    const entry = await keepChange({
+      key: headers.get('idempotency-key')!,
+      method,
+      url,
+      body: json,
+      label: offline.label,
+      baseVersion: typeof version === 'number' ? version : undefined,
+    }).catch(() => {
+      throw error; // nowhere to keep it: the island shows the network error as before
+    });
+    throw new KeptOnDevice(entry);
+  };
+  if (offline && !navigator.onLine) return keep(new TypeError('offline'));
+  let res: Response;
+  try {
+    res = await fetch(url, {
+      ...rest,
+      headers,
+      body: json !== undefined ? JSON.stringify(json) : rest.body,
+      credentials: 'same-origin',
+    });
+  } catch (e) {
+    return keep(e);
+  }
   if (res.status === 204) return undefined as T;
   const text = await res.text();
   let body: unknown = null;

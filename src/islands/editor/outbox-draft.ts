@@ -1,0 +1,63 @@
+import { useEffect, useState } from 'react';
+import type { Editor, JSONContent } from '@tiptap/react';
+import { apiFetch } from '~/lib/client/api';
+import { getChange, recordOf } from '~/lib/client/outbox';
+
+/** The body of a kept record edit (the PATCH the editor sent). */
+export interface KeptEditBody {
+  version: number;
+  title?: string;
+  subsystem?: string;
+  seasonId?: string;
+  source?: string;
+  body: JSONContent;
+  calculationIds?: string[];
+  relatedRecordIds?: string[];
+  changeNote?: string;
+}
+
+export interface KeptEdit {
+  entryId: string;
+  edit: KeptEditBody;
+  /** The record as the server has it now. */
+  current: { version: number; title: string; body: JSONContent; updatedBy: string | null };
+}
+
+/**
+ * `/records/<id>/edit?outbox=<entryId>`: the edit kept in the outbox that met a newer version on the server. Loads
+ * it once the editor exists, with the server's current record, so the editor can open the same merge view as a
+ * conflict met online.
+ */
+export function useOutboxDraft(
+  recordId: string | undefined,
+  editor: Editor | null,
+  onLoad: (kept: KeptEdit) => void,
+): string | null {
+  const [entryId, setEntryId] = useState<string | null>(null);
+  const wanted = recordId ? new URLSearchParams(window.location.search).get('outbox') : null;
+  useEffect(() => {
+    if (!wanted || !recordId || !editor) return;
+    let live = true;
+    void (async () => {
+      const entry = await getChange(wanted);
+      if (!entry || recordOf(entry) !== recordId) return;
+      const res = await apiFetch<{
+        record: { version: number; title: string; body: JSONContent; updatedBy: { name: string } | null };
+      }>(`/api/records/${encodeURIComponent(recordId)}`);
+      if (!live) return;
+      const r = res.record;
+      setEntryId(entry.id);
+      onLoad({
+        entryId: entry.id,
+        edit: entry.body as KeptEditBody,
+        current: { version: r.version, title: r.title, body: r.body, updatedBy: r.updatedBy?.name ?? null },
+      });
+    })();
+    return () => {
+      live = false;
+    };
+    // Once per editor: the entry named in the address does not change while the page lives.
+    // eslint-disable-next-line react-hooks/exhaustive-deps -- onLoad is a fresh closure each render
+  }, [wanted, recordId, editor]);
+  return entryId;
+}

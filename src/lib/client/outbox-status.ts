@@ -1,0 +1,65 @@
+// The header's outbox indicator (every signed-in page): sends the person's waiting changes on page load and when
+// the network comes back, and says calmly where things stand. Also warns before a sign-out would delete unsent
+// changes (signing out clears everything this browser kept for the person).
+import { isSending, listChanges, onOutboxChange, sendWaiting, type OutboxEntry } from './outbox';
+
+const plural = (n: number) => (n === 1 ? '1 change' : `${n} changes`);
+
+/** The indicator's words for the changes kept, or '' when there is nothing to say. */
+export function outboxWords(changes: OutboxEntry[], online: boolean, sending: boolean): string {
+  const needs = changes.filter((c) => c.state === 'conflict' || c.state === 'failed').length;
+  const waiting = changes.length - needs;
+  if (needs > 0) return `${needs === 1 ? '1 change needs' : `${needs} changes need`} you`;
+  if (waiting === 0) return '';
+  if (!online) return `Offline — ${plural(waiting)} kept`;
+  return sending ? 'Sending…' : `${plural(waiting)} waiting to be sent`;
+}
+
+export function startOutboxStatus(): void {
+  const spot = document.getElementById('outbox-status');
+  if (!spot || !document.documentElement.dataset.person) return;
+  let hadWaiting = false;
+  let quietTimer = 0;
+  const show = (text: string, tone: string) => {
+    spot.textContent = text;
+    spot.dataset.tone = tone;
+    spot.hidden = text === '';
+  };
+  const render = async () => {
+    const changes = await listChanges();
+    const text = outboxWords(changes, navigator.onLine, isSending());
+    window.clearTimeout(quietTimer);
+    if (text) {
+      hadWaiting = true;
+      show(text, text.endsWith('need you') || text.endsWith('needs you') ? 'needs' : 'waiting');
+    } else if (hadWaiting) {
+      // Everything went: say so briefly, then go quiet.
+      hadWaiting = false;
+      show('All changes sent', 'done');
+      quietTimer = window.setTimeout(() => show('', ''), 5000);
+    } else show('', '');
+  };
+  onOutboxChange(() => void render());
+  window.addEventListener('online', () => void sendWaiting());
+  window.addEventListener('offline', () => void render());
+  void render().then(() => sendWaiting());
+
+  // Signing out deletes what this browser kept for the person, unsent changes included: ask first.
+  for (const form of document.querySelectorAll<HTMLFormElement>('form[action="/sign-out"]')) {
+    form.addEventListener('submit', (e) => {
+      if (form.dataset.confirmed) return;
+      e.preventDefault();
+      void listChanges().then((changes) => {
+        const n = changes.length;
+        const ok =
+          n === 0 ||
+          window.confirm(
+            `${n === 1 ? '1 change is' : `${n} changes are`} not sent yet; signing out deletes them. Sign out anyway?`,
+          );
+        if (!ok) return;
+        form.dataset.confirmed = 'yes';
+        form.requestSubmit();
+      });
+    });
+  }
+}
