@@ -7,6 +7,7 @@ import remarkMath from 'remark-math';
 import rehypeKatex from 'rehype-katex';
 import tailwindcss from '@tailwindcss/vite';
 import prepareBundle from './integrations/prepare-bundle.mjs';
+import serviceWorker from './integrations/service-worker.mjs';
 
 // Astro 5.18 trusts the Host header only for listed domains; without them Astro.url is wrong and the
 // built-in origin check refuses same-site form posts. Extra hosts come from ALLOWED_HOSTS at build time.
@@ -34,6 +35,7 @@ export default defineConfig({
     react(),
     mdx({ remarkPlugins: [remarkMath], rehypePlugins: [rehypeKatex, rehypeFocusableTables] }),
     prepareBundle(),
+    serviceWorker(),
   ],
   security: {
     checkOrigin: true,

@@ -29,6 +29,8 @@ const assets = sirv(fileURLToPath(new URL('client/', dist)), {
   setHeaders(res, pathname) {
     // Vite names these files by their content hash: a changed file gets a new name.
     if (pathname.startsWith('/_astro/')) res.setHeader('cache-control', 'public, max-age=31536000, immutable');
+    // The service worker and the manifest keep their names across builds: the browser asks again every time.
+    else if (pathname === '/sw.js' || pathname === '/manifest.webmanifest') res.setHeader('cache-control', 'no-cache');
   },
 });
 
