@@ -28,16 +28,16 @@ export function startOutboxStatus(): void {
   const render = async () => {
     const changes = await listChanges();
     const text = outboxWords(changes, navigator.onLine, isSending());
-    window.clearTimeout(quietTimer);
     if (text) {
+      window.clearTimeout(quietTimer);
       hadWaiting = true;
       show(text, text.endsWith('need you') || text.endsWith('needs you') ? 'needs' : 'waiting');
     } else if (hadWaiting) {
-      // Everything went: say so briefly, then go quiet.
+      // Everything went: say so briefly, then go quiet (a later empty render leaves the note to its timer).
       hadWaiting = false;
       show('All changes sent', 'done');
       quietTimer = window.setTimeout(() => show('', ''), 5000);
-    } else show('', '');
+    }
   };
   onOutboxChange(() => void render());
   window.addEventListener('online', () => void sendWaiting());

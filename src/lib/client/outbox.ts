@@ -198,7 +198,7 @@ async function sendOne(entry: OutboxEntry): Promise<boolean> {
   }
   const message = await res
     .json()
-    .then((b: { error?: { message?: string; current?: unknown } }) => b.error)
+    .then((b: { error?: { message?: string; current?: unknown; issues?: { message: string }[] } }) => b.error)
     .catch(() => undefined);
   // Try later: the server failed, is busy, still saving an earlier attempt (409 with Retry-After), or the session
   // ended (signing in again as the same person sends it).
@@ -216,7 +216,9 @@ async function sendOne(entry: OutboxEntry): Promise<boolean> {
     state: conflict ? 'conflict' : 'failed',
     message: conflict
       ? 'Someone else saved this record meanwhile. Resolve it in the merge view.'
-      : (message?.message ?? `The server refused it (${res.status}).`),
+      : [message?.message ?? `The server refused it (${res.status}).`, ...(message?.issues ?? []).map((i) => i.message)]
+          .filter((m, i, all) => all.indexOf(m) === i)
+          .join(' '),
   });
   return true;
 }
