@@ -201,6 +201,24 @@ describe('writing offline', () => {
     await page.getByText(question).waitFor();
   });
 
+  it('an onboarding tick made offline is saved on reconnect', async () => {
+    const route = async () =>
+      (await (await page.request.get(`${baseUrl()}/api/onboarding/propulsion`)).json()) as {
+        items: { title: string; done: boolean }[];
+      };
+    const item = (await route()).items.find((i) => !i.done);
+    expect(item).toBeDefined();
+    await page.goto(`${baseUrl()}/subsystems/propulsion`);
+    await page.locator('astro-island:not([ssr]) input[type="checkbox"]').first().waitFor({ state: 'attached' });
+    await ctx.setOffline(true);
+    await page.getByRole('checkbox', { name: `Done: ${item!.title}` }).check();
+    await page.getByText(KEPT).waitFor();
+    expect(await page.getByRole('checkbox', { name: `Done: ${item!.title}` }).isChecked()).toBe(true);
+    await ctx.setOffline(false);
+    await expect.poll(async () => (await route()).items.find((i) => i.title === item!.title)?.done).toBe(true);
+    await waitForEmptyOutbox(page);
+  });
+
   it('signing out with a change still waiting asks first', async () => {
     await page.goto(`${baseUrl()}/records/demo-rec-2526-bms-cell-logging`);
     const form = await commentForm(page);

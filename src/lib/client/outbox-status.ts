@@ -3,6 +3,7 @@
 // changes (signing out clears everything this browser kept for the person).
 import { isSending, listChanges, onOutboxChange, sendWaiting, type OutboxEntry } from './outbox';
 
+const RETRY_MS = 20_000;
 const plural = (n: number) => (n === 1 ? '1 change' : `${n} changes`);
 
 /** The indicator's words for the changes kept, or '' when there is nothing to say. */
@@ -20,6 +21,7 @@ export function startOutboxStatus(): void {
   if (!spot || !document.documentElement.dataset.person) return;
   let hadWaiting = false;
   let quietTimer = 0;
+  let retryTimer = 0;
   const show = (text: string, tone: string) => {
     spot.textContent = text;
     spot.dataset.tone = tone;
@@ -28,6 +30,12 @@ export function startOutboxStatus(): void {
   const render = async () => {
     const changes = await listChanges();
     const text = outboxWords(changes, navigator.onLine, isSending());
+    // Online but a send did not get through (the server was away): try again a little later.
+    if (navigator.onLine && !retryTimer && changes.some((c) => c.state === 'waiting'))
+      retryTimer = window.setTimeout(() => {
+        retryTimer = 0;
+        void sendWaiting();
+      }, RETRY_MS);
     if (text) {
       window.clearTimeout(quietTimer);
       hadWaiting = true;
