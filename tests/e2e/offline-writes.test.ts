@@ -131,9 +131,11 @@ describe('writing offline', () => {
     await page.goto(`${baseUrl()}/pending`);
     await page.getByText('Nothing waiting').waitFor();
     await page.unroute('**/api/records');
-    expect(posts).toBe(2);
+    // Sent again at least once (at once when the outbox woke, again if a page change cut that send short), and
+    // every time under the first key.
+    expect(posts).toBeGreaterThanOrEqual(2);
     expect(keys[0]).toMatch(/^[A-Za-z0-9_-]{8,128}$/);
-    expect(keys[1]).toBe(keys[0]);
+    expect(new Set(keys)).toEqual(new Set([keys[0]]));
     expect(await lessonsTitled(title)).toBe(1);
   });
 

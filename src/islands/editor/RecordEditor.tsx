@@ -6,8 +6,7 @@ import { templateFor, withSectionSlots } from '~/lib/editor/templates';
 import { SectionPrompts } from '~/lib/editor/section-prompts';
 import { MAX_CHANGE_NOTE } from '~/lib/record-rules';
 import { apiFetch, ApiError, fetcher, KeptOnDevice } from '~/lib/client/api';
-import { discardChange } from '~/lib/client/outbox';
-import { useOutboxDraft } from './outbox-draft';
+import { useOutboxDraft, dropKeptEdit } from './outbox-draft';
 import { LESSON_SOURCES, type LessonSource, type RecordKind } from '~/lib/domain';
 import Toolbar from './Toolbar';
 import LinkPicker, { type PickOption } from './LinkPicker';
@@ -226,7 +225,7 @@ export default function RecordEditor({
           },
           offline: { label: `Edit of ‘${fields.title.trim() || record.title}’` },
         });
-        if (fromOutbox) await discardChange(fromOutbox);
+        if (fromOutbox) await dropKeptEdit(fromOutbox);
         setVersion(res.record.version);
         setChangeNote('');
         setSaved(JSON.stringify({ fields, body }));
@@ -238,7 +237,7 @@ export default function RecordEditor({
         if (e instanceof KeptOnDevice) {
           // The outbox holds it now (and sends it when the network is back); the draft is no longer needed.
           clearDraft(key);
-          if (fromOutbox) await discardChange(fromOutbox);
+          if (fromOutbox) await dropKeptEdit(fromOutbox);
           leaving.current = true;
           setKept(true);
         } else if (e instanceof ApiError && e.status === 409 && e.body?.error.current) {

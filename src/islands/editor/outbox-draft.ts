@@ -1,7 +1,6 @@
 import { useEffect, useState } from 'react';
 import type { Editor, JSONContent } from '@tiptap/react';
 import { apiFetch } from '~/lib/client/api';
-import { getChange, recordOf } from '~/lib/client/outbox';
 
 /** The body of a kept record edit (the PATCH the editor sent). */
 export interface KeptEditBody {
@@ -39,6 +38,8 @@ export function useOutboxDraft(
     if (!wanted || !recordId || !editor) return;
     let live = true;
     void (async () => {
+      // Loaded only here: editing pages without a kept change do not carry the outbox's IndexedDB code.
+      const { getChange, recordOf } = await import('~/lib/client/outbox');
       const entry = await getChange(wanted);
       if (!entry || recordOf(entry) !== recordId) return;
       const res = await apiFetch<{
@@ -60,4 +61,10 @@ export function useOutboxDraft(
     // eslint-disable-next-line react-hooks/exhaustive-deps -- onLoad is a fresh closure each render
   }, [wanted, recordId, editor]);
   return entryId;
+}
+
+/** The kept edit is saved now: it leaves the outbox. */
+export async function dropKeptEdit(entryId: string): Promise<void> {
+  const { discardChange } = await import('~/lib/client/outbox');
+  await discardChange(entryId);
 }

@@ -1,6 +1,6 @@
 // The one way islands talk to the API: JSON in and out, and errors that carry the status and the API error body,
 // so islands branch on `status` and `body.error.code`, never on message text.
-import { keepChange, newKey, type OutboxEntry } from './outbox';
+import type { OutboxEntry } from './outbox';
 
 export interface ApiErrorBody {
   error: { code: string; message: string; issues: { path: string; message: string }[]; [k: string]: unknown };
@@ -23,6 +23,12 @@ export class ApiError extends Error {
     }
     return out;
   }
+}
+
+/** A key for Idempotency-Key: random, 8–128 of [A-Za-z0-9_-] (randomUUID needs a secure context; this does not). */
+export function newKey(): string {
+  if (typeof crypto.randomUUID === 'function') return crypto.randomUUID();
+  return Array.from(crypto.getRandomValues(new Uint8Array(16)), (b) => b.toString(16).padStart(2, '0')).join('');
 }
 
 /** Thrown instead of a network error by a write that may wait: it is in the outbox and will be sent later. */
@@ -50,6 +56,10 @@ export async function apiFetch<T>(
   const keep = async (error: unknown): Promise<never> => {
     if (!offline) throw error;
     const version = (json as { version?: unknown } | undefined)?.version;
+    // The outbox (and its IndexedDB code) loads only when a write has to wait; the service worker keeps its file.
+    const { keepChange } = await import('./outbox').catch(() => {
+      throw error;
+    });
     const entry = await keepChange({
       key: headers.get('idempotency-key')!,
       method,
@@ -102,3 +112,30 @@ export function apiErrorMessage(text: string): string | undefined {
 
 /** SWR's fetcher. */
 export const fetcher = <T>(url: string) => apiFetch<T>(url);
+
+// How many changes the person's outbox holds, mirrored in localStorage so that every page can tell at once, without
+// loading the outbox's IndexedDB code, whether there is anything to send or to warn about (the outbox keeps it current).
+
+/** Fired on window whenever the outbox changes in this tab. */
+export const OUTBOX_CHANGED = 'wakebook:outbox';
+
+export function hintKey(): string {
+  return `wakebook-outbox-count:${document.documentElement.dataset.person ?? ''}`;
+}
+
+export function readHint(): number {
+  try {
+    return Number(window.localStorage.getItem(hintKey()) ?? '0') || 0;
+  } catch {
+    return 0;
+  }
+}
+
+export function writeHint(count: number): void {
+  try {
+    if (count > 0) window.localStorage.setItem(hintKey(), String(count));
+    else window.localStorage.removeItem(hintKey());
+  } catch {
+    // storage blocked: pages load the outbox only once something is kept in them
+  }
+}

@@ -1,73 +1,29 @@
-// The header's outbox indicator (every signed-in page): sends the person's waiting changes on page load and when
-// the network comes back, and says calmly where things stand. Also warns before a sign-out would delete unsent
-// changes (signing out clears everything this browser kept for the person).
-import { isSending, listChanges, onOutboxChange, sendWaiting, type OutboxEntry } from './outbox';
-
-const RETRY_MS = 20_000;
-const plural = (n: number) => (n === 1 ? '1 change' : `${n} changes`);
-
-/** The indicator's words for the changes kept, or '' when there is nothing to say. */
-export function outboxWords(changes: OutboxEntry[], online: boolean, sending: boolean): string {
-  const needs = changes.filter((c) => c.state === 'conflict' || c.state === 'failed').length;
-  const waiting = changes.length - needs;
-  if (needs > 0) return `${needs === 1 ? '1 change needs' : `${needs} changes need`} you`;
-  if (waiting === 0) return '';
-  if (!online) return `Offline — ${plural(waiting)} kept`;
-  return sending ? 'Sending…' : `${plural(waiting)} waiting to be sent`;
-}
+// The header's outbox indicator, on every signed-in page. Kept tiny: the IndexedDB code (outbox-indicator.ts and the
+// outbox) loads only when the person has changes kept, or keeps one on this page. Also warns before a sign-out
+// would delete unsent changes (signing out clears everything this browser kept for the person).
+import { OUTBOX_CHANGED, hintKey, readHint } from './api';
 
 export function startOutboxStatus(): void {
   const spot = document.getElementById('outbox-status');
   if (!spot || !document.documentElement.dataset.person) return;
-  let hadWaiting = false;
-  let quietTimer = 0;
-  let retryTimer = 0;
-  const show = (text: string, tone: string) => {
-    spot.textContent = text;
-    spot.dataset.tone = tone;
-    spot.hidden = text === '';
+  let started: Promise<void> | null = null;
+  const wake = () => {
+    started ??= import('./outbox-indicator').then((m) => m.runIndicator(spot));
   };
-  const render = async () => {
-    const changes = await listChanges();
-    const text = outboxWords(changes, navigator.onLine, isSending());
-    // Online but a send did not get through (the server was away): try again a little later.
-    if (navigator.onLine && !retryTimer && changes.some((c) => c.state === 'waiting'))
-      retryTimer = window.setTimeout(() => {
-        retryTimer = 0;
-        void sendWaiting();
-      }, RETRY_MS);
-    if (text) {
-      window.clearTimeout(quietTimer);
-      hadWaiting = true;
-      show(text, text.endsWith('need you') || text.endsWith('needs you') ? 'needs' : 'waiting');
-    } else if (hadWaiting) {
-      // Everything went: say so briefly, then go quiet (a later empty render leaves the note to its timer).
-      hadWaiting = false;
-      show('All changes sent', 'done');
-      quietTimer = window.setTimeout(() => show('', ''), 5000);
-    }
-  };
-  onOutboxChange(() => void render());
-  window.addEventListener('online', () => void sendWaiting());
-  window.addEventListener('offline', () => void render());
-  void render().then(() => sendWaiting());
+  if (readHint() > 0) wake();
+  window.addEventListener(OUTBOX_CHANGED, wake);
+  window.addEventListener('storage', (e) => {
+    if (e.key === hintKey()) wake();
+  });
+  window.addEventListener('online', () => {
+    if (readHint() > 0) wake();
+  });
 
-  // Signing out deletes what this browser kept for the person, unsent changes included: ask first.
   for (const form of document.querySelectorAll<HTMLFormElement>('form[action="/sign-out"]')) {
     form.addEventListener('submit', (e) => {
-      if (form.dataset.confirmed) return;
-      e.preventDefault();
-      void listChanges().then((changes) => {
-        const n = changes.length;
-        const ok =
-          n === 0 ||
-          window.confirm(
-            `${n === 1 ? '1 change is' : `${n} changes are`} not sent yet; signing out deletes them. Sign out anyway?`,
-          );
-        if (!ok) return;
-        form.dataset.confirmed = 'yes';
-        form.requestSubmit();
-      });
+      const n = readHint();
+      const ask = `${n === 1 ? '1 change is' : `${n} changes are`} not sent yet; signing out deletes them. Sign out anyway?`;
+      if (n > 0 && !window.confirm(ask)) e.preventDefault();
     });
   }
 }

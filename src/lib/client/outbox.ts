@@ -2,6 +2,7 @@
 // sent through their ordinary routes, oldest first, when it is back. Each keeps the Idempotency-Key it was first
 // sent with, so a write whose answer was lost is answered once by the server, never made twice.
 import { openDB, type IDBPDatabase } from 'idb';
+import { OUTBOX_CHANGED, newKey, writeHint } from './api';
 
 export type OutboxState = 'waiting' | 'sending' | 'conflict' | 'failed';
 
@@ -23,18 +24,11 @@ export interface OutboxEntry {
 }
 
 const STORE = 'changes';
-const CHANGED = 'wakebook:outbox';
 const DB_PREFIX = 'wakebook-outbox-';
 
 /** Whose page this is (set on <html> by the layout); only that person's outbox is opened or sent. */
 function personId(): string | undefined {
   return document.documentElement.dataset.person || undefined;
-}
-
-/** A key for Idempotency-Key: random, 8–128 of [A-Za-z0-9_-] (randomUUID needs a secure context; this does not). */
-export function newKey(): string {
-  if (typeof crypto.randomUUID === 'function') return crypto.randomUUID();
-  return Array.from(crypto.getRandomValues(new Uint8Array(16)), (b) => b.toString(16).padStart(2, '0')).join('');
 }
 
 let opened: { person: string; db: Promise<IDBPDatabase> } | undefined;
@@ -61,13 +55,14 @@ function outboxDb(): Promise<IDBPDatabase> | null {
 const channel = typeof BroadcastChannel === 'function' ? new BroadcastChannel('wakebook-outbox') : null;
 
 function changed(): void {
-  window.dispatchEvent(new Event(CHANGED));
+  void listChanges().then((all) => writeHint(all.length));
+  window.dispatchEvent(new Event(OUTBOX_CHANGED));
   channel?.postMessage('changed');
 }
 
 /** Calls `fn` whenever the outbox changes, in this tab or another. */
 export function onOutboxChange(fn: () => void): void {
-  window.addEventListener(CHANGED, fn);
+  window.addEventListener(OUTBOX_CHANGED, fn);
   channel?.addEventListener('message', fn);
 }
 
