@@ -65,26 +65,52 @@ let generation = 0;
 
 const PERSON_IN_HTML = /<html\b[^>]*\bdata-person="([^"]+)"/;
 
-/** Keeps a page answer for the person it was rendered for; a signed-out page forgets everyone. */
-async function keep(url: string, response: Response): Promise<void> {
-  if (response.status !== 200 || response.redirected) return;
-  if (!(response.headers.get('content-type') ?? '').startsWith('text/html')) return;
+/** Keeps a page answer for the person it was rendered for; a signed-out page forgets everyone. The page's HTML. */
+async function keep(url: string, response: Response): Promise<string | undefined> {
+  if (response.status !== 200 || response.redirected) return undefined;
+  if (!(response.headers.get('content-type') ?? '').startsWith('text/html')) return undefined;
   const html = await response.text();
   const person = PERSON_IN_HTML.exec(html.slice(0, 2000))?.[1];
   if (!person) {
     if (!html.includes('data-offline-page')) await forgetAllBut('');
-    return;
+    return undefined;
   }
   await becomePerson(person);
-  await putPage(person, url, html, response.headers);
+  await putKept(person, url, new Response(html, { status: 200, headers: response.headers }));
+  return html;
 }
 
-async function putPage(person: string, url: string, html: string, headers: Headers): Promise<void> {
-  const kept = new Headers(headers);
+/** Stores an answer in the person's cache, stamped with the moment it was kept. */
+async function putKept(person: string, url: string, response: Response): Promise<void> {
+  const kept = new Headers(response.headers);
   kept.set(KEPT_AT, new Date().toISOString());
   kept.delete('etag');
   const cache = await caches.open(pagesCache(person));
-  await cache.put(url, new Response(html, { status: 200, headers: kept }));
+  await cache.put(url, new Response(await response.blob(), { status: 200, headers: kept }));
+}
+
+// Attachments (images, CSV logs) shown on kept pages: kept beside them, for the same person; large files are not.
+const ATTACHMENT = /\/api\/attachments\/[A-Za-z0-9_-]+/g;
+const ATTACHMENT_MAX_BYTES = 2 * 1024 * 1024;
+
+async function keepAttachment(person: string, url: string, response: Response): Promise<void> {
+  const length = Number(response.headers.get('content-length') ?? '0');
+  if (response.status !== 200 || length > ATTACHMENT_MAX_BYTES) return;
+  if ((await currentPerson()) === person) await putKept(person, url, response);
+}
+
+/** Attachments: from the network, kept for the person signed in; offline, the kept copy. */
+async function attachment(event: FetchEvent): Promise<Response> {
+  const person = await currentPerson();
+  try {
+    const response = await fetch(event.request);
+    if (person) event.waitUntil(keepAttachment(person, event.request.url, response.clone()).catch(() => undefined));
+    return response;
+  } catch (error) {
+    const kept = person ? await (await caches.open(pagesCache(person))).match(event.request.url) : undefined;
+    if (kept) return kept;
+    throw error;
+  }
 }
 
 /** Which navigations were answered from the kept pages, by the client they created: the page asks for its age. */
@@ -131,9 +157,14 @@ async function navigate(event: FetchEvent): Promise<Response> {
 
 self.addEventListener('fetch', (event) => {
   const { request } = event;
-  if (request.method !== 'GET' || request.mode !== 'navigate') return;
+  if (request.method !== 'GET') return;
   const url = new URL(request.url);
-  if (url.origin !== self.location.origin || url.pathname.startsWith('/api/')) return;
+  if (url.origin !== self.location.origin) return;
+  if (url.pathname.startsWith('/api/attachments/') && !request.headers.has('range')) {
+    event.respondWith(attachment(event));
+    return;
+  }
+  if (request.mode !== 'navigate' || url.pathname.startsWith('/api/')) return;
   if (url.pathname === OFFLINE_PAGE || url.pathname === '/sign-out') return;
   event.respondWith(navigate(event));
 });
@@ -160,10 +191,10 @@ async function refreshPack(person: string): Promise<void> {
   if (!res.ok) return;
   const answer = (await res.json()) as PackAnswer;
   if (answer.person !== person || !(await stillMine())) return;
-  const pack = applyPack(before, answer, WAKEBOOK_BUILD, new Date().toISOString());
+  const { pack, dropped } = applyPack(before, answer, WAKEBOOK_BUILD, new Date().toISOString());
 
   const pages = await caches.open(pagesCache(person));
-  for (const url of answer.removed ?? []) await pages.delete(url.url);
+  for (const url of dropped) await pages.delete(url);
   const keptUrls = new Set((await pages.keys()).map((r) => new URL(r.url).pathname + new URL(r.url).search));
   const queue = pagesToWarm(pack, answer, keptUrls).slice(0, WARM_PER_REFRESH);
   const worker = async () => {
@@ -171,7 +202,13 @@ async function refreshPack(person: string): Promise<void> {
       if (!(await stillMine())) return;
       try {
         const page = await fetch(next, { credentials: 'same-origin', redirect: 'error' });
-        if (page.ok && (await stillMine())) await keep(new URL(next, self.location.origin).href, page);
+        if (!page.ok || !(await stillMine())) continue;
+        const html = await keep(new URL(next, self.location.origin).href, page);
+        for (const path of new Set(html?.match(ATTACHMENT) ?? [])) {
+          const href = new URL(path, self.location.origin).href;
+          if (await pages.match(href)) continue;
+          await keepAttachment(person, href, await fetch(href, { credentials: 'same-origin', redirect: 'error' }));
+        }
       } catch {
         // Offline again or refused: the next refresh tries again.
       }

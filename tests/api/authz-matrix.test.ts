@@ -89,6 +89,7 @@ const MATRIX: Record<string, Row> = {
   'PUT /api/onboarding/[subsystem]': { allow: REVIEWERS, params: { subsystem: 'nope' } },
   'POST /api/onboarding/[subsystem]/progress': { allow: ALL, params: { subsystem: 'hull' } },
   'GET /api/readiness': { allow: ALL },
+  'GET /api/offline/pack': { allow: ALL },
   'GET /api/search': { allow: ALL },
 };
 

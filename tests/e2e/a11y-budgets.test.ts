@@ -66,6 +66,8 @@ const PAGES: PageCase[] = [
   { path: '/guides/hull-resistance-in-plain-terms', as: 'advisor', budgetKb: PLAIN },
   { path: '/guides/suggestions', as: 'advisor', budgetKb: PLAIN },
   { path: '/admin/audit', as: 'lead', budgetKb: PLAIN },
+  { path: '/offline', as: null, budgetKb: PLAIN },
+  { path: '/offline', as: 'member', budgetKb: PLAIN },
 ];
 
 let browser: Browser;

@@ -18,6 +18,8 @@ const PAGES: Record<string, { url: string; expect: Partial<Record<Who, number>> 
   'sign-in.astro': { url: '/sign-in', expect: { out: 200, member: 302 } },
   'sign-out.astro': { url: '/sign-out', expect: { out: 303 } },
   'forgot-password.astro': { url: '/forgot-password', expect: { out: 200 } },
+  // The same for everyone (the service worker precaches it): it names no one and lists what the browser keeps.
+  'offline.astro': { url: '/offline', expect: { out: 200, ...everyone } },
   'invite/[token].astro': { url: '/invite/not-a-real-invitation-token-xyz', expect: { out: 404 } },
   'reset/[token].astro': { url: '/reset/not-a-real-reset-token-xyz12', expect: { out: 404 } },
   'account.astro': { url: '/account', expect: { out: 302, ...everyone } },

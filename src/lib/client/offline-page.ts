@@ -47,7 +47,8 @@ export async function listKeptPages(spot: HTMLElement | null): Promise<void> {
     const pages = await caches.open(pagesCache(person));
     for (const request of await pages.keys()) {
       const response = await pages.match(request);
-      if (!response) continue;
+      // Attachments are kept beside the pages that show them; the list names pages only.
+      if (!response?.headers.get('content-type')?.startsWith('text/html')) continue;
       const url = new URL(request.url);
       const path = url.pathname + url.search;
       kept.set(path, { url: path, title: '', keptAt: response.headers.get(KEPT_AT) ?? '' });

@@ -19,8 +19,9 @@ export async function forgetAllBut(person: string): Promise<void> {
 const ago = (iso: string): string => {
   const minutes = Math.round((Date.now() - Date.parse(iso)) / 60000);
   const words = new Intl.RelativeTimeFormat('en', { numeric: 'auto' });
-  if (Math.abs(minutes) < 60) return words.format(-minutes, 'minute');
-  if (Math.abs(minutes) < 48 * 60) return words.format(-Math.round(minutes / 60), 'hour');
+  if (minutes < 1) return 'a moment ago';
+  if (minutes < 60) return words.format(-minutes, 'minute');
+  if (minutes < 48 * 60) return words.format(-Math.round(minutes / 60), 'hour');
   return words.format(-Math.round(minutes / 1440), 'day');
 };
 

@@ -29,8 +29,11 @@ export interface PackOnboardingItem {
   url: string | null;
   done: boolean;
 }
+/** One subsystem's onboarding route with the caller's progress; its page is the subsystem's page. */
 export interface PackOnboarding extends PackItem {
-  routes: { subsystem: string; progress: { done: number; total: number }; items: PackOnboardingItem[] }[];
+  subsystem: string;
+  progress: { done: number; total: number };
+  items: PackOnboardingItem[];
 }
 
 /** One answer of GET /api/offline/pack. With `?since=`, only what changed since that version, plus `removed`. */
@@ -53,8 +56,16 @@ const emptyGroups = (): Record<PackGroup, PackItem[]> =>
 
 const brief = ({ url, title, updatedAt }: PackItem): PackItem => ({ url, title, updatedAt });
 
-/** What the worker keeps after an answer: the whole pack replaced, or the changes and removals folded in. */
-export function applyPack(before: KeptPack | null, answer: PackAnswer, build: string, now: string): KeptPack {
+/**
+ * What the worker keeps after an answer — the whole pack replaced, or the changes and removals folded in — and the
+ * page addresses to drop: those removed, and on a whole answer those the pack no longer holds.
+ */
+export function applyPack(
+  before: KeptPack | null,
+  answer: PackAnswer,
+  build: string,
+  now: string,
+): { pack: KeptPack; dropped: string[] } {
   const groups = answer.full || !before ? emptyGroups() : structuredClone(before.groups);
   const removed = new Set(answer.removed.map((r) => r.url));
   for (const group of PACK_GROUPS) {
@@ -62,7 +73,10 @@ export function applyPack(before: KeptPack | null, answer: PackAnswer, build: st
     for (const item of answer[group]) byUrl.set(item.url, brief(item));
     groups[group] = [...byUrl.values()];
   }
-  return { build, version: answer.version, refreshedAt: now, groups };
+  const held = new Set(PACK_GROUPS.flatMap((g) => groups[g].map((i) => i.url)));
+  const earlier = before ? PACK_GROUPS.flatMap((g) => before.groups[g].map((i) => i.url)) : [];
+  const dropped = new Set([...removed, ...earlier.filter((url) => !held.has(url))]);
+  return { pack: { build, version: answer.version, refreshedAt: now, groups }, dropped: [...dropped] };
 }
 
 /**
