@@ -6,7 +6,6 @@ import { templateFor, withSectionSlots } from '~/lib/editor/templates';
 import { SectionPrompts } from '~/lib/editor/section-prompts';
 import { MAX_CHANGE_NOTE } from '~/lib/record-rules';
 import { apiFetch, ApiError, fetcher, KeptOnDevice } from '~/lib/client/api';
-import { useOutboxDraft, dropKeptEdit } from './outbox-draft';
 import { LESSON_SOURCES, type LessonSource, type RecordKind } from '~/lib/domain';
 import Toolbar from './Toolbar';
 import LinkPicker, { type PickOption } from './LinkPicker';
@@ -115,24 +114,24 @@ export default function RecordEditor({
 
   const dirty = JSON.stringify({ fields, body: bodyJson }) !== saved;
 
-  // An edit kept offline that met a newer version: load it as "mine" and show the merge view.
-  const fromOutbox = useOutboxDraft(record?.id, editor, ({ edit, current }) => {
-    const { version: base, body, changeNote: note, ...kept } = edit;
-    const mine = { ...fields, ...kept, source: kept.source ?? fields.source };
-    setFields(mine);
-    editor?.commands.setContent(body);
-    setBodyJson(body);
-    setVersion(base);
-    setChangeNote(note ?? '');
-    setRestorable(null);
-    if (current.version !== base) {
-      setConflict(current);
-      setMessage({
-        tone: 'error',
-        text: `Your change kept on this device was made on version ${base}; version ${current.version} was saved meanwhile. Choose per section below, then save.`,
-      });
-    } else setMessage({ tone: 'ok', text: 'Your change kept on this device is in the editor. Save to send it.' });
-  });
+  // `?outbox=<entry>`: an edit kept offline that met a newer version, loaded as "mine" into the merge view.
+  const [fromOutbox, setFromOutbox] = useState<string | null>(null);
+  useEffect(() => {
+    const entryId = new URLSearchParams(window.location.search).get('outbox');
+    if (!record || !editor || !entryId) return;
+    void import('./outbox-draft').then((m) =>
+      m.loadKeptEdit(record.id, entryId, editor, {
+        setFields,
+        setBodyJson,
+        setVersion,
+        setChangeNote,
+        setConflict,
+        setMessage,
+        setFromOutbox,
+        setRestorable,
+      }),
+    );
+  }, [record, editor]);
 
   // Keep unsaved work in this browser, so a reload or a crash loses nothing.
   useEffect(() => {
@@ -223,9 +222,9 @@ export default function RecordEditor({
             ...payload,
             ...(changeNote.trim() ? { changeNote: changeNote.trim() } : {}),
           },
-          offline: { label: `Edit of ‘${fields.title.trim() || record.title}’` },
+          offline: { label: `Edit of ‘${record.title}’` },
         });
-        if (fromOutbox) await dropKeptEdit(fromOutbox);
+        await dropKept(fromOutbox);
         setVersion(res.record.version);
         setChangeNote('');
         setSaved(JSON.stringify({ fields, body }));
@@ -237,9 +236,10 @@ export default function RecordEditor({
         if (e instanceof KeptOnDevice) {
           // The outbox holds it now (and sends it when the network is back); the draft is no longer needed.
           clearDraft(key);
-          if (fromOutbox) await dropKeptEdit(fromOutbox);
+          await dropKept(fromOutbox);
           leaving.current = true;
-          setKept(true);
+          setKept(true); // sent later from the outbox; saving again here would send it twice
+          setMessage({ tone: 'ok', text: e.message });
         } else if (e instanceof ApiError && e.status === 409 && e.body?.error.current) {
           const cur = e.body.error.current as {
             version: number;
@@ -324,27 +324,6 @@ export default function RecordEditor({
   };
 
   if (!editor) return <p className="text-muted">Loading the editor…</p>;
-  if (kept)
-    return (
-      <div className="notice flex flex-col gap-2" role="status">
-        <p className="font-semibold">Kept on this device — it will be sent when you are back online.</p>
-        <p className="text-sm">
-          <a href="/pending">See the changes waiting to be sent</a>
-          {record ? (
-            <>
-              {' · '}
-              <a href={`/records/${record.id}`}>Back to the record</a>
-            </>
-          ) : (
-            <>
-              {' · '}
-              <a href="/records">Records</a>
-            </>
-          )}
-        </p>
-      </div>
-    );
-
   return (
     <form
       className="flex flex-col gap-5"
@@ -530,7 +509,7 @@ export default function RecordEditor({
             )}
           </div>
         )}
-        <button type="submit" className="btn btn-primary" disabled={saving}>
+        <button type="submit" className="btn btn-primary" disabled={saving || kept}>
           {saving
             ? 'Saving…'
             : record
@@ -551,6 +530,10 @@ export default function RecordEditor({
 }
 
 function newLabel(kind: RecordKind, title: string): string {
-  const what = kind === 'lesson' ? 'New lesson' : 'New decision record';
-  return title.trim() ? `${what} ‘${title.trim()}’` : what;
+  return `New ${kind === 'lesson' ? 'lesson' : 'decision record'} ‘${title}’`;
+}
+
+/** A kept edit that is now saved (or kept again) leaves the outbox. */
+async function dropKept(entryId: string | null): Promise<void> {
+  if (entryId) await import('~/lib/client/outbox').then((m) => m.discardChange(entryId));
 }

@@ -1,9 +1,13 @@
-import { useEffect, useState } from 'react';
+// Loaded by the record editor only for `/records/<id>/edit?outbox=<entryId>`: the edit kept in the outbox that met a
+// newer version on the server goes into the editor as "mine", beside the server's current record, so the person
+// resolves it in the same merge view as a conflict met online. Kept out of the editor's own chunk (and the outbox's
+// IndexedDB code with it), so editing pages without a kept change do not carry it.
 import type { Editor, JSONContent } from '@tiptap/react';
 import { apiFetch } from '~/lib/client/api';
+import { getChange, recordOf } from '~/lib/client/outbox';
 
 /** The body of a kept record edit (the PATCH the editor sent). */
-export interface KeptEditBody {
+interface KeptEditBody {
   version: number;
   title?: string;
   subsystem?: string;
@@ -15,56 +19,47 @@ export interface KeptEditBody {
   changeNote?: string;
 }
 
-export interface KeptEdit {
-  entryId: string;
-  edit: KeptEditBody;
-  /** The record as the server has it now. */
-  current: { version: number; title: string; body: JSONContent; updatedBy: string | null };
+interface Conflict {
+  version: number;
+  title: string;
+  body: JSONContent;
+  updatedBy: string | null;
 }
 
-/**
- * `/records/<id>/edit?outbox=<entryId>`: the edit kept in the outbox that met a newer version on the server. Loads
- * it once the editor exists, with the server's current record, so the editor can open the same merge view as a
- * conflict met online.
- */
-export function useOutboxDraft(
-  recordId: string | undefined,
-  editor: Editor | null,
-  onLoad: (kept: KeptEdit) => void,
-): string | null {
-  const [entryId, setEntryId] = useState<string | null>(null);
-  const wanted = recordId ? new URLSearchParams(window.location.search).get('outbox') : null;
-  useEffect(() => {
-    if (!wanted || !recordId || !editor) return;
-    let live = true;
-    void (async () => {
-      // Loaded only here: editing pages without a kept change do not carry the outbox's IndexedDB code.
-      const { getChange, recordOf } = await import('~/lib/client/outbox');
-      const entry = await getChange(wanted);
-      if (!entry || recordOf(entry) !== recordId) return;
-      const res = await apiFetch<{
-        record: { version: number; title: string; body: JSONContent; updatedBy: { name: string } | null };
-      }>(`/api/records/${encodeURIComponent(recordId)}`);
-      if (!live) return;
-      const r = res.record;
-      setEntryId(entry.id);
-      onLoad({
-        entryId: entry.id,
-        edit: entry.body as KeptEditBody,
-        current: { version: r.version, title: r.title, body: r.body, updatedBy: r.updatedBy?.name ?? null },
-      });
-    })();
-    return () => {
-      live = false;
-    };
-    // Once per editor: the entry named in the address does not change while the page lives.
-    // eslint-disable-next-line react-hooks/exhaustive-deps -- onLoad is a fresh closure each render
-  }, [wanted, recordId, editor]);
-  return entryId;
+/** The editor's state setters this needs. */
+export interface EditorState<F> {
+  setFields: (f: (old: F) => F) => void;
+  setBodyJson: (b: JSONContent) => void;
+  setVersion: (v: number) => void;
+  setChangeNote: (n: string) => void;
+  setConflict: (c: Conflict) => void;
+  setMessage: (m: { tone: 'ok' | 'error'; text: string }) => void;
+  setFromOutbox: (id: string) => void;
+  setRestorable: (d: null) => void;
 }
 
-/** The kept edit is saved now: it leaves the outbox. */
-export async function dropKeptEdit(entryId: string): Promise<void> {
-  const { discardChange } = await import('~/lib/client/outbox');
-  await discardChange(entryId);
+export async function loadKeptEdit<F>(recordId: string, entryId: string, editor: Editor, s: EditorState<F>) {
+  const entry = await getChange(entryId);
+  if (!entry || recordOf(entry) !== recordId) return;
+  const res = await apiFetch<{
+    record: { version: number; title: string; body: JSONContent; updatedBy: { name: string } | null };
+  }>(`/api/records/${encodeURIComponent(recordId)}`);
+  const current = res.record;
+  const { version: base, body, changeNote, ...kept } = entry.body as KeptEditBody;
+  s.setFields((f) => ({ ...f, ...kept }));
+  editor.commands.setContent(body);
+  s.setBodyJson(body);
+  s.setVersion(base);
+  s.setChangeNote(changeNote ?? '');
+  s.setFromOutbox(entry.id);
+  s.setRestorable(null); // the kept change stands in for any older local draft
+  if (current.version === base) {
+    s.setMessage({ tone: 'ok', text: 'Your change kept on this device is in the editor. Save to send it.' });
+    return;
+  }
+  s.setConflict({ ...current, updatedBy: current.updatedBy?.name ?? null });
+  s.setMessage({
+    tone: 'error',
+    text: `Your change kept on this device was made on version ${base}; version ${current.version} was saved meanwhile. Choose per section below, then save.`,
+  });
 }

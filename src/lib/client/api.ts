@@ -51,15 +51,13 @@ export async function apiFetch<T>(
   if (json !== undefined) headers.set('content-type', 'application/json');
   headers.set('accept', 'application/json');
   const method = (rest.method ?? 'GET').toUpperCase();
-  if (method !== 'GET' && method !== 'HEAD' && !headers.has('idempotency-key'))
-    headers.set('idempotency-key', newKey());
+  if (method !== 'GET' && !headers.has('idempotency-key')) headers.set('idempotency-key', newKey());
   const keep = async (error: unknown): Promise<never> => {
     if (!offline) throw error;
     const version = (json as { version?: unknown } | undefined)?.version;
     // The outbox (and its IndexedDB code) loads only when a write has to wait; the service worker keeps its file.
-    const { keepChange } = await import('./outbox').catch(() => {
-      throw error;
-    });
+    // Should that fail too (nowhere to keep it), the island gets that error: not an ApiError, so "could not reach".
+    const { keepChange } = await import('./outbox');
     const entry = await keepChange({
       key: headers.get('idempotency-key')!,
       method,
@@ -67,8 +65,6 @@ export async function apiFetch<T>(
       body: json,
       label: offline.label,
       baseVersion: typeof version === 'number' ? version : undefined,
-    }).catch(() => {
-      throw error; // nowhere to keep it: the island shows the network error as before
     });
     throw new KeptOnDevice(entry);
   };
@@ -128,14 +124,5 @@ export function readHint(): number {
     return Number(window.localStorage.getItem(hintKey()) ?? '0') || 0;
   } catch {
     return 0;
-  }
-}
-
-export function writeHint(count: number): void {
-  try {
-    if (count > 0) window.localStorage.setItem(hintKey(), String(count));
-    else window.localStorage.removeItem(hintKey());
-  } catch {
-    // storage blocked: pages load the outbox only once something is kept in them
   }
 }

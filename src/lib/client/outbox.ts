@@ -2,7 +2,7 @@
 // sent through their ordinary routes, oldest first, when it is back. Each keeps the Idempotency-Key it was first
 // sent with, so a write whose answer was lost is answered once by the server, never made twice.
 import { openDB, type IDBPDatabase } from 'idb';
-import { OUTBOX_CHANGED, newKey, writeHint } from './api';
+import { OUTBOX_CHANGED, hintKey, newKey } from './api';
 
 export type OutboxState = 'waiting' | 'sending' | 'conflict' | 'failed';
 
@@ -216,4 +216,14 @@ async function sendOne(entry: OutboxEntry): Promise<boolean> {
           .join(' '),
   });
   return true;
+}
+
+/** Mirrors the number of kept changes where every page reads it at once (api.ts readHint). */
+function writeHint(count: number): void {
+  try {
+    if (count > 0) window.localStorage.setItem(hintKey(), String(count));
+    else window.localStorage.removeItem(hintKey());
+  } catch {
+    // storage blocked: pages load the outbox only once something is kept in them
+  }
 }
