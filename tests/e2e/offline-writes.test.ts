@@ -143,7 +143,9 @@ describe('writing offline', () => {
     const id = 'demo-rec-2526-closed-cooling-loop';
     await page.goto(`${baseUrl()}/records/${id}/edit`);
     await page.locator('.ProseMirror h2').first().waitFor();
-    const before = (await (await lead.get(`/api/records/${id}`)).json()) as { record: { version: number } };
+    const before = (await (await lead.get(`/api/records/${id}`)).json()) as {
+      record: { version: number; title: string };
+    };
 
     await ctx.setOffline(true);
     await page.getByLabel('Title').fill('Closed cooling loop (member’s offline edit)');
@@ -162,7 +164,7 @@ describe('writing offline', () => {
     await page.locator('[data-outbox-entry="conflict"]').waitFor();
     await expect.poll(() => indicator().textContent()).toBe('1 change needs you');
     expect(await page.locator('[data-outbox-entry="conflict"]').textContent()).toContain(
-      'Edit of ‘Closed cooling loop (member’s offline edit)’',
+      `Edit of ‘${before.record.title}’`,
     );
 
     await page.getByRole('link', { name: 'Resolve' }).click();
