@@ -1,4 +1,4 @@
-// npm run bench [-- --json] [--only http,calc] [--seconds 8]
+// npm run bench [-- --json] [--only http,calc,search,import] [--seconds 8]
 // Prints one JSON object a line with --json: {"name", "n", "p50_ms", "p99_ms", "ops_per_s"?, ...}.
 import { existsSync } from 'node:fs';
 
@@ -15,12 +15,13 @@ const suites: Record<string, () => Promise<object[]>> = {
   calc: async () => (await import('./calc')).default(),
   http: async () => (await import('./http')).default({ seconds }),
   search: async () => (await import('./search')).default(),
+  import: async () => (await import('./import')).default(),
 };
 
 for (const [name, run] of Object.entries(suites)) {
   if (only && !only.includes(name)) continue;
-  if (name === 'http' && !existsSync('dist/server/entry.mjs')) {
-    console.error('bench: skipping http (run `npm run build` first)');
+  if ((name === 'http' || name === 'import') && !existsSync('dist/server/entry.mjs')) {
+    console.error(`bench: skipping ${name} (run \`npm run build\` first)`);
     continue;
   }
   if (!asJson) console.log(`\n# ${name}`);

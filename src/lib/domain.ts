@@ -45,3 +45,5 @@ export const IMPORT_STATES = ['queued', 'running', 'done'] as const;
 export type ImportState = (typeof IMPORT_STATES)[number];
 export const IMPORT_ITEM_STATES = ['queued', 'done', 'skipped', 'failed'] as const;
 export type ImportItemState = (typeof IMPORT_ITEM_STATES)[number];
+/** The file name endings an import reads (a .zip is opened and each file in it read on its own). */
+export const IMPORT_EXTENSIONS = ['docx', 'md', 'markdown', 'html', 'htm', 'txt', 'pdf', 'zip'] as const;

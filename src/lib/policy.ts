@@ -20,6 +20,7 @@ export type Action =
   | 'outbox:read'
   | 'digest:send'
   | 'record:create'
+  | 'record:import' // bring documents in as draft records (members: into the current season)
   | 'record:edit'
   | 'record:status'
   | 'record:accept' // a decision: accept it (a member needs a review of the current version first; see records/write.ts)
@@ -72,6 +73,7 @@ const POLICY: Record<Role, Partial<Record<Action, Rule>>> = {
   member: {
     read: true,
     'record:create': true,
+    'record:import': currentSeasonOnly,
     'record:edit': currentSeasonOnly,
     'record:status': currentSeasonOnly,
     'record:accept': currentSeasonOnly,
@@ -118,6 +120,7 @@ export const ALL_ACTIONS: Action[] = [
   'outbox:read',
   'digest:send',
   'record:create',
+  'record:import',
   'record:edit',
   'record:status',
   'record:accept',

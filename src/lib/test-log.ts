@@ -1,5 +1,6 @@
 // Units of a test log's columns from their suffixes ("speed_mps", "power_kW", "temp_C"), and conversion to the units
 // a calculator's curves use, so a log can be drawn over a prediction. Pure; used by the test-log island.
+import { readableWords, unitFromName, UNIT_SUFFIXES } from './units';
 
 interface UnitInfo {
   /** unit as the calculators write it */
@@ -67,4 +68,20 @@ export function unitConversion(from: string, to: string): ((v: number) => number
   const b = infoOf(to);
   if (!a || !b || a.base !== b.base) return null;
   return (v) => (v * a.factor) / b.factor;
+}
+
+/**
+ * A column's header as people read it: `thrust_N` → "Thrust (N)", `boat_speed_kts` → "Boat speed (kn)",
+ * `motorTemp_C` → "Motor temp (°C)", `rpm` → "rpm". A header without a known unit suffix stays its own words (`lap_count` → "Lap
+ * count", `Speed (m/s)` as written). Screens keep the header itself at hand (a title) for people who know the file.
+ */
+export function columnLabel(header: string): string {
+  // A column named by its unit alone ("rpm", "V") is read as that unit.
+  const bare = header.trim();
+  if (UNIT_SUFFIXES[bare]) return UNIT_SUFFIXES[bare];
+  const named = unitFromName(header);
+  if (named.unit) return `${named.label} (${named.unit})`;
+  const col = logColumn(header);
+  if (col.unit) return `${readableWords(col.label)} (${col.unit})`;
+  return readableWords(header.trim()) || 'Unnamed column';
 }

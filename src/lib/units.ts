@@ -66,11 +66,19 @@ export function unitFromName(name: string): NamedQuantity {
   const m = /^(.*[^ _])[ _]+([A-Za-z0-9]+)$/.exec(trimmed);
   const unit = m ? UNIT_SUFFIXES[m[2]] : undefined;
   if (unit === undefined || !m) return { label: trimmed, unit: '' };
-  const words = m[1]
+  return { label: readableWords(m[1]), unit };
+}
+
+/**
+ * A machine name as words: `motorTemp` → "Motor temp", `boat_speed` → "Boat speed", `cell-V max` → "Cell V max".
+ * Capitalised words after the first are lowered; words in capitals (SOC, GPS) stay as they are.
+ */
+export function readableWords(name: string): string {
+  const words = name
     .replace(/([a-z0-9])([A-Z])/g, '$1 $2')
-    .split(/[\s_]+/)
+    .split(/[\s_-]+/)
     .filter(Boolean)
     .map((w, i) => (i > 0 && /^[A-Z][a-z]+$/.test(w) ? w.toLowerCase() : w));
   if (words[0]) words[0] = words[0][0].toUpperCase() + words[0].slice(1);
-  return { label: words.join(' '), unit };
+  return words.join(' ');
 }

@@ -88,7 +88,15 @@ const MATRIX: Record<string, Row> = {
   'GET /api/onboarding/[subsystem]': { allow: ALL, params: { subsystem: 'hull' } },
   'PUT /api/onboarding/[subsystem]': { allow: REVIEWERS, params: { subsystem: 'nope' } },
   'POST /api/onboarding/[subsystem]/progress': { allow: ALL, params: { subsystem: 'hull' } },
+  // The importer's or a lead's; an unknown import is 404 for writers, 403 for the rest (tests/api/import-review.test.ts).
+  'GET /api/imports/[id]/records': { allow: WRITERS, params: { id: 'nope' } },
+  'PATCH /api/imports/[id]/records': { allow: WRITERS, params: { id: 'nope' } },
+  'POST /api/imports/[id]/discard': { allow: WRITERS, params: { id: 'nope' } },
   'GET /api/readiness': { allow: ALL },
+  'GET /api/imports': { allow: WRITERS },
+  'POST /api/imports': { allow: WRITERS },
+  // Any signed-in person reaches the lookup; only the importer or a lead sees an import (tests/api/imports.test.ts).
+  'GET /api/imports/[id]': { allow: ALL, params: { id: 'nope' } },
   'GET /api/offline/pack': { allow: ALL },
   'GET /api/search': { allow: ALL },
 };

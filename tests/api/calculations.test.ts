@@ -8,7 +8,7 @@ import * as calculationRoute from '../../src/pages/api/calculations/[id]/index';
 import * as recompute from '../../src/pages/api/calculations/[id]/recompute';
 import * as compare from '../../src/pages/api/calculations/compare';
 import * as audit from '../../src/pages/api/audit';
-import { calculatorKinds } from '../../src/lib/calc';
+import { calculatorKinds, calculators } from '../../src/lib/calc';
 
 let s: Record<DemoRole, string>;
 beforeAll(async () => {
@@ -192,6 +192,10 @@ describe('saved calculations', () => {
     expect(all.body.calculations.length).toBeGreaterThanOrEqual(13);
     const props = await call(calculationsRoute, 'GET', { session: s.member, query: { kind: 'propeller' } });
     expect(props.body.calculations.every((c: { kind: string }) => c.kind === 'propeller')).toBe(true);
+    // Each item names its calculator the way the pages do, beside the kind key (the record editor's picker shows it).
+    const sweep = all.body.calculations.find((c: { kind: string }) => c.kind === 'propeller-sweep');
+    expect(sweep.kindTitle).toBe(calculators['propeller-sweep'].title);
+    expect(props.body.calculations[0].kindTitle).toBe(calculators.propeller.title);
     const page1 = await call(calculationsRoute, 'GET', { session: s.member, query: { limit: '5' } });
     expect(page1.body.calculations).toHaveLength(5);
     const page2 = await call(calculationsRoute, 'GET', {

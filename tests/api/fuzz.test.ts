@@ -49,6 +49,7 @@ const FIELDS: Record<string, Record<string, FieldType>> = {
   'POST /api/records/[id]/review': { note: 'string' },
   'POST /api/records/[id]/comments': { body: 'string', kind: 'string', replyTo: 'string', parentId: 'string' },
   'POST /api/records/[id]/attachments': { file: 'string' },
+  'POST /api/imports': { file: 'string', subsystem: 'string', kind: 'string', seasonId: 'string' },
   'POST /api/calculators/[kind]/run': { inputs: 'object' },
   'POST /api/calculators/resistance/fit': { inputs: 'object', points: 'array', drivetrainEfficiency: 'number' },
   'POST /api/calculations': { kind: 'string', title: 'string', subsystem: 'string', inputs: 'object' },
@@ -59,6 +60,8 @@ const FIELDS: Record<string, Record<string, FieldType>> = {
   // Shares its file with PATCH; reads no body, so whatever is sent must change nothing.
   'DELETE /api/calculations/[id]': { title: 'string' },
   'PUT /api/onboarding/[subsystem]': { items: 'array' },
+  'PATCH /api/imports/[id]/records': { recordIds: 'array', kind: 'string', subsystem: 'string', seasonId: 'string' },
+  'POST /api/imports/[id]/discard': { recordIds: 'array' },
   'POST /api/onboarding/[subsystem]/progress': { itemId: 'string', done: 'boolean' },
 };
 
@@ -183,6 +186,8 @@ const TABLES = [
   'onboarding_items',
   'onboarding_progress',
   'mail_messages',
+  'imports',
+  'import_items',
 ];
 
 /** Everything stored except the audit log (which rightly records refused sign-ins). */
@@ -203,7 +208,7 @@ function fingerprint(): string {
 
 const routes = Object.entries(modules).flatMap(([file, mod]) => {
   const source = sources[file];
-  if (!/readJson\(|formData\(|uploadAttachment\(/.test(source)) return []; // routes that read no body have nothing to fuzz
+  if (!/readJson\(|formData\(|uploadAttachment\(|startImport\(/.test(source)) return []; // routes that read no body have nothing to fuzz
   const path = file
     .replace('../../src/pages', '')
     .replace(/\.ts$/, '')

@@ -42,6 +42,8 @@ const PAGES: PageCase[] = [
   { path: '/records/demo-rec-2526-two-propellers', as: 'member', budgetKb: CHART },
   { path: '/records/demo-rec-2526-two-propellers/history', as: 'member', budgetKb: PLAIN },
   { path: '/records/new?kind=decision', as: 'member', budgetKb: EDITOR },
+  { path: '/import', as: 'member', budgetKb: PLAIN }, // the review list of one import: tests/e2e/import.test.ts
+  { path: '/import', as: 'advisor', budgetKb: PLAIN }, // the 403 page
   { path: '/records/demo-rec-2526-two-propellers/edit', as: 'member', budgetKb: EDITOR },
   { path: '/calculations', as: 'member', budgetKb: PLAIN },
   { path: '/calculations/new/propeller', as: 'member', budgetKb: CHART },

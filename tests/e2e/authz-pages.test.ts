@@ -55,6 +55,12 @@ const PAGES: Record<string, { url: string; expect: Partial<Record<Who, number>> 
   'seasons/index.astro': { url: '/seasons', expect: { out: 302, ...everyone } },
   'handover.astro': { url: '/handover', expect: { out: 302, ...everyone } },
   'onboarding.astro': { url: '/onboarding', expect: { out: 302, ...ok(['lead']) } },
+  'import/index.astro': { url: '/import', expect: { out: 302, ...ok(['member', 'lead']) } },
+  // An unknown import: 404 for those who may import; 403 before anything is looked up for the rest.
+  'import/[id].astro': {
+    url: '/import/no-such-import',
+    expect: { out: 302, alumni: 403, advisor: 403, member: 404, lead: 404 },
+  },
   'search.astro': { url: '/search?q=propeller', expect: { out: 302, ...everyone } },
   'admin/index.astro': { url: '/admin', expect: { out: 302, ...ok(['lead']) } },
   'admin/people.astro': { url: '/admin/people', expect: { out: 302, ...ok(['lead']) } },

@@ -15,6 +15,14 @@ afterAll(async () => {
 
 const output = (name: string) => page.locator(`[data-testid="outputs"] [data-output="${name}"]`);
 
+/** Text on screen with a symbol still in underscore notation (K_T), outside code and the form's own field keys. */
+const underscoreSymbols = (p: Page) =>
+  p.locator('main').evaluate((main) => {
+    const clone = main.cloneNode(true) as HTMLElement;
+    for (const code of clone.querySelectorAll('code, script, style')) code.remove();
+    return (clone.textContent ?? '').match(/(?<![A-Za-z0-9_])\p{L}_\S+/gu) ?? [];
+  });
+
 describe('calculators as a member uses them', () => {
   let savedUrl = '';
 
@@ -31,6 +39,13 @@ describe('calculators as a member uses them', () => {
     await expect.poll(() => output('thrust_N').textContent()).not.toBe(thrustBefore);
     await expect.poll(() => page.locator('figure figcaption').first().textContent()).not.toBe(chartLabelBefore);
     expect(await page.locator('canvas').count()).toBeGreaterThan(0);
+    // Symbols read as symbols: K<sub>T</sub>, not K_T, in labels and tables.
+    expect(await underscoreSymbols(page)).toEqual([]);
+    expect(await page.getByRole('rowheader', { name: 'Thrust coefficient KT' }).locator('sub').textContent()).toBe('T');
+    // Without hovering, the legend reads the operating point, not a dash.
+    const legend = await page.locator('figure.chart .u-legend .u-value').allTextContents();
+    expect(legend.length).toBeGreaterThan(1);
+    for (const v of legend) expect(v).toMatch(/\d/);
     await shot(page, 'calculator-propeller');
   });
 
@@ -65,6 +80,7 @@ describe('calculators as a member uses them', () => {
     expect(await output('thrust_N').textContent()).toMatch(/\d/);
     await page.reload();
     await page.getByText('Saved by the browser test.').waitFor();
+    expect(await underscoreSymbols(page)).toEqual([]);
     await shot(page, 'calculation-saved');
   });
 
@@ -85,9 +101,12 @@ describe('calculators as a member uses them', () => {
     await page.getByRole('heading', { name: 'Compare calculations' }).waitFor();
     const pitchRow = page.getByRole('row', { name: /Pitch ratio/ });
     expect(await pitchRow.textContent()).toContain('differs');
+    // A choice reads as its option's name, as on the saved page, not as its key.
+    expect(await page.getByRole('row', { name: /^Water Fresh water Fresh water/ }).count()).toBe(1);
     await page.locator('figure').first().scrollIntoViewIfNeeded();
     await page.locator('canvas').first().waitFor();
     expect(await page.locator('figcaption').first().textContent()).toContain('(B, dashed)');
+    expect(await underscoreSymbols(page)).toEqual([]);
     await shot(page, 'calculations-compare');
   });
 });

@@ -38,6 +38,9 @@ describe('decision records in the browser', () => {
     await typeInSection(page, 'Decision', 'An 80 A fuse at the pack end.');
     const picker = page.getByRole('group', { name: /Linked calculations/ });
     await picker.getByPlaceholder('Filter by title…').fill('Main battery lead');
+    // Each calculation is named with its calculator's name, not its kind key.
+    const option = picker.locator('label', { has: page.getByRole('checkbox') }).first();
+    expect(await option.textContent()).toContain('Cable voltage drop ·');
     await picker.getByRole('checkbox').first().check();
     await Promise.all([
       page.waitForURL(/\/records\/[a-z2-7]{16}$/),
@@ -115,6 +118,11 @@ describe('decision records in the browser', () => {
     const added = page.getByRole('region', { name: 'Just attached' });
     await added.getByLabel('Along (x)').scrollIntoViewIfNeeded();
     await added.locator('canvas').first().waitFor();
+    // Column choices read as words with units; the header as written stays in the title.
+    const voltage = added.getByLabel('Voltage (V)');
+    expect(await voltage.isChecked()).toBe(true);
+    expect(await added.locator('label[title="voltage_V"]').textContent()).toBe('Voltage (V)');
+    expect(await added.getByLabel('Along (x)').locator('option:checked').textContent()).toBe('Time (s)');
     // and they stay: after a reload the record lists the log once
     await page.reload();
     expect(await page.getByRole('link', { name: 'current-log.csv' }).count()).toBe(1);

@@ -406,3 +406,44 @@ describe('records: layout and print', () => {
     await ctx.close();
   });
 });
+
+describe('handover report layout', () => {
+  for (const [who, width] of [
+    ['lead', 1280],
+    ['member', 390],
+  ] as const) {
+    it(`lines up the Met and Points columns across subsystems, on one line each (${who}, ${width} px)`, async () => {
+      const { ctx, page } = await signedIn(who, { width, height: 900 });
+      await page.goto(`${baseUrl()}/handover`);
+      await settled(page);
+      const cells = await page.evaluate(() =>
+        [...document.querySelectorAll('section.card table')].map((t) => {
+          const heads = [...t.querySelectorAll('thead th')].slice(1).map((th) => th.getBoundingClientRect());
+          const rows = [...t.querySelectorAll('tbody tr')].map((tr) =>
+            [...tr.querySelectorAll('td')].slice(1).map((td) => {
+              const r = document.createRange();
+              r.selectNodeContents(td);
+              // Lines the value takes: its height over the cell's line height.
+              return Math.round(r.getBoundingClientRect().height / parseFloat(getComputedStyle(td).lineHeight));
+            }),
+          );
+          return { lefts: heads.map((h) => Math.round(h.left)), lines: rows.flat() };
+        }),
+      );
+      expect(cells.length).toBeGreaterThan(3);
+      for (const c of cells) {
+        expect(c.lefts).toEqual(cells[0].lefts);
+        expect(c.lines.every((n) => n === 1)).toBe(true);
+      }
+      // The season picker and its buttons share one height.
+      const heights = await page.evaluate(() =>
+        [...document.querySelectorAll('form:has(#season) select, form:has(#season) button')].map(
+          (e) => e.getBoundingClientRect().height,
+        ),
+      );
+      expect(new Set(heights).size).toBe(1);
+      await shot(page, `handover-${who}-${width}`);
+      await ctx.close();
+    });
+  }
+});

@@ -23,6 +23,7 @@ const EXPECTED: Record<Action, Record<Role, Cell>> = {
   'outbox:read': { lead: Y, advisor: N, member: N, alumni: N },
   'digest:send': { lead: Y, advisor: N, member: N, alumni: N },
   'record:create': { lead: Y, advisor: N, member: Y, alumni: N },
+  'record:import': { lead: Y, advisor: N, member: C, alumni: N },
   'record:edit': { lead: Y, advisor: N, member: C, alumni: N },
   'record:status': { lead: Y, advisor: N, member: C, alumni: N },
   // Advisors accept and withdraw decisions; a member's acceptance also needs a review (tests/api/record-acceptance).

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { logColumn, unitConversion } from '../../src/lib/test-log';
+import { columnLabel, logColumn, unitConversion } from '../../src/lib/test-log';
 
 describe('test-log column units from suffixes', () => {
   it('reads the usual suffixes', () => {
@@ -25,5 +25,28 @@ describe('test-log column units from suffixes', () => {
   it('refuses to convert between different quantities', () => {
     expect(unitConversion('W', 'm/s')).toBeNull();
     expect(unitConversion('', 'W')).toBeNull();
+  });
+});
+
+describe('readable column labels from CSV headers', () => {
+  it('snake_case with a unit suffix becomes words and the unit in parentheses', () => {
+    expect(columnLabel('thrust_N')).toBe('Thrust (N)');
+    expect(columnLabel('speed_mps')).toBe('Speed (m/s)');
+    expect(columnLabel('boat_speed_kts')).toBe('Boat speed (kn)');
+    expect(columnLabel('power_kW')).toBe('Power (kW)');
+    expect(columnLabel('power_kw')).toBe('Power (kW)');
+    expect(columnLabel('coolant_in_C')).toBe('Coolant in (°C)');
+    expect(columnLabel('motorTemp_C')).toBe('Motor temp (°C)');
+    expect(columnLabel('time_s')).toBe('Time (s)');
+    expect(columnLabel('rpm')).toBe('rpm');
+  });
+  it('a header without a known unit stays readable words, capitals kept', () => {
+    expect(columnLabel('lap')).toBe('Lap');
+    expect(columnLabel('lap_count')).toBe('Lap count');
+    expect(columnLabel('note_xyz')).toBe('Note xyz');
+    expect(columnLabel('SOC')).toBe('SOC');
+    expect(columnLabel('GPS_fix')).toBe('GPS fix');
+    expect(columnLabel('Speed (m/s)')).toBe('Speed (m/s)');
+    expect(columnLabel('  ')).toBe('Unnamed column');
   });
 });

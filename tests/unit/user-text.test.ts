@@ -5,6 +5,7 @@ import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { calculators } from '../../src/lib/calc';
 import { guideHeadings } from '../../src/lib/guide-headings';
+import { plainSymbols, symbolParts } from '../../src/lib/symbols';
 
 const INTERNAL = /\(memory\)|\bmemory\)|,\s*memory\b|REFERENCES|§\s*\d/;
 const base = 'src/content/guides';
@@ -31,6 +32,25 @@ describe('text users read', () => {
   it.each(Object.keys(calculators))('calculator %s: help, sources, cautions and warnings text', (kind) => {
     const calc = calculators[kind as keyof typeof calculators];
     expect(JSON.stringify({ ...calc, compute: undefined })).not.toMatch(INTERNAL);
+  });
+
+  // A symbol in underscore notation (K_T, p_atm); machine names such as friction_factor in a citation are not one.
+  const SYMBOL = /(?<![A-Za-z0-9_])\p{L}_\S/u;
+  // Labels, help and option names are shown through symbolParts (HTML, K<sub>T</sub>) or plainSymbols (charts,
+  // options, titles): whatever a calculator writes, neither may leave an underscore before a letter on screen.
+  it.each(Object.keys(calculators))('calculator %s: no "_" before a letter once its symbols are shown', (kind) => {
+    const calc = calculators[kind as keyof typeof calculators];
+    const shown = [
+      ...calc.inputs.flatMap((i) => [i.label, i.help, ...(i.options ?? []).map((o) => o.label)]),
+      ...calc.outputs.flatMap((o) => [o.label, o.help ?? '']),
+      ...calc.sources.flatMap((s) => [s.use, s.citation]),
+      calc.summary,
+      ...calc.cautions,
+    ];
+    for (const text of shown) {
+      expect(plainSymbols(text), text).not.toMatch(SYMBOL);
+      for (const part of symbolParts(text)) expect(part.text, text).not.toMatch(SYMBOL);
+    }
   });
 
   it.each(pages)('page %s', (f) => {

@@ -1,5 +1,6 @@
 import { useState, type FormEvent } from 'react';
 import { apiFetch, ApiError } from '~/lib/client/api';
+import SubsystemSelect from '../ui/SubsystemSelect';
 
 interface Option {
   id: string;
@@ -100,23 +101,13 @@ function EditForm({
           </p>
         )}
       </div>
-      <div className="field">
-        <label htmlFor="edit-subsystem">Subsystem</label>
-        <select
-          id="edit-subsystem"
-          className="input"
-          value={values.subsystem}
-          onChange={(e) => setValues((v) => ({ ...v, subsystem: e.target.value }))}
-          aria-invalid={errors.subsystem ? true : undefined}
-        >
-          {subsystems.map((s) => (
-            <option key={s.slug} value={s.slug}>
-              {s.name}
-            </option>
-          ))}
-        </select>
-        {errors.subsystem && <p className="field-error">{errors.subsystem}</p>}
-      </div>
+      <SubsystemSelect
+        id="edit-subsystem"
+        value={values.subsystem}
+        onChange={(subsystem) => setValues((v) => ({ ...v, subsystem }))}
+        subsystems={subsystems}
+        error={errors.subsystem}
+      />
       <div className="field">
         <label htmlFor="edit-notes">Notes</label>
         <textarea

@@ -7,6 +7,9 @@ import { operatingPoints } from '~/lib/chart-marks';
 import { apiFetch, ApiError } from '~/lib/client/api';
 import { formatQuantity, plainText } from '~/lib/format';
 import LineChart from '../ui/LineChart';
+import Sym from '../ui/Sym';
+import SubsystemSelect from '../ui/SubsystemSelect';
+import { plainSymbols } from '~/lib/symbols';
 import GridTable from './GridTable';
 
 interface Props {
@@ -160,8 +163,12 @@ export default function CalculatorForm({
                   const q = formatQuantity(run.result.outputs[o.name], o.unit, o.digits);
                   return (
                     <tr key={o.name} className="border-b border-line">
-                      <th scope="row" className="py-1.5 pr-3 text-left font-medium" title={o.help}>
-                        {o.label}
+                      <th
+                        scope="row"
+                        className="py-1.5 pr-3 text-left font-medium"
+                        title={o.help && plainSymbols(o.help)}
+                      >
+                        <Sym text={o.label} />
                       </th>
                       <td className="py-1.5 text-right font-semibold" data-output={o.name}>
                         {q.value}
@@ -177,7 +184,7 @@ export default function CalculatorForm({
                 {run.result.warnings.map((w) => (
                   <li key={w}>
                     <span aria-hidden="true">⚠ </span>
-                    {w}
+                    <Sym text={w} />
                   </li>
                 ))}
               </ul>
@@ -229,7 +236,7 @@ function Field({
   return (
     <div className="field">
       <label htmlFor={id}>
-        {meta.label}
+        <Sym text={meta.label} />
         {meta.optional && <span className="font-normal text-muted"> (optional)</span>}
       </label>
       <div className="flex items-center gap-2">
@@ -244,7 +251,7 @@ function Field({
           >
             {(meta.options ?? []).map((o) => (
               <option key={o.value} value={o.value}>
-                {o.label}
+                {plainSymbols(o.label)}
               </option>
             ))}
           </select>
@@ -267,7 +274,7 @@ function Field({
         )}
       </div>
       <p id={`${id}-help`} className="text-xs text-muted">
-        {meta.help}
+        <Sym text={meta.help} />
         {meta.unit && <span className="sr-only"> Unit: {meta.unit}.</span>}
         {meta.min !== undefined && meta.max !== undefined && (
           <>
@@ -353,23 +360,13 @@ function SaveForm({
           </p>
         )}
       </div>
-      <div className="field">
-        <label htmlFor="save-subsystem">Subsystem</label>
-        <select
-          id="save-subsystem"
-          className="input"
-          value={subsystem}
-          onChange={(e) => setSubsystem(e.target.value)}
-          aria-invalid={errors.subsystem ? true : undefined}
-        >
-          {subsystems.map((s) => (
-            <option key={s.slug} value={s.slug}>
-              {s.name}
-            </option>
-          ))}
-        </select>
-        {errors.subsystem && <p className="field-error">{errors.subsystem}</p>}
-      </div>
+      <SubsystemSelect
+        id="save-subsystem"
+        value={subsystem}
+        onChange={setSubsystem}
+        subsystems={subsystems}
+        error={errors.subsystem}
+      />
       <div className="field">
         <label htmlFor="save-notes">
           Notes <span className="font-normal text-muted">(optional: why these inputs, where they came from)</span>

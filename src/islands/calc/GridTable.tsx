@@ -1,5 +1,6 @@
 import type { Grid } from '~/lib/calc/types';
 import { formatNumber } from '~/lib/format';
+import Sym from '../ui/Sym';
 
 /**
  * A heat map as a table: each cell is coloured by value and also prints its number (never colour alone). Cells that
@@ -24,16 +25,21 @@ export default function GridTable({ grid, highlight }: { grid: Grid; highlight?:
     <div className="relative overflow-x-auto">
       <table className="heat-map tabular border-collapse text-xs">
         <caption className="mb-1 text-left text-sm font-semibold">
-          {grid.title} — {grid.z.label}
-          {grid.z.unit ? ` (${grid.z.unit})` : ''}; rows: {grid.y.label}, columns: {grid.x.label}. Empty cells: no
-          operating point.
-          {anyFailed && ` Greyed, struck-through cells: ${grid.failedLabel ?? 'fail a check'}.`}
+          <Sym text={grid.title} /> — <Sym text={grid.z.label} />
+          {grid.z.unit ? ` (${grid.z.unit})` : ''}; rows: <Sym text={grid.y.label} />, columns:{' '}
+          <Sym text={grid.x.label} />. Empty cells: no operating point.
+          {anyFailed && (
+            <>
+              {' '}
+              Greyed, struck-through cells: <Sym text={grid.failedLabel ?? 'fail a check'} />.
+            </>
+          )}
           {marks.length > 0 && ` Outlined: ${marks.map((m) => m.label).join(', ')}.`}
         </caption>
         <thead>
           <tr>
             <th scope="col" className="border border-line px-1.5 py-1">
-              {grid.y.label} \ {grid.x.label}
+              <Sym text={grid.y.label} /> \ <Sym text={grid.x.label} />
             </th>
             {grid.x.values.map((x) => (
               <th key={x} scope="col" className="border border-line px-1.5 py-1">

@@ -5,6 +5,7 @@ import { operatingPoints } from '~/lib/chart-marks';
 import { apiFetch, ApiError } from '~/lib/client/api';
 import { formatQuantity } from '~/lib/format';
 import LineChart from '../ui/LineChart';
+import Sym from '../ui/Sym';
 import GridTable from './GridTable';
 
 const noSubscription = () => () => {};
@@ -145,7 +146,7 @@ export default function SavedResult({
               {changes.map((c) => (
                 <tr key={c.name}>
                   <th scope="row" className="pr-3 text-left font-medium">
-                    {meta.get(c.name)?.label ?? c.name}
+                    {meta.has(c.name) ? <Sym text={meta.get(c.name)?.label ?? ''} /> : c.name}
                   </th>
                   <td className="pr-3 text-right">{show(c.name, c.before)}</td>
                   <td className="text-right">{show(c.name, c.after)}</td>
@@ -167,7 +168,7 @@ export default function SavedResult({
               return (
                 <tr key={name} className="border-b border-line">
                   <th scope="row" className="py-1.5 pr-3 text-left font-medium">
-                    {m?.label ?? name}
+                    {m ? <Sym text={m.label} /> : name}
                   </th>
                   <td className="py-1.5 text-right font-semibold" data-output={name}>
                     {q.value}
@@ -184,7 +185,7 @@ export default function SavedResult({
           {result.warnings.map((w) => (
             <li key={w}>
               <span aria-hidden="true">⚠ </span>
-              {w}
+              <Sym text={w} />
             </li>
           ))}
         </ul>

@@ -1,9 +1,12 @@
 import { useEffect, useId, useMemo, useState } from 'react';
 import LineChart, { type ChartDataset } from '../ui/LineChart';
+import Sym from '../ui/Sym';
+import { plainSymbols } from '~/lib/symbols';
 import { apiFetch, ApiError } from '~/lib/client/api';
 import { numericColumns, parseCsv, type CsvTable } from '~/lib/csv';
 import { formatNumber } from '~/lib/format';
-import { logColumn, unitConversion } from '~/lib/test-log';
+import { readableWords } from '~/lib/units';
+import { columnLabel, logColumn, unitConversion } from '~/lib/test-log';
 import type { SeriesSet } from '~/lib/calc/types';
 
 export interface OverlayLog {
@@ -173,7 +176,7 @@ function LogView({
           const raw = values(c);
           return {
             name: columns[c].header,
-            label: `${columns[c].label} (logged)`,
+            label: `${readableWords(columns[c].label)} (logged)`,
             unit: chartSet.y[t].unit,
             values: order.map((p) => conv(raw[p.i])),
           };
@@ -204,7 +207,7 @@ function LogView({
             >
               {series.map((s, i) => (
                 <option key={s.title} value={i}>
-                  {s.title}
+                  {plainSymbols(s.title)}
                 </option>
               ))}
             </select>
@@ -212,7 +215,9 @@ function LogView({
         )}
         {table && numeric.length > 0 && (
           <div className="field">
-            <label htmlFor={`${uid}-x`}>Log column along x ({chartSet.x.label})</label>
+            <label htmlFor={`${uid}-x`}>
+              Log column along x (<Sym text={chartSet.x.label} />)
+            </label>
             <select
               id={`${uid}-x`}
               className="input py-1"
@@ -223,8 +228,8 @@ function LogView({
               }}
             >
               {numeric.map((i) => (
-                <option key={i} value={i}>
-                  {table.header[i]}
+                <option key={i} value={i} title={table.header[i]}>
+                  {columnLabel(table.header[i])}
                 </option>
               ))}
             </select>
@@ -236,9 +241,9 @@ function LogView({
             {numeric
               .filter((i) => i !== xCol)
               .map((i) => (
-                <label key={i} className="flex items-center gap-1">
+                <label key={i} className="flex items-center gap-1" title={table.header[i]}>
                   <input type="checkbox" checked={yCols.includes(i)} onChange={() => toggleY(i)} />
-                  {table.header[i]}
+                  {columnLabel(table.header[i])}
                 </label>
               ))}
           </fieldset>
@@ -256,8 +261,9 @@ function LogView({
         {table && numeric.length === 0 && <p className="text-sm text-muted">This log has no numeric columns.</p>}
         {table && xCol >= 0 && !xConv && (
           <p className="notice text-sm">
-            The column {table.header[xCol]} has no unit that converts to {chartSet.x.unit || 'the curve’s x'}; name it
-            with a suffix such as <code>_mps</code> or choose another column.
+            The column <code>{table.header[xCol]}</code> has no unit that converts to{' '}
+            {chartSet.x.unit || 'the curve’s x'}; name it with a suffix such as <code>_mps</code> or choose another
+            column.
           </p>
         )}
         {unmatched.length > 0 && (
@@ -430,8 +436,8 @@ function FormFactorFit({
             onChange={(e) => setSpeedCol(Number(e.target.value))}
           >
             {speedCols.map((i) => (
-              <option key={i} value={i}>
-                {table.header[i]}
+              <option key={i} value={i} title={table.header[i]}>
+                {columnLabel(table.header[i])}
               </option>
             ))}
           </select>
@@ -445,8 +451,8 @@ function FormFactorFit({
             onChange={(e) => setPowerCol(Number(e.target.value))}
           >
             {powerCols.map((i) => (
-              <option key={i} value={i}>
-                {table.header[i]}
+              <option key={i} value={i} title={table.header[i]}>
+                {columnLabel(table.header[i])}
               </option>
             ))}
           </select>

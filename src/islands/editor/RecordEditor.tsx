@@ -11,6 +11,7 @@ import Toolbar from './Toolbar';
 import LinkPicker, { type PickOption } from './LinkPicker';
 import { draftKey, readDraft, writeDraft, clearDraft, type Draft } from './drafts';
 import ConflictView from './ConflictView';
+import SubsystemSelect from '../ui/SubsystemSelect';
 
 export interface EditableRecord {
   id: string;
@@ -155,7 +156,14 @@ export default function RecordEditor({
   }, [dirty]);
 
   const calcs = useSWR<{
-    calculations: { id: string; title: string; kind: string; season: string; subsystemName: string }[];
+    calculations: {
+      id: string;
+      title: string;
+      kind: string;
+      kindTitle?: string;
+      season: string;
+      subsystemName: string;
+    }[];
   }>('/api/calculations?limit=100', fetcher);
   const recs = useSWR<{
     records: { id: string; title: string; kind: string; season: string; subsystemName: string }[];
@@ -163,7 +171,7 @@ export default function RecordEditor({
   const calcOptions: PickOption[] = (calcs.data?.calculations ?? []).map((c) => ({
     id: c.id,
     title: c.title,
-    detail: `${c.kind} · ${c.subsystemName} · ${c.season}`,
+    detail: `${c.kindTitle ?? c.kind} · ${c.subsystemName} · ${c.season}`,
   }));
   const recOptions: PickOption[] = (recs.data?.records ?? [])
     .filter((r) => r.id !== record?.id)
@@ -392,23 +400,13 @@ export default function RecordEditor({
         )}
       </div>
       <div className="grid gap-4 sm:grid-cols-3">
-        <div className="field">
-          <label htmlFor="rec-subsystem">Subsystem</label>
-          <select
-            id="rec-subsystem"
-            className="input"
-            value={fields.subsystem}
-            onChange={(e) => set('subsystem', e.target.value)}
-            aria-invalid={errors.subsystem ? true : undefined}
-          >
-            {subsystems.map((s) => (
-              <option key={s.slug} value={s.slug}>
-                {s.name}
-              </option>
-            ))}
-          </select>
-          {errors.subsystem && <p className="field-error">{errors.subsystem}</p>}
-        </div>
+        <SubsystemSelect
+          id="rec-subsystem"
+          value={fields.subsystem}
+          onChange={(v) => set('subsystem', v)}
+          subsystems={subsystems}
+          error={errors.subsystem}
+        />
         <div className="field">
           <label htmlFor="rec-season">Season</label>
           <select

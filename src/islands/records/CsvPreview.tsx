@@ -2,6 +2,7 @@ import { useEffect, useMemo, useState } from 'react';
 import LineChart from '../ui/LineChart';
 import { parseCsv, numericColumns } from '~/lib/csv';
 import { unitFromName } from '~/lib/units';
+import { columnLabel } from '~/lib/test-log';
 
 /** Plots a CSV test log: pick the x column and the columns to draw against it. */
 export default function CsvPreview({ url, name }: { url: string; name: string }) {
@@ -49,8 +50,8 @@ export default function CsvPreview({ url, name }: { url: string; name: string })
             }}
           >
             {numeric.map((i) => (
-              <option key={i} value={i}>
-                {table.header[i]}
+              <option key={i} value={i} title={table.header[i]}>
+                {columnLabel(table.header[i])}
               </option>
             ))}
           </select>
@@ -60,13 +61,13 @@ export default function CsvPreview({ url, name }: { url: string; name: string })
           {numeric
             .filter((i) => i !== x)
             .map((i) => (
-              <label key={i} className="flex items-center gap-1">
+              <label key={i} className="flex items-center gap-1" title={table.header[i]}>
                 <input
                   type="checkbox"
                   checked={ys.includes(i)}
                   onChange={() => setYs(ys.includes(i) ? ys.filter((k) => k !== i) : [...ys, i])}
                 />
-                {table.header[i]}
+                {columnLabel(table.header[i])}
               </label>
             ))}
         </fieldset>

@@ -2,8 +2,10 @@ import { useEffect, useRef, useState } from 'react';
 import uPlot from 'uplot';
 import 'uplot/dist/uPlot.min.css';
 import type { SeriesSet } from '~/lib/calc/types';
-import type { ChartMark } from '~/lib/chart-marks';
+import { restingIndex, valueAt, type ChartMark } from '~/lib/chart-marks';
 import { formatNumber } from '~/lib/format';
+import { plainSymbols } from '~/lib/symbols';
+import Sym from './Sym';
 
 export interface ChartDataset {
   /** Prefixed to each line's label when several datasets are overlaid (e.g. "A", "B"). */
@@ -52,6 +54,12 @@ function useSchemeVersion(): number {
 
 const NO_MARKS: ChartMark[] = [];
 
+/** Legend values to about three significant figures: 1,600 rpm, 619.9 N, 0.123. */
+const legendNumber = (v: number) => {
+  const abs = Math.abs(v);
+  return formatNumber(v, abs >= 100 ? 0 : abs >= 10 ? 1 : abs >= 1 ? 2 : 3);
+};
+
 const tick = (v: number) => formatNumber(v, Math.abs(v) >= 100 || Number.isInteger(v) ? 0 : 2);
 
 /** Room for the widest tick value, so the axis title beside it is never drawn over or cut off. */
@@ -93,19 +101,34 @@ export default function LineChart({
     const units = [...new Set(datasets.flatMap((d) => d.set.y.map((y) => y.unit)))];
     const tables = datasets.map((d) => [d.set.x.values, ...d.set.y.map((y) => y.values)] as uPlot.AlignedData);
     const data = datasets.length === 1 ? tables[0] : uPlot.join(tables);
+    // While nobody points at the chart the legend reads the operating point (or the last point), not a dash.
+    const atX = marks[0]?.x;
+    const resting = data.map((ys) => restingIndex(data[0], ys, atX));
+    const atRest = (sidx: number) => {
+      if (atX !== undefined) {
+        const at = sidx === 0 ? atX : valueAt(data[0], data[sidx], atX);
+        if (at !== null) return at;
+      }
+      const rest = resting[sidx];
+      return rest == null ? null : (data[sidx][rest] ?? null);
+    };
+    const legendValue = (_u: uPlot, v: number | null, sidx: number, idx: number | null) => {
+      const shown = idx == null ? atRest(sidx) : v;
+      return shown == null ? '–' : legendNumber(shown);
+    };
     const lines: uPlot.Series[] = [];
     datasets.forEach((d, di) =>
       d.set.y.forEach((y, yi) => {
         const scale = units.indexOf(y.unit) === 0 ? 'left' : 'right';
         lines.push({
-          label: `${d.name ? `${d.name}: ` : ''}${y.label}${y.unit ? ` (${y.unit})` : ''}`,
+          label: plainSymbols(`${d.name ? `${d.name}: ` : ''}${y.label}${y.unit ? ` (${y.unit})` : ''}`),
           stroke: palette.lines[yi % palette.lines.length], // one colour per quantity, so A and B match
           // Overlaid datasets differ by dash; lines within one dataset by colour and by dash too, never colour alone.
           dash: datasets.length > 1 ? DASHES[di % DASHES.length] : DASHES[yi % DASHES.length],
           width: 2,
           scale,
           spanGaps: true,
-          value: (_u, v) => (v == null ? '–' : formatNumber(v, 3)),
+          value: legendValue,
         });
       }),
     );
@@ -132,7 +155,7 @@ export default function LineChart({
         ctx.moveTo(x, u.bbox.top);
         ctx.lineTo(x, u.bbox.top + u.bbox.height);
         ctx.stroke();
-        const text = m.label.split(':')[0];
+        const text = plainSymbols(m.label.split(':')[0]);
         const width = ctx.measureText(text).width;
         const right = x + 6 * dpr + width < u.bbox.left + u.bbox.width;
         ctx.textAlign = right ? 'left' : 'right';
@@ -147,14 +170,11 @@ export default function LineChart({
       height,
       scales: { x: { time: false }, left: {}, right: {} },
       series: [
-        {
-          label: `${first.x.label}${first.x.unit ? ` (${first.x.unit})` : ''}`,
-          value: (_u, v) => (v == null ? '–' : formatNumber(v, 3)),
-        },
+        { label: plainSymbols(`${first.x.label}${first.x.unit ? ` (${first.x.unit})` : ''}`), value: legendValue },
         ...lines,
       ],
       axes: [
-        { ...axisStyle, label: `${first.x.label}${first.x.unit ? ` (${first.x.unit})` : ''}` },
+        { ...axisStyle, label: plainSymbols(`${first.x.label}${first.x.unit ? ` (${first.x.unit})` : ''}`) },
         { ...axisStyle, scale: 'left', label: units[0] || '' },
         ...(units.length > 1
           ? [
@@ -188,17 +208,23 @@ export default function LineChart({
         ref={el}
         className="chart-canvas"
         role="img"
-        aria-label={`${label}: ${datasets.flatMap((d) => d.set.y.map((y) => y.label)).join(', ')} against ${first?.x.label ?? 'x'}${marks.length ? `; marked: ${marks.map((m) => m.label).join('; ')}` : ''}`}
+        aria-label={plainSymbols(
+          `${label}: ${datasets.flatMap((d) => d.set.y.map((y) => y.label)).join(', ')} against ${first?.x.label ?? 'x'}${marks.length ? `; marked: ${marks.map((m) => m.label).join('; ')}` : ''}`,
+        )}
       />
       <img ref={still} className="chart-still" alt="" />
       <figcaption className="mt-1 text-sm text-muted">
-        {label}
+        <Sym text={label} />
         {marks.map((m) => (
           <span key={m.label} className="block">
             <span aria-hidden="true">┆ </span>
-            {m.label}
+            <Sym text={m.label} />
           </span>
         ))}
+        <span className="no-print block text-xs">
+          The legend reads {marks.length > 0 ? 'the marked point' : 'the last point'}; point at or touch the chart to
+          read another.
+        </span>
       </figcaption>
       {first && <DataTable datasets={datasets} />}
     </figure>
@@ -219,13 +245,13 @@ function DataTable({ datasets }: { datasets: ChartDataset[] }) {
             <table className="tabular border-collapse text-xs">
               <caption className="text-left font-semibold">
                 {d.name ? `${d.name}: ` : ''}
-                {d.set.title}
+                <Sym text={d.set.title} />
               </caption>
               <thead>
                 <tr>
                   {[d.set.x, ...d.set.y].map((a) => (
                     <th key={a.name} scope="col" className="border border-line px-2 py-1 text-left">
-                      {a.label}
+                      <Sym text={a.label} />
                       {a.unit ? ` (${a.unit})` : ''}
                     </th>
                   ))}

@@ -4,6 +4,7 @@ import {
   auditEntries,
   calculations,
   guideSuggestions,
+  imports,
   invitations,
   records,
   seasons,
@@ -66,6 +67,15 @@ async function resolveTargets(refs: Ref[]): Promise<Map<string, AuditTarget>> {
       .where(inArray(subsystems.slug, subs))
       .all())
       put('subsystem', x.slug, x.name, `/subsystems/${x.slug}`);
+  const imp = ids('import');
+  if (imp.length)
+    for (const x of db()
+      .select({ id: imports.id, total: imports.total, name: subsystems.name })
+      .from(imports)
+      .innerJoin(subsystems, eq(subsystems.slug, imports.subsystemSlug))
+      .where(inArray(imports.id, imp))
+      .all())
+      put('import', x.id, `${x.total} ${x.total === 1 ? 'file' : 'files'} into ${x.name}`, null);
   const inv = ids('invitation');
   if (inv.length)
     for (const x of db()

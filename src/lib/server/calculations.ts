@@ -310,6 +310,8 @@ export function getCalculation(id: string): CalculationView | null {
 export interface CalculationListItem {
   id: string;
   kind: string;
+  /** the calculator's name, as the rest of the app shows it */
+  kindTitle: string;
   title: string;
   subsystem: string;
   subsystemName: string;
@@ -375,9 +377,12 @@ export function listCalculations(q: {
     id: c?.id,
     limit: q.limit + 1,
   });
-  const page: CalculationListItem[] = rows
-    .slice(0, q.limit)
-    .map((r) => ({ ...r, createdAt: r.createdAt.toISOString(), url: `/calculations/${r.id}` }));
+  const page: CalculationListItem[] = rows.slice(0, q.limit).map((r) => ({
+    ...r,
+    kindTitle: getCalculator(r.kind)?.title ?? r.kind,
+    createdAt: r.createdAt.toISOString(),
+    url: `/calculations/${r.id}`,
+  }));
   const last = page[page.length - 1];
   return {
     calculations: page,

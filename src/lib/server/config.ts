@@ -55,6 +55,12 @@ export const settingsSchema = z
         'must be one line of at most 120 characters',
       ),
     WAKEBOOK_MAX_UPLOAD_MB: z.coerce.number().positive().max(1024).default(20),
+    /** Importing documents (/api/imports): files in one import, counting each file inside a zip. */
+    WAKEBOOK_IMPORT_MAX_FILES: z.coerce.number().int().min(1).max(10_000).default(500),
+    /** Importing: the largest .zip accepted (each file in it, and every other file, is held to WAKEBOOK_MAX_UPLOAD_MB). */
+    WAKEBOOK_IMPORT_ZIP_MB: z.coerce.number().positive().max(4096).default(200),
+    /** Importing: what the files of one import may add up to once unzipped (also the largest request). */
+    WAKEBOOK_IMPORT_TOTAL_MB: z.coerce.number().positive().max(8192).default(500),
     /** Memory for rendered signed-in reads kept until the next write (0 turns the cache off). */
     WAKEBOOK_RESPONSE_CACHE_MB: z.coerce.number().min(0).max(1024).default(24),
     /** Serve https directly: both PEM files must be given together (the start file reads them). */

@@ -92,8 +92,15 @@ export async function receiveFile(request: Request, options: ReceiveOptions): Pr
   });
 }
 
-/** Writes one file stream to a new temporary file, hashing and sniffing each chunk on the way; removes it on failure. */
-async function writeIncoming(stream: Readable, fileName: string): Promise<ReceivedFile> {
+/**
+ * Writes one file stream to a new temporary file, hashing and sniffing each chunk on the way; removes it on failure.
+ * `check` (given the size so far and the chunk's length) may stop the writing with an error.
+ */
+async function writeIncoming(
+  stream: Readable,
+  fileName: string,
+  check: (size: number, added: number) => Error | null = () => null,
+): Promise<ReceivedFile> {
   const path = incomingPath();
   const hash = createHash('sha256');
   const sniffer = startSniffing();
@@ -103,7 +110,7 @@ async function writeIncoming(stream: Readable, fileName: string): Promise<Receiv
       hash.update(chunk);
       sniffer.push(chunk);
       size += chunk.byteLength;
-      done(null, chunk);
+      done(check(size, chunk.byteLength), chunk);
     },
   });
   try {
@@ -113,4 +120,114 @@ async function writeIncoming(stream: Readable, fileName: string): Promise<Receiv
     discardIncoming(path);
     throw e;
   }
+}
+
+interface ReceivedPart {
+  path: string;
+  fileName: string;
+  size: number;
+  sha256: string;
+}
+
+interface ReceiveManyOptions {
+  field: string;
+  /** The most bytes one file may have; `maxBytesFor` may lower it by the file's name. */
+  maxBytes: number;
+  maxBytesFor: (fileName: string) => number;
+  /** The most bytes all files together may have. */
+  maxTotalBytes: number;
+  maxFiles: number;
+  /** Answers for a file over its limit, all files over the total, or too many files. */
+  tooLarge: (why: 'file' | 'total' | 'count', fileName: string) => HttpError;
+  noFile: () => HttpError;
+}
+
+/**
+ * Reads a multipart body with many files in one field (and a few small text fields), writing each file to its own
+ * temporary file as it streams in. A file over its limit, the files together over theirs, or one file too many stop
+ * the reading at once and remove everything written so far.
+ */
+export async function receiveFiles(
+  request: Request,
+  options: ReceiveManyOptions,
+): Promise<{ files: ReceivedPart[]; fields: Record<string, string> }> {
+  const contentType = request.headers.get('content-type') ?? '';
+  if (!request.body || !/^multipart\/form-data\b/i.test(contentType)) throw options.noFile();
+  let parser: busboy.Busboy;
+  try {
+    parser = busboy({
+      headers: { 'content-type': contentType },
+      defParamCharset: 'utf8',
+      limits: {
+        fileSize: options.maxBytes,
+        files: options.maxFiles,
+        fields: 20,
+        parts: options.maxFiles + 20,
+        fieldSize: 64 * 1024,
+      },
+    });
+  } catch {
+    throw options.noFile();
+  }
+  const source = Readable.fromWeb(request.body as NodeReadableStream<Uint8Array>);
+  const fields: Record<string, string> = {};
+  const writes: Promise<ReceivedPart>[] = [];
+  let total = 0;
+
+  return new Promise((resolve, reject) => {
+    let settled = false;
+    const current = new Set<Readable>();
+    const fail = (error: unknown) => {
+      if (settled) return;
+      settled = true;
+      source.unpipe(parser);
+      source.destroy();
+      process.nextTick(() => parser.destroy());
+      for (const f of current) f.destroy();
+      for (const w of writes)
+        w.then(
+          (part) => discardIncoming(part.path),
+          () => undefined,
+        );
+      reject(error instanceof Error ? error : new Error('The upload failed.', { cause: error }));
+    };
+    const unreadable = () => new HttpError(400, 'invalid_input', 'The upload could not be read; please send it again.');
+
+    parser.on('field', (name, value) => {
+      if (!(name in fields)) fields[name] = value;
+    });
+    parser.on('file', (name, stream, info) => {
+      if (name !== options.field || settled) {
+        stream.resume();
+        return;
+      }
+      const fileName = info.filename ?? 'file';
+      const limit = Math.min(options.maxBytes, options.maxBytesFor(fileName));
+      current.add(stream);
+      stream.once('limit', () => process.nextTick(() => fail(options.tooLarge('file', fileName))));
+      const write = writeIncoming(stream, fileName, (size, added) => {
+        total += added;
+        if (size > limit) return options.tooLarge('file', fileName);
+        if (total > options.maxTotalBytes) return options.tooLarge('total', fileName);
+        return null;
+      }).then(({ path, size, sha256 }) => {
+        current.delete(stream);
+        return { path, fileName, size, sha256 };
+      });
+      writes.push(write);
+      write.catch(fail);
+    });
+    parser.on('filesLimit', () => process.nextTick(() => fail(options.tooLarge('count', ''))));
+    parser.once('error', () => fail(unreadable()));
+    parser.once('close', () => {
+      if (settled) return;
+      Promise.all(writes).then((files) => {
+        if (settled) return;
+        settled = true;
+        resolve({ files, fields });
+      }, fail);
+    });
+    source.once('error', () => fail(unreadable()));
+    source.pipe(parser);
+  });
 }

@@ -16,7 +16,7 @@ export function maxUploadBytes(): number {
   return settings().WAKEBOOK_MAX_UPLOAD_MB * 1024 * 1024;
 }
 
-function cleanName(name: string): string {
+export function cleanName(name: string): string {
   const base = name.split(/[\\/]/).pop() ?? 'file';
   const cleaned = base.replace(/[\u0000-\u001f\u007f"<>|:*?]/g, '_').trim();
   return cutFileName(cleaned) || 'file';

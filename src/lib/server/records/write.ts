@@ -55,7 +55,7 @@ function replaceLinks(tx: Tx, recordId: string, calculationIds?: string[], relat
   }
 }
 
-function insertRevision(
+export function insertRevision(
   tx: Tx,
   r: { id: string; version: number; title: string; status: RecordStatus; body: unknown; bodyText: string },
   editorId: string,
@@ -322,6 +322,23 @@ function acceptable(current: RecordView, actor: Actor): boolean {
   return can(actor, 'record:review') || current.reviewed?.current === true;
 }
 
+/**
+ * Marks a record still in `status` deleted and takes it off onboarding routes (a step pointing at it would only show
+ * as "no longer exists"). False when it has moved on or is gone already.
+ */
+export function softDeleteIn(tx: Tx, id: string, status: RecordStatus, actorId: string): boolean {
+  const gone = tx
+    .update(records)
+    .set({ deletedAt: new Date(), updatedById: actorId })
+    .where(and(eq(records.id, id), eq(records.status, status), isNull(records.deletedAt)))
+    .run();
+  if (gone.changes !== 1) return false;
+  tx.delete(onboardingItems)
+    .where(and(eq(onboardingItems.kind, 'record'), eq(onboardingItems.ref, id)))
+    .run();
+  return true;
+}
+
 /** Deletes a draft for good (its author or a lead). Anything further along stays: withdraw it instead. */
 export function discardDraft(id: string, actor: Actor): void {
   const current = getRecordView(id);
@@ -334,16 +351,7 @@ export function discardDraft(id: string, actor: Actor): void {
       { current: { status: current.status, version: current.version } },
     );
   db().transaction((tx) => {
-    const gone = tx
-      .update(records)
-      .set({ deletedAt: new Date(), updatedById: actor.id })
-      .where(and(eq(records.id, id), eq(records.status, 'draft'), isNull(records.deletedAt)))
-      .run();
-    if (gone.changes !== 1) throw conflict('Someone changed this record a moment ago.', {});
-    // A route step pointing at a discarded draft would only show as "no longer exists": take it off the routes.
-    tx.delete(onboardingItems)
-      .where(and(eq(onboardingItems.kind, 'record'), eq(onboardingItems.ref, id)))
-      .run();
+    if (!softDeleteIn(tx, id, 'draft', actor.id)) throw conflict('Someone changed this record a moment ago.', {});
   });
   recordAudit({
     actor,
