@@ -55,6 +55,7 @@ const PAGES: PageCase[] = [
   },
   { path: '/people', as: 'member', budgetKb: PLAIN },
   { path: '/questions', as: 'alumni', budgetKb: PLAIN },
+  { path: '/pending', as: 'member', budgetKb: PLAIN },
   { path: '/questions?state=answered', as: 'member', budgetKb: PLAIN },
   { path: '/', as: 'alumni', budgetKb: PLAIN },
   { path: '/account', as: 'alumni', budgetKb: PLAIN },

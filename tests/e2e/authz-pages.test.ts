@@ -51,6 +51,7 @@ const PAGES: Record<string, { url: string; expect: Partial<Record<Who, number>> 
   },
   'people/index.astro': { url: '/people', expect: { out: 302, ...everyone } },
   'questions.astro': { url: '/questions', expect: { out: 302, ...everyone } },
+  'pending.astro': { url: '/pending', expect: { out: 302, ...everyone } },
   'seasons/index.astro': { url: '/seasons', expect: { out: 302, ...everyone } },
   'handover.astro': { url: '/handover', expect: { out: 302, ...everyone } },
   'onboarding.astro': { url: '/onboarding', expect: { out: 302, ...ok(['lead']) } },

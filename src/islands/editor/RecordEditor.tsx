@@ -5,7 +5,7 @@ import { recordExtensions } from '~/lib/editor/extensions';
 import { templateFor, withSectionSlots } from '~/lib/editor/templates';
 import { SectionPrompts } from '~/lib/editor/section-prompts';
 import { MAX_CHANGE_NOTE } from '~/lib/record-rules';
-import { apiFetch, ApiError, fetcher } from '~/lib/client/api';
+import { apiFetch, ApiError, fetcher, KeptOnDevice } from '~/lib/client/api';
 import { LESSON_SOURCES, type LessonSource, type RecordKind } from '~/lib/domain';
 import Toolbar from './Toolbar';
 import LinkPicker, { type PickOption } from './LinkPicker';
@@ -94,6 +94,7 @@ export default function RecordEditor({
   const [saving, setSaving] = useState(false);
   const [changeNote, setChangeNote] = useState('');
   const [conflict, setConflict] = useState<Conflict | null>(null);
+  const [kept, setKept] = useState(false);
   const leaving = useRef(false);
 
   const extensions = useMemo(() => [...recordExtensions(), SectionPrompts], []);
@@ -113,6 +114,25 @@ export default function RecordEditor({
   });
 
   const dirty = JSON.stringify({ fields, body: bodyJson }) !== saved;
+
+  // `?outbox=<entry>`: an edit kept offline that met a newer version, loaded as "mine" into the merge view.
+  const [fromOutbox, setFromOutbox] = useState<string | null>(null);
+  useEffect(() => {
+    const entryId = new URLSearchParams(window.location.search).get('outbox');
+    if (!record || !editor || !entryId) return;
+    void import('./outbox-draft').then((m) =>
+      m.loadKeptEdit(record.id, entryId, editor, {
+        setFields,
+        setBodyJson,
+        setVersion,
+        setChangeNote,
+        setConflict,
+        setMessage,
+        setFromOutbox,
+        setRestorable,
+      }),
+    );
+  }, [record, editor]);
 
   // Keep unsaved work in this browser, so a reload or a crash loses nothing.
   useEffect(() => {
@@ -196,6 +216,7 @@ export default function RecordEditor({
           const res = await apiFetch<{ record: { url: string } }>('/api/records', {
             method: 'POST',
             json: { kind, ...payload },
+            offline: { label: newLabel(kind, fields.title) },
           });
           clearDraft(key);
           leaving.current = true;
@@ -209,7 +230,9 @@ export default function RecordEditor({
             ...payload,
             ...(changeNote.trim() ? { changeNote: changeNote.trim() } : {}),
           },
+          offline: { label: `Edit of ‘${record.title}’` },
         });
+        await dropKept(fromOutbox);
         setVersion(res.record.version);
         setChangeNote('');
         setSaved(JSON.stringify({ fields, body }));
@@ -218,7 +241,14 @@ export default function RecordEditor({
         setConflict(null);
         setMessage({ tone: 'ok', text: `Saved as version ${res.record.version}.` });
       } catch (e) {
-        if (e instanceof ApiError && e.status === 409 && e.body?.error.current) {
+        if (e instanceof KeptOnDevice) {
+          // The outbox holds it now (and sends it when the network is back); the draft is no longer needed.
+          clearDraft(key);
+          await dropKept(fromOutbox);
+          leaving.current = true;
+          setKept(true); // sent later from the outbox; saving again here would send it twice
+          setMessage({ tone: 'ok', text: e.message });
+        } else if (e instanceof ApiError && e.status === 409 && e.body?.error.current) {
           const cur = e.body.error.current as {
             version: number;
             title: string;
@@ -254,7 +284,7 @@ export default function RecordEditor({
         setSaving(false);
       }
     },
-    [editor, fields, canPickSeason, kind, record, version, key, changeNote],
+    [editor, fields, canPickSeason, kind, record, version, key, changeNote, fromOutbox],
   );
 
   // Ctrl/Cmd+S saves.
@@ -302,7 +332,6 @@ export default function RecordEditor({
   };
 
   if (!editor) return <p className="text-muted">Loading the editor…</p>;
-
   return (
     <form
       className="flex flex-col gap-5"
@@ -478,7 +507,7 @@ export default function RecordEditor({
             )}
           </div>
         )}
-        <button type="submit" className="btn btn-primary" disabled={saving}>
+        <button type="submit" className="btn btn-primary" disabled={saving || kept}>
           {saving
             ? 'Saving…'
             : record
@@ -496,4 +525,13 @@ export default function RecordEditor({
       </div>
     </form>
   );
+}
+
+function newLabel(kind: RecordKind, title: string): string {
+  return `New ${kind === 'lesson' ? 'lesson' : 'decision record'} ‘${title}’`;
+}
+
+/** A kept edit that is now saved (or kept again) leaves the outbox. */
+async function dropKept(entryId: string | null): Promise<void> {
+  if (entryId) await import('~/lib/client/outbox').then((m) => m.discardChange(entryId));
 }

@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { apiFetch, ApiError } from '~/lib/client/api';
+import { apiFetch, ApiError, KeptOnDevice } from '~/lib/client/api';
 
 export interface ChecklistItem {
   id: string;
@@ -25,6 +25,7 @@ export default function RouteChecklist({
 }) {
   const [items, setItems] = useState(initial);
   const [error, setError] = useState('');
+  const [kept, setKept] = useState('');
   const live = items.filter((i) => i.exists);
   const done = live.filter((i) => i.done).length;
 
@@ -36,8 +37,13 @@ export default function RouteChecklist({
       await apiFetch(`/api/onboarding/${subsystem}/progress`, {
         method: 'POST',
         json: { itemId: item.id, done: next },
+        offline: { label: `Onboarding step ${next ? 'ticked' : 'unticked'}: ‘${item.title}’` },
       });
     } catch (e) {
+      if (e instanceof KeptOnDevice) {
+        setKept(e.message); // the tick stays; the outbox sends it
+        return;
+      }
       setItems((xs) => xs.map((x) => (x.id === item.id ? { ...x, done: item.done } : x)));
       setError(e instanceof ApiError ? e.message : 'Could not save your tick; try again.');
     }
@@ -93,6 +99,11 @@ export default function RouteChecklist({
       {error && (
         <p className="field-error" role="alert">
           {error}
+        </p>
+      )}
+      {kept && (
+        <p className="notice text-sm" role="status">
+          {kept} <a href="/pending">Changes waiting</a>
         </p>
       )}
     </div>

@@ -1,6 +1,6 @@
 import { useState, type FormEvent } from 'react';
 import useSWR from 'swr';
-import { apiFetch, ApiError, fetcher } from '~/lib/client/api';
+import { apiFetch, ApiError, fetcher, KeptOnDevice } from '~/lib/client/api';
 import type { CommentKind } from '~/lib/domain';
 
 export interface CommentItem {
@@ -124,17 +124,26 @@ function CommentBody({ c }: { c: CommentItem }) {
   );
 }
 
-/** Sends one request and shows its error; `run` returns whether it worked. */
+/**
+ * Sends one request and shows its error; `run` returns whether it worked. With `offline`, a write made with no
+ * network is kept on this device (the outbox sends it later) and counts as done, with a note saying so.
+ */
 function useSend() {
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState('');
-  async function run(url: string, json: object, field?: string) {
+  const [kept, setKept] = useState('');
+  async function run(url: string, json: object, field?: string, offline?: { label: string }) {
     setBusy(true);
     setError('');
+    setKept('');
     try {
-      await apiFetch(url, { method: 'POST', json });
+      await apiFetch(url, { method: 'POST', json, offline });
       return true;
     } catch (e) {
+      if (e instanceof KeptOnDevice) {
+        setKept(e.message);
+        return 'kept';
+      }
       setError(
         e instanceof ApiError
           ? ((field && e.fieldErrors()[field]) ?? e.message)
@@ -145,7 +154,7 @@ function useSend() {
       setBusy(false);
     }
   }
-  return { busy, error, run };
+  return { busy, error, kept, run };
 }
 
 function MarkAnswered({ id, onDone }: { id: string; onDone: () => void }) {
@@ -184,7 +193,7 @@ function CommentForm({
 }) {
   const [body, setBody] = useState('');
   const [open, setOpen] = useState(!replyTo);
-  const { busy, error, run } = useSend();
+  const { busy, error, kept, run } = useSend();
   const id = `comment-form-${replyTo ?? 'new'}`;
   if (!open)
     return (
@@ -196,9 +205,14 @@ function CommentForm({
     e.preventDefault();
     // A new comment's kind is the button pressed: “Ask” or “Add as a note”.
     const kind = (e.nativeEvent as SubmitEvent).submitter?.getAttribute('value') ?? 'question';
-    if (await run(`/api/records/${recordId}/comments`, replyTo ? { body, replyTo } : { body, kind }, 'body')) {
+    // The record's title is the page's heading: it names the change in the list of changes waiting to be sent.
+    const on = document.querySelector('h1')?.textContent?.trim() ?? 'a record';
+    const what = replyTo ? 'Answer' : kind === 'note' ? 'Note' : 'Question';
+    const json = replyTo ? { body, replyTo } : { body, kind };
+    const done = await run(`/api/records/${recordId}/comments`, json, 'body', { label: `${what} on ‘${on}’` });
+    if (done) {
       setBody('');
-      if (replyTo) setOpen(false);
+      if (replyTo && done !== 'kept') setOpen(false); // a kept answer stays open to show where it went
       onDone();
     }
   }
@@ -219,6 +233,11 @@ function CommentForm({
       {error && (
         <p id={`${id}-error`} className="field-error">
           {error}
+        </p>
+      )}
+      {kept && (
+        <p role="status" className="notice text-sm">
+          {kept} <a href="/pending">Changes waiting</a>
         </p>
       )}
       <p className="flex flex-wrap gap-2">

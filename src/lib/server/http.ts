@@ -18,6 +18,7 @@ export type ErrorCode =
   | 'too_large'
   | 'unsupported_type'
   | 'out_of_range'
+  | 'idempotency_key_reused'
   | 'rate_limited'
   | 'internal';
 
