@@ -24,6 +24,7 @@ const registry = {
   'guides/GuideSuggestions': () => import('../islands/guides/GuideSuggestions'),
   'imports/ImportForm': () => import('../islands/imports/ImportForm'),
   'imports/ImportReview': () => import('../islands/imports/ImportReview'),
+  'offline/PendingChanges': () => import('../islands/offline/PendingChanges'),
   'onboarding/NudgeButton': () => import('../islands/onboarding/NudgeButton'),
   'onboarding/RouteChecklist': () => import('../islands/onboarding/RouteChecklist'),
   'onboarding/RouteCurator': () => import('../islands/onboarding/RouteCurator'),

@@ -47,7 +47,7 @@ async function lessonsTitled(title: string): Promise<number> {
 /** The question form, once its island has hydrated (typing before that would be lost). */
 async function commentForm(p: Page) {
   await p.getByRole('heading', { name: /^Questions and notes/ }).scrollIntoViewIfNeeded();
-  await p.locator('astro-island[component-url*="Comments"]:not([ssr])').waitFor({ state: 'attached' });
+  await p.locator('[data-island="records/Comments"][data-mounted]').waitFor({ state: 'attached' });
   return p.getByLabel('Ask a question or add a note');
 }
 
@@ -213,7 +213,10 @@ describe('writing offline', () => {
     const item = (await route()).items.find((i) => !i.done);
     expect(item).toBeDefined();
     await page.goto(`${baseUrl()}/subsystems/propulsion`);
-    await page.locator('astro-island:not([ssr]) input[type="checkbox"]').first().waitFor({ state: 'attached' });
+    await page
+      .locator('[data-island="onboarding/RouteChecklist"][data-mounted] input[type="checkbox"]')
+      .first()
+      .waitFor({ state: 'attached' });
     await ctx.setOffline(true);
     await page.getByRole('checkbox', { name: `Done: ${item!.title}` }).check();
     await page.getByText(KEPT).waitFor();
