@@ -1,4 +1,4 @@
-import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { lazy, Suspense, useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { EditorContent, useEditor, type JSONContent } from '@tiptap/react';
 import useSWR from 'swr';
 import { recordExtensions } from '~/lib/editor/extensions';
@@ -10,8 +10,10 @@ import { LESSON_SOURCES, type LessonSource, type RecordKind } from '~/lib/domain
 import Toolbar from './Toolbar';
 import LinkPicker, { type PickOption } from './LinkPicker';
 import { draftKey, readDraft, writeDraft, clearDraft, type Draft } from './drafts';
-import ConflictView from './ConflictView';
 import SubsystemSelect from '../ui/SubsystemSelect';
+
+// The merge view (and the word diff it needs) loads only when a save meets a newer version.
+const ConflictView = lazy(() => import('./ConflictView'));
 
 export interface EditableRecord {
   id: string;
@@ -369,13 +371,15 @@ export default function RecordEditor({
         </p>
       )}
       {conflict && (
-        <ConflictView
-          mine={{ title: fields.title, body: bodyJson }}
-          theirs={conflict}
-          onApply={applyChoices}
-          onKeepMine={keepMine}
-          onTakeTheirs={takeTheirs}
-        />
+        <Suspense fallback={<p className="text-sm text-muted">Opening the two versions side by side…</p>}>
+          <ConflictView
+            mine={{ title: fields.title, body: bodyJson }}
+            theirs={conflict}
+            onApply={applyChoices}
+            onKeepMine={keepMine}
+            onTakeTheirs={takeTheirs}
+          />
+        </Suspense>
       )}
 
       <div className="field">
