@@ -140,7 +140,8 @@ describe('writing offline', () => {
   });
 
   it('an edit made offline that meets a newer version opens the merge view', async () => {
-    const id = 'demo-rec-2526-closed-cooling-loop';
+    // Not the cooling record: tests/e2e/offline.test.ts reads that one by its title on the same server.
+    const id = 'demo-rec-2526-sprint-prop-ventilation-launch';
     await page.goto(`${baseUrl()}/records/${id}/edit`);
     await page.locator('.ProseMirror h2').first().waitFor();
     const before = (await (await lead.get(`/api/records/${id}`)).json()) as {
@@ -148,13 +149,13 @@ describe('writing offline', () => {
     };
 
     await ctx.setOffline(true);
-    await page.getByLabel('Title').fill('Closed cooling loop (member’s offline edit)');
+    await page.getByLabel('Title').fill('Sprint propeller ventilation (member’s offline edit)');
     await page.getByRole('button', { name: 'Save changes' }).click();
     await page.getByText(KEPT).waitFor();
 
     // Meanwhile the lead changes the same record.
     const patched = await lead.patch(`/api/records/${id}`, {
-      data: { version: before.record.version, title: 'Closed cooling loop (lead’s edit)' },
+      data: { version: before.record.version, title: 'Sprint propeller ventilation (lead’s edit)' },
     });
     expect(patched.status()).toBe(200);
 
@@ -174,13 +175,13 @@ describe('writing offline', () => {
     expect(await view.getByRole('heading', { level: 2 }).textContent()).toContain(
       `Version ${before.record.version + 1} was saved by`,
     );
-    expect(await page.getByLabel('Title').inputValue()).toBe('Closed cooling loop (member’s offline edit)');
+    expect(await page.getByLabel('Title').inputValue()).toBe('Sprint propeller ventilation (member’s offline edit)');
     await shot(page, 'offline-writes-conflict');
 
     await view.getByRole('button', { name: 'Save all of mine as the newer version' }).click();
     await page.getByText(`Saved as version ${before.record.version + 2}.`).waitFor();
     const after = (await (await lead.get(`/api/records/${id}`)).json()) as { record: { title: string } };
-    expect(after.record.title).toBe('Closed cooling loop (member’s offline edit)');
+    expect(after.record.title).toBe('Sprint propeller ventilation (member’s offline edit)');
     await waitForEmptyOutbox(page);
   });
 
