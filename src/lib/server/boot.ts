@@ -10,9 +10,12 @@ let booting: Promise<void> | undefined;
 export function ensureBooted(): Promise<void> {
   booting ??= (async () => {
     await openAndSeed();
-    // Files an import was still converting when the server stopped go back in the queue.
-    const waiting = (await import('./imports/queue')).resumeImports();
-    if (waiting > 0) console.info(`[wakebook] resumed ${waiting} file(s) of unfinished imports`);
+    // Files an import was still converting when the server stopped go back in the queue. Not awaited: the
+    // converters (HTML parsing, the editor's schema) load beside the first answers, not before them.
+    void import('./imports/queue').then(({ resumeImports }) => {
+      const waiting = resumeImports();
+      if (waiting > 0) console.info(`[wakebook] resumed ${waiting} file(s) of unfinished imports`);
+    });
     // Not awaited: the server answers while guides are indexed and the vocabulary loads.
     void warmSearch();
   })();
