@@ -79,7 +79,16 @@ const hostileHtml =
   '<a href="https://example.org/seal" onmouseover="alert(3)">read the maker</a>.</p>' +
   '<script>document.cookie="x"</script><img src="x" onerror="alert(4)">' +
   `<img src="data:image/png;base64,${png.toString('base64')}" alt="seal photo">` +
+  '<img src="https://example.org/pixel.png" alt="maker pixel"><img src="javascript:alert(5)" alt="bad">' +
   '<iframe src="https://example.org"></iframe><ul><li>Check weekly</li></ul></body></html>';
+/** Every image node in a stored document, with its attributes that are set. */
+function imagesOf(n: { type?: string; attrs?: Record<string, unknown>; content?: unknown[] }): unknown[] {
+  const own =
+    n.type === 'image'
+      ? [Object.fromEntries(Object.entries(n.attrs ?? {}).filter(([, v]) => v !== null && v !== undefined))]
+      : [];
+  return [...own, ...(n.content ?? []).flatMap((c) => imagesOf(c as typeof n))];
+}
 const text = 'Battery box lid\nkeeps rain out\n\nSecond paragraph of the note.';
 
 describe('POST /api/imports: who may, and bad requests', () => {
@@ -185,7 +194,7 @@ describe('a fixture folder imported', () => {
     for (const item of result.started.items) expect(item.size).toBeGreaterThan(0);
   });
 
-  it('Word: title from the document, heading, list, table as text, image attached and linked, original attached', async () => {
+  it('Word: title from the document, heading, list, table as text, image attached and shown inline, original attached', async () => {
     const item = byName('laminate.docx');
     expect(item.state).toBe('done');
     const r = await record(item.recordId);
@@ -206,8 +215,10 @@ describe('a fixture folder imported', () => {
     const image = r.attachments.find((a: { isImage: boolean }) => a.isImage);
     expect(image).toBeDefined();
     expect(image.contentType).toBe('image/png');
-    expect(r.bodyHtml).toContain(`href="/api/attachments/${image.id}"`);
-    expect(r.bodyHtml).toContain('Image: chine close-up');
+    // The image stands where it stood in the document, as an image node showing its attachment.
+    expect(imagesOf(r.body)).toEqual([{ src: `/api/attachments/${image.id}`, alt: 'chine close-up' }]);
+    expect(r.bodyHtml).toContain(`</pre><img loading="lazy" src="/api/attachments/${image.id}" alt="chine close-up">`);
+    expect(r.bodyHtml).not.toContain('Image: chine close-up');
     const imageBytes = await call(download, 'GET', { session: s.member, params: { id: image.id } });
     expect(Buffer.from(imageBytes.bytes).equals(png)).toBe(true);
     const original = r.attachments.find((a: { fileName: string }) => a.fileName === 'laminate.docx');
@@ -251,7 +262,12 @@ describe('a fixture folder imported', () => {
     expect(r.bodyHtml).toContain('<li><p>Check weekly</p></li>');
     const image = r.attachments.find((a: { isImage: boolean }) => a.isImage);
     expect(image.fileName).toMatch(/seal photo/);
-    expect(r.bodyHtml).toContain(`href="/api/attachments/${image.id}"`);
+    // Only the carried image is shown, from its attachment; the web picture stays a link, the script one goes.
+    expect(imagesOf(r.body)).toEqual([{ src: `/api/attachments/${image.id}`, alt: 'seal photo' }]);
+    expect(r.bodyHtml).toContain(`</p><img loading="lazy" src="/api/attachments/${image.id}" alt="seal photo"><p>`);
+    expect(r.bodyHtml).not.toMatch(/<img[^>]+src="(?!\/api\/attachments\/)/);
+    expect(r.bodyHtml).not.toContain('data:');
+    expect(r.bodyHtml).toContain('href="https://example.org/pixel.png">Image: maker pixel</a>[image: bad]');
     // The page's meta date (February 2024) falls in 2023–24.
     expect(r.seasonId).toBe(seasonNamed('2023–24').id);
   });

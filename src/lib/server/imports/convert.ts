@@ -10,7 +10,8 @@ import { DOMParser as SchemaParser } from '@tiptap/pm/model';
 import { Window } from 'happy-dom';
 import { marked } from 'marked';
 import { recordExtensions } from '../../editor/extensions';
-import { isSafeHref } from '../../editor/links';
+import { isAttachmentSrc, isSafeHref } from '../../editor/links';
+import { MAX_IMAGE_ALT } from '../records/body';
 import { openZip, ZipTooLarge, ZipUnreadable, MAX_RATIO } from './zip';
 
 /** A file the importer cannot read: the message says why, as a sentence about the file. */
@@ -109,8 +110,8 @@ function textTable(rows: string[][]): string {
 
 /**
  * Brings HTML to what the editor has: no scripts or styles; headings at level 2 or 3; each table as a text table in
- * a code block; each image as a link to its attachment (images the document carries) or to where it lives (a web
- * address), in a line of its own. `images` collects images carried inside the HTML as data: URLs.
+ * a code block; each image the document carries as an image of its attachment, where it stood; each image that
+ * lives elsewhere on the web as a link to it. `images` collects images carried inside the HTML as data: URLs.
  */
 function tidy(
   doc: Document,
@@ -140,6 +141,17 @@ function tidy(
     const href = options.imageLink(src, alt);
     if (!href) {
       img.replaceWith(doc.createTextNode(alt ? `[image: ${alt}]` : ''));
+      continue;
+    }
+    // An image the document carries shows where it stood; a picture elsewhere on the web stays a link to it.
+    if (isAttachmentSrc(href)) {
+      const shown = doc.createElement('img');
+      shown.setAttribute('src', href);
+      if (alt) shown.setAttribute('alt', Array.from(alt).slice(0, MAX_IMAGE_ALT).join(''));
+      // A paragraph holding only the picture becomes the picture (no empty paragraph left around the block).
+      const parent = img.parentElement;
+      const alone = parent?.tagName === 'P' && !(parent.textContent ?? '').trim() && parent.children.length === 1;
+      (alone ? parent : img).replaceWith(shown);
       continue;
     }
     const a = doc.createElement('a');

@@ -169,11 +169,18 @@ function titleFor(found: string | null, fileName: string): string {
   return Array.from(title).slice(0, 200).join('').trim();
 }
 
-/** Replaces links to images that were not kept with their words (no link to an attachment that does not exist). */
-function unlink(n: JSONContent, dropped: Set<string>): JSONContent {
+/**
+ * Replaces images and links to images that were not kept with their words (nothing points at an attachment that
+ * does not exist): an image becomes a paragraph of its description, or nothing when it has none.
+ */
+function unlink(n: JSONContent, dropped: Set<string>): JSONContent | null {
+  if (n.type === 'image' && dropped.has(String(n.attrs?.src))) {
+    const alt = typeof n.attrs?.alt === 'string' ? n.attrs.alt : '';
+    return alt ? { type: 'paragraph', content: [{ type: 'text', text: `[image: ${alt}]` }] } : null;
+  }
   const out: JSONContent = { ...n };
   if (n.marks) out.marks = n.marks.filter((m) => !(m.type === 'link' && dropped.has(String(m.attrs?.href))));
-  if (n.content) out.content = n.content.map((c) => unlink(c, dropped));
+  if (n.content) out.content = n.content.map((c) => unlink(c, dropped)).filter((c): c is JSONContent => c !== null);
   return out;
 }
 
@@ -235,7 +242,7 @@ async function convertItem(
     const stored = storeBytes(image.bytes);
     kept.push({ id, name: cleanName(image.name), contentType: type.contentType, ...stored });
   }
-  const doc = dropped.size ? unlink(converted.doc, dropped) : converted.doc;
+  const doc = dropped.size ? (unlink(converted.doc, dropped) ?? converted.doc) : converted.doc;
 
   const input = recordCreateSchema.parse({
     kind: imp.kind,

@@ -1,7 +1,7 @@
 import { getSchema, type JSONContent } from '@tiptap/core';
 import { generateHTML } from '@tiptap/html/server';
 import { recordExtensions } from '../../editor/extensions';
-import { isSafeHref } from '../../editor/links';
+import { isAttachmentSrc, isSafeHref } from '../../editor/links';
 import { SECTION_PROMPTS } from '../../editor/templates';
 import { invalidInput } from '../http';
 
@@ -12,6 +12,11 @@ export const MAX_BODY_CHARS = 400_000;
 const MAX_DEPTH = 40;
 const HEADING_LEVELS = [2, 3];
 const MAX_LIST_START = 100_000;
+export const MAX_IMAGE_ALT = 500;
+
+/** An image's words: plain text on one line, at most MAX_IMAGE_ALT characters, or none. */
+const validImageText = (v: unknown) =>
+  v === null || (typeof v === 'string' && v.length <= MAX_IMAGE_ALT && !/[\u0000-\u001f\u007f]/.test(v));
 
 export interface ProcessedBody {
   doc: JSONContent;
@@ -52,6 +57,24 @@ const NODE_ATTRS: Record<string, Record<string, AttrRule>> = {
       valid: (v) => Number.isSafeInteger(v) && (v as number) >= 1 && (v as number) <= MAX_LIST_START,
       fallback: 1,
       message: `A numbered list starts at a whole number from 1 to ${MAX_LIST_START}.`,
+    },
+  },
+  image: {
+    src: {
+      valid: isAttachmentSrc,
+      fallback: null,
+      required: true,
+      message: 'An image in the text may show only one of this record’s attachments (/api/attachments/<id>).',
+    },
+    alt: {
+      valid: validImageText,
+      fallback: null,
+      message: `An image description is one line of at most ${MAX_IMAGE_ALT} characters.`,
+    },
+    title: {
+      valid: validImageText,
+      fallback: null,
+      message: `An image title is one line of at most ${MAX_IMAGE_ALT} characters.`,
     },
   },
   taskItem: {
@@ -128,6 +151,9 @@ function withoutPrompts(doc: JSONContent): JSONContent {
 function clean(n: JSONContent, depth: number, repair: boolean): JSONContent | null {
   if (depth > MAX_DEPTH) throw new BodyProblem('The document is nested too deeply.');
   const out: JSONContent = { type: String(n.type ?? '') };
+  // A stored image whose address is not an attachment's cannot be shown safely: repairing drops it.
+  if (repair && out.type === 'image' && !isAttachmentSrc((n.attrs as Record<string, unknown> | undefined)?.src))
+    return null;
   const attrs = cleanAttrs(out.type!, n.attrs, repair);
   if (attrs) out.attrs = attrs;
   if (typeof n.text === 'string') out.text = n.text;
