@@ -435,6 +435,54 @@ describe('attachments', () => {
     expect(Buffer.from(res.bytes).equals(Buffer.from(png))).toBe(true);
   });
 
+  it('an image in the text shows only this record’s own attachment; the same body saves again unchanged', async () => {
+    const r = await create();
+    const other = await create();
+    const up = await call(upload, 'POST', { session: s.member, params: { id: r.id }, rawBody: form(png, 'plot.png') });
+    const theirs = await call(upload, 'POST', {
+      session: s.member,
+      params: { id: other.id },
+      rawBody: form(png, 'plot.png'),
+    });
+    const withImage = (src: string) => ({
+      type: 'doc',
+      content: [
+        { type: 'paragraph', content: [{ type: 'text', text: 'Thrust against rpm:' }] },
+        { type: 'image', attrs: { src, alt: 'Thrust plot' } },
+      ],
+    });
+    const own = `/api/attachments/${up.body.attachment.id}`;
+    // A new record holds no attachment yet, so its text cannot show one.
+    const created = await call(recordsRoute, 'POST', { session: s.member, body: newDecision({ body: withImage(own) }) });
+    expect(created.status).toBe(400);
+    expect(created.body.error.issues[0].path).toBe('body');
+    for (const src of [`/api/attachments/${theirs.body.attachment.id}`, 'https://example.org/a.png', 'data:image/png;base64,AA==']) {
+      const bad = await call(recordRoute, 'PATCH', {
+        session: s.member,
+        params: { id: r.id },
+        body: { version: 1, body: withImage(src) },
+      });
+      expect(bad.status).toBe(400);
+      expect(bad.body.error.code).toBe('invalid_input');
+    }
+    const ok = await call(recordRoute, 'PATCH', {
+      session: s.member,
+      params: { id: r.id },
+      body: { version: 1, body: withImage(own) },
+    });
+    expect(ok.status).toBe(200);
+    expect(ok.body.record.bodyHtml).toBe(`<p>Thrust against rpm:</p><img loading="lazy" src="${own}" alt="Thrust plot">`);
+    // Saving what came back (as the editor does) keeps the image.
+    const again = await call(recordRoute, 'PATCH', {
+      session: s.member,
+      params: { id: r.id },
+      body: { version: 2, body: ok.body.record.body },
+    });
+    expect(again.status).toBe(200);
+    expect(again.body.record.body).toEqual(ok.body.record.body);
+    expect(again.body.record.bodyHtml).toBe(ok.body.record.bodyHtml);
+  });
+
   it('CSV is told from the bytes and downloads as an attachment; the bytes come back unchanged', async () => {
     const r = await create();
     const csv = new TextEncoder().encode('time_s,current_A\n0,10\n1,12.5\n');

@@ -84,6 +84,62 @@ describe('processBody: validate, sanitise, render', () => {
     );
   });
 
+  describe('images: only an attachment of the app, with a plain description', () => {
+    const image = (attrs: object) => ({ type: 'doc', content: [{ type: 'image', attrs }] });
+    it('keeps an image of an attachment address, with only src, alt and title, rendered lazily', () => {
+      const out = processBody(
+        image({ src: '/api/attachments/abcdefgh23456789', alt: 'Chine "close-up" <b>', width: 900, style: 'x', class: 'y' }),
+      );
+      expect(out.doc.content).toEqual([
+        { type: 'image', attrs: { src: '/api/attachments/abcdefgh23456789', alt: 'Chine "close-up" <b>', title: null } },
+      ]);
+      expect(out.html).toBe('<img loading="lazy" src="/api/attachments/abcdefgh23456789" alt="Chine &quot;close-up&quot; <b>">');
+    });
+
+    it.each([
+      ['an external address', 'https://example.org/a.png'],
+      ['a protocol-relative address', '//example.org/api/attachments/abcdefgh23456789'],
+      ['a data: URL', 'data:image/png;base64,iVBORw0KGgo='],
+      ['a javascript: URL', 'javascript:alert(1)'],
+      ['an obfuscated javascript: URL', 'java\nscript:alert(1)'],
+      ['a path that climbs out', '/api/attachments/../../admin'],
+      ['another path on the site', '/records/abcdefgh23456789'],
+      ['a query on an attachment', '/api/attachments/abcdefgh23456789?x=1'],
+      ['no address', undefined],
+    ])('refuses an image with %s (400 on path body); repairing a stored one drops it', (_name, src) => {
+      const doc = image({ src, alt: 'x' });
+      try {
+        processBody(doc);
+        expect.unreachable();
+      } catch (e) {
+        expect((e as HttpError).status).toBe(400);
+        expect((e as HttpError).issues[0].path).toBe('body');
+      }
+      expect(processBody(doc, { repair: true }).html).not.toContain('<img');
+    });
+
+    it('refuses a description that is too long or holds control characters', () => {
+      const src = '/api/attachments/abcdefgh23456789';
+      expect(() => processBody(image({ src, alt: 'a'.repeat(501) }))).toThrow(HttpError);
+      expect(() => processBody(image({ src, alt: 'a\u0000b' }))).toThrow(HttpError);
+      expect(processBody(image({ src, alt: 'a'.repeat(500) })).html).toContain('<img');
+    });
+
+    it('puts the description nowhere in the plain text and renders no image inside a paragraph', () => {
+      const out = processBody({
+        type: 'doc',
+        content: [
+          { type: 'paragraph', content: [{ type: 'text', text: 'Before' }] },
+          { type: 'image', attrs: { src: '/api/attachments/abcdefgh23456789', alt: 'seal' } },
+        ],
+      });
+      expect(out.text).toBe('Before');
+      expect(() =>
+        processBody(para([{ type: 'image', attrs: { src: '/api/attachments/abcdefgh23456789' } }])),
+      ).toThrow(HttpError);
+    });
+  });
+
   it('refuses a document nested thousands of levels deep with a 400, not a stack overflow', () => {
     let deep: Record<string, unknown> = { type: 'paragraph' };
     for (let i = 0; i < 20_000; i++) deep = { type: 'blockquote', content: [deep] };

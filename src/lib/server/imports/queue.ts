@@ -256,7 +256,7 @@ async function convertItem(
   if (imp.kind === 'lesson') delete input.status;
   // Given up meanwhile (the file is already marked failed): write nothing.
   if (clock.timedOut) return { state: 'failed', message: null, recordId: null };
-  const record = createRecord(input, actor);
+  const record = createRecord(input, actor, { imageAttachmentIds: kept.map((k) => k.id) });
   const now = new Date();
   const base = baseName(item.fileName);
   db().transaction((tx) => {

@@ -1,12 +1,21 @@
 import { and, eq, inArray, isNull } from 'drizzle-orm';
 import { db } from '../db/client';
-import { onboardingItems, recordCalculations, recordLinks, recordRevisions, records } from '../db/schema';
+import {
+  attachments,
+  onboardingItems,
+  recordCalculations,
+  recordLinks,
+  recordRevisions,
+  records,
+} from '../db/schema';
 import { HttpError, conflict, invalidInput, notFound } from '../http';
 import { newId } from '../ids';
 import { recordAudit } from '../audit';
 import { currentSeason, findSeason, findSubsystem } from '../seasons';
 import { existingCalculationIds } from '../calculations';
 import { processBody } from './body';
+import { attachmentIdOf } from '../../editor/links';
+import type { JSONContent } from '@tiptap/core';
 import { getRecordView, type RecordView } from './view';
 import { actionForMove, canMove, INITIAL_STATUS, isValidStatus, needsReplacement } from '../../record-rules';
 import type { RecordStatus, Role } from '../../domain';
@@ -24,6 +33,21 @@ function forbidden(message = 'Your role may not do this.') {
 function checkIds(ids: string[], existing: Set<string>, path: string) {
   const missing = ids.filter((i) => !existing.has(i));
   if (missing.length) throw invalidInput(missing.map((m) => ({ path, message: `No such item: ${m}.` })));
+}
+
+/** The attachment ids the images in a (validated) document show. */
+function imageAttachmentIds(n: JSONContent): string[] {
+  const own = n.type === 'image' ? [attachmentIdOf(n.attrs?.src)].filter((i): i is string => i !== null) : [];
+  return [...own, ...(n.content ?? []).flatMap(imageAttachmentIds)];
+}
+
+/** An image in a record's text shows one of that record's own attachments, never another record's. */
+function checkImages(doc: JSONContent, allowed: (ids: string[]) => Set<string>) {
+  const ids = [...new Set(imageAttachmentIds(doc))];
+  if (ids.length === 0) return;
+  const own = allowed(ids);
+  if (ids.some((i) => !own.has(i)))
+    throw invalidInput([{ path: 'body', message: 'An image in the text shows a file that is not attached to this record.' }]);
 }
 
 function existingRecordIds(ids: string[]): Set<string> {
@@ -78,7 +102,15 @@ export function insertRevision(
     .run();
 }
 
-export function createRecord(input: RecordCreateInput, actor: Actor): RecordView {
+/**
+ * `imageAttachmentIds`: the attachments the caller adds to the new record with it (an import's pictures), which its
+ * text may show; a record created any other way has none yet, so its text shows no image.
+ */
+export function createRecord(
+  input: RecordCreateInput,
+  actor: Actor,
+  options: { imageAttachmentIds?: string[] } = {},
+): RecordView {
   if (!findSubsystem(input.subsystem)) throw invalidInput([{ path: 'subsystem', message: 'No such subsystem.' }]);
   const season = input.seasonId ? findSeason(input.seasonId) : currentSeason();
   if (!season)
@@ -96,6 +128,8 @@ export function createRecord(input: RecordCreateInput, actor: Actor): RecordView
   checkIds(input.calculationIds, existingCalculationIds(input.calculationIds), 'calculationIds');
   checkIds(input.relatedRecordIds, existingRecordIds(input.relatedRecordIds), 'relatedRecordIds');
   const body = processBody(input.body);
+  // A new record holds no attachments yet, except those its import adds with it.
+  checkImages(body.doc, (ids) => new Set(ids.filter((i) => options.imageAttachmentIds?.includes(i))));
   const id = newId();
   const now = new Date();
   db().transaction((tx) => {
@@ -175,6 +209,15 @@ export function updateRecord(id: string, patch: RecordPatchInput, actor: Actor):
   if (patch.relatedRecordIds)
     checkIds(patch.relatedRecordIds, existingRecordIds(patch.relatedRecordIds), 'relatedRecordIds');
   const body = patch.body ? processBody(patch.body) : null;
+  if (body)
+    checkImages(body.doc, (ids) => {
+      const rows = db()
+        .select({ id: attachments.id })
+        .from(attachments)
+        .where(and(eq(attachments.recordId, id), inArray(attachments.id, ids)))
+        .all();
+      return new Set(rows.map((r) => r.id));
+    });
   const now = new Date();
   const next = current.version + 1;
   const title = patch.title ?? current.title;
