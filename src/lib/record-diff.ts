@@ -93,6 +93,12 @@ export function blocksOf(doc: unknown): Block[] {
         case 'horizontalRule':
           out.push({ kind: 'rule', lists, quote, runs: [] });
           break;
+        case 'image': {
+          // A picture compares by its description, so adding, removing or describing one shows as a change.
+          const alt = typeof child.attrs?.alt === 'string' && child.attrs.alt ? child.attrs.alt : 'no description';
+          out.push({ kind: 'paragraph', lists, quote, runs: [{ text: `[Image: ${alt}]`, marks: [] }] });
+          break;
+        }
         case 'bulletList':
         case 'orderedList':
         case 'taskList':

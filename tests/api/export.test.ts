@@ -12,6 +12,7 @@ import * as exportRoute from '../../src/pages/api/export';
 import * as backupRoute from '../../src/pages/api/backup';
 import * as audit from '../../src/pages/api/audit';
 import * as uploadRoute from '../../src/pages/api/records/[id]/attachments';
+import * as recordRoute from '../../src/pages/api/records/[id]/index';
 import { db } from '../../src/lib/server/db/client';
 import { attachments, calculations, records, users } from '../../src/lib/server/db/schema';
 import { openStored } from '../../src/lib/server/storage';
@@ -185,6 +186,39 @@ describe('attachment names in the bundle', () => {
     const md = names.find((k) => k.endsWith('.md') && k.includes(record.id) && k.includes('/records/'))!;
     const text = (await unzip(res.bytes)).get(md)!.toString('utf8');
     expect(text).toContain('log.html.csv');
+  });
+});
+
+describe('images in a record’s text in the bundle', () => {
+  it('write Markdown that shows the attachment file in the record’s folder, with the description', async () => {
+    const record = db().select().from(records).where(isNull(records.deletedAt)).all().at(-1)!;
+    const f = new FormData();
+    const png = readFileSync('content/demo/attachments/thrust-vs-rpm-2026-03.png');
+    f.set('file', new File([new Uint8Array(png)], 'thrust plot.png', { type: 'image/png' }));
+    const up = await call(uploadRoute, 'POST', { session: s.lead, params: { id: record.id }, rawBody: f });
+    expect(up.status).toBe(201);
+    const body = {
+      type: 'doc',
+      content: [
+        { type: 'paragraph', content: [{ type: 'text', text: 'Thrust against rpm:' }] },
+        { type: 'image', attrs: { src: `/api/attachments/${up.body.attachment.id}`, alt: 'Thrust plot' } },
+      ],
+    };
+    const saved = await call(recordRoute, 'PATCH', {
+      session: s.lead,
+      params: { id: record.id },
+      body: { version: record.version, body },
+    });
+    expect(saved.status).toBe(200);
+    const res = await call(exportRoute, 'GET', { session: s.lead });
+    const zip = await unzip(res.bytes);
+    const names = [...zip.keys()];
+    const md = names.find((k) => k.endsWith('.md') && k.includes(record.id) && k.includes('/records/'))!;
+    const text = zip.get(md)!.toString('utf8');
+    const m = /!\[Thrust plot\]\(\.\.\/(attachments\/[^)]+\/thrust%20plot\.png)\)/.exec(text);
+    expect(m).not.toBeNull();
+    const root = md.slice(0, md.indexOf('/records/'));
+    expect(names).toContain(`${root}/${decodeURI(m![1])}`);
   });
 });
 

@@ -15,6 +15,17 @@ const p = (...content: object[]) => ({ type: 'paragraph', content });
 const doc = (...content: object[]) => ({ type: 'doc', content });
 
 describe('docToMarkdown', () => {
+  it('writes an image as Markdown with its description, its address rewritten into the bundle', () => {
+    const image = { type: 'image', attrs: { src: '/api/attachments/abcdefgh23456789', alt: 'Seal [wet] photo' } };
+    const md = docToMarkdown(doc(p(text('Before')), image), {
+      src: (s) => (s === '/api/attachments/abcdefgh23456789' ? '../attachments/seal/photo 1.png' : s),
+    });
+    expect(md).toBe('Before\n\n![Seal \\[wet\\] photo](../attachments/seal/photo%201.png)\n');
+    expect(docToMarkdown(doc({ type: 'image', attrs: { src: '/api/attachments/x1234567' } }))).toBe(
+      '![](/api/attachments/x1234567)\n',
+    );
+  });
+
   it('writes headings, marks, links and breaks', () => {
     const md = docToMarkdown(
       doc(

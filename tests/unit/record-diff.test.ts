@@ -20,6 +20,17 @@ const doc = (...content: DocNode[]) => ({ type: 'doc', content });
 const ops = (pieces: Piece[]) => pieces.map((x) => `${x.op}:${x.text}`);
 
 describe('blocksOf', () => {
+  it('reads an image as a block of its description, so adding or describing one is a change', () => {
+    const img = (alt?: string): DocNode => ({ type: 'image', attrs: { src: '/api/attachments/abcdefgh23456789', alt } });
+    expect(blocksOf(doc(p('A'), img('Seal'), img())).map((b) => b.runs.map((r) => r.text).join(''))).toEqual([
+      'A',
+      '[Image: Seal]',
+      '[Image: no description]',
+    ]);
+    const d = diffDocs(doc(p('A')), doc(p('A'), img('Seal')));
+    expect(d.blocks.map((b) => b.op)).toEqual(['same', 'added']);
+  });
+
   it('flattens headings, paragraphs, nested lists, task items and quotes in reading order', () => {
     const blocks = blocksOf(
       doc(

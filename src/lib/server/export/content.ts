@@ -8,6 +8,7 @@ import { listComments } from '../questions';
 import { getCalculation } from '../calculations';
 import { listPeople } from '../people';
 import { docToMarkdown, escapeText as md } from './markdown';
+import { attachmentIdOf } from '../../editor/links';
 import { nameForType, recordBase, safeFileName, slugify } from './names';
 
 export interface RecordEntry {
@@ -124,6 +125,13 @@ export function recordMarkdown(id: string, paths: Map<string, string>, calcPaths
     const target = m ? (m[1] === 'records' ? paths : calcPaths).get(m[2]) : undefined;
     return target ? `../${target}` : h;
   };
+  const names = attachmentNames(r.attachments);
+  // Images in the text show the record's own attachment files, which sit in its folder of the bundle.
+  const src = (s: string) => {
+    const id = attachmentIdOf(s);
+    const name = id ? names.get(id) : undefined;
+    return name ? `../${attachmentFolder(r)}/${encodeURI(name)}` : s;
+  };
   const lines: string[] = [
     '---',
     stringify(front).trimEnd(),
@@ -131,7 +139,7 @@ export function recordMarkdown(id: string, paths: Map<string, string>, calcPaths
     '',
     `# ${md(r.title)}`,
     '',
-    docToMarkdown(r.body, { href }).trimEnd(),
+    docToMarkdown(r.body, { href, src }).trimEnd(),
   ];
   const links: string[] = [];
   for (const x of r.supersedes) links.push(`- Supersedes: ${relLink(paths, x)} (${x.season})`);
@@ -143,7 +151,6 @@ export function recordMarkdown(id: string, paths: Map<string, string>, calcPaths
   }
   if (links.length) lines.push('', '## Links', '', ...links);
   if (r.attachments.length) {
-    const names = attachmentNames(r.attachments);
     lines.push('', '## Attachments', '');
     for (const a of r.attachments) {
       const name = names.get(a.id)!;

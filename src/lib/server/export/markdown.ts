@@ -7,6 +7,8 @@ type Mark = NonNullable<JSONContent['marks']>[number];
 export interface MarkdownOptions {
   /** Rewrites link targets, e.g. the app's "/records/{id}" into a path inside the bundle. */
   href?: (href: string) => string;
+  /** Rewrites an image's address, e.g. the app's "/api/attachments/{id}" into the attachment's file in the bundle. */
+  src?: (src: string) => string;
 }
 
 // Set for the duration of one synchronous docToMarkdown call.
@@ -53,6 +55,12 @@ function block(n: JSONContent, prefix: string): string | null {
     }
     case 'horizontalRule':
       return prefix + '---';
+    case 'image': {
+      const given = typeof n.attrs?.src === 'string' ? n.attrs.src : '';
+      const src = options.src ? options.src(given) : given;
+      const alt = typeof n.attrs?.alt === 'string' ? n.attrs.alt : '';
+      return prefix + `![${escapeText(alt.replace(/\s+/g, ' '))}](${src.replace(/[()\s]/g, encodeURIComponent)})`;
+    }
     case 'bulletList':
     case 'orderedList':
     case 'taskList':
