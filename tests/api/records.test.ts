@@ -453,10 +453,17 @@ describe('attachments', () => {
     });
     const own = `/api/attachments/${up.body.attachment.id}`;
     // A new record holds no attachment yet, so its text cannot show one.
-    const created = await call(recordsRoute, 'POST', { session: s.member, body: newDecision({ body: withImage(own) }) });
+    const created = await call(recordsRoute, 'POST', {
+      session: s.member,
+      body: newDecision({ body: withImage(own) }),
+    });
     expect(created.status).toBe(400);
     expect(created.body.error.issues[0].path).toBe('body');
-    for (const src of [`/api/attachments/${theirs.body.attachment.id}`, 'https://example.org/a.png', 'data:image/png;base64,AA==']) {
+    for (const src of [
+      `/api/attachments/${theirs.body.attachment.id}`,
+      'https://example.org/a.png',
+      'data:image/png;base64,AA==',
+    ]) {
       const bad = await call(recordRoute, 'PATCH', {
         session: s.member,
         params: { id: r.id },
@@ -471,7 +478,9 @@ describe('attachments', () => {
       body: { version: 1, body: withImage(own) },
     });
     expect(ok.status).toBe(200);
-    expect(ok.body.record.bodyHtml).toBe(`<p>Thrust against rpm:</p><img loading="lazy" src="${own}" alt="Thrust plot">`);
+    expect(ok.body.record.bodyHtml).toBe(
+      `<p>Thrust against rpm:</p><img loading="lazy" src="${own}" alt="Thrust plot">`,
+    );
     // Saving what came back (as the editor does) keeps the image.
     const again = await call(recordRoute, 'PATCH', {
       session: s.member,

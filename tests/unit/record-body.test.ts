@@ -88,12 +88,23 @@ describe('processBody: validate, sanitise, render', () => {
     const image = (attrs: object) => ({ type: 'doc', content: [{ type: 'image', attrs }] });
     it('keeps an image of an attachment address, with only src, alt and title, rendered lazily', () => {
       const out = processBody(
-        image({ src: '/api/attachments/abcdefgh23456789', alt: 'Chine "close-up" <b>', width: 900, style: 'x', class: 'y' }),
+        image({
+          src: '/api/attachments/abcdefgh23456789',
+          alt: 'Chine "close-up" <b>',
+          width: 900,
+          style: 'x',
+          class: 'y',
+        }),
       );
       expect(out.doc.content).toEqual([
-        { type: 'image', attrs: { src: '/api/attachments/abcdefgh23456789', alt: 'Chine "close-up" <b>', title: null } },
+        {
+          type: 'image',
+          attrs: { src: '/api/attachments/abcdefgh23456789', alt: 'Chine "close-up" <b>', title: null },
+        },
       ]);
-      expect(out.html).toBe('<img loading="lazy" src="/api/attachments/abcdefgh23456789" alt="Chine &quot;close-up&quot; <b>">');
+      expect(out.html).toBe(
+        '<img loading="lazy" src="/api/attachments/abcdefgh23456789" alt="Chine &quot;close-up&quot; <b>">',
+      );
     });
 
     it.each([
@@ -134,9 +145,9 @@ describe('processBody: validate, sanitise, render', () => {
         ],
       });
       expect(out.text).toBe('Before');
-      expect(() =>
-        processBody(para([{ type: 'image', attrs: { src: '/api/attachments/abcdefgh23456789' } }])),
-      ).toThrow(HttpError);
+      expect(() => processBody(para([{ type: 'image', attrs: { src: '/api/attachments/abcdefgh23456789' } }]))).toThrow(
+        HttpError,
+      );
     });
   });
 

@@ -21,7 +21,10 @@ const ops = (pieces: Piece[]) => pieces.map((x) => `${x.op}:${x.text}`);
 
 describe('blocksOf', () => {
   it('reads an image as a block of its description, so adding or describing one is a change', () => {
-    const img = (alt?: string): DocNode => ({ type: 'image', attrs: { src: '/api/attachments/abcdefgh23456789', alt } });
+    const img = (alt?: string): DocNode => ({
+      type: 'image',
+      attrs: { src: '/api/attachments/abcdefgh23456789', alt },
+    });
     expect(blocksOf(doc(p('A'), img('Seal'), img())).map((b) => b.runs.map((r) => r.text).join(''))).toEqual([
       'A',
       '[Image: Seal]',

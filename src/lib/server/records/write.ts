@@ -1,13 +1,6 @@
 import { and, eq, inArray, isNull } from 'drizzle-orm';
 import { db } from '../db/client';
-import {
-  attachments,
-  onboardingItems,
-  recordCalculations,
-  recordLinks,
-  recordRevisions,
-  records,
-} from '../db/schema';
+import { attachments, onboardingItems, recordCalculations, recordLinks, recordRevisions, records } from '../db/schema';
 import { HttpError, conflict, invalidInput, notFound } from '../http';
 import { newId } from '../ids';
 import { recordAudit } from '../audit';
@@ -47,7 +40,9 @@ function checkImages(doc: JSONContent, allowed: (ids: string[]) => Set<string>) 
   if (ids.length === 0) return;
   const own = allowed(ids);
   if (ids.some((i) => !own.has(i)))
-    throw invalidInput([{ path: 'body', message: 'An image in the text shows a file that is not attached to this record.' }]);
+    throw invalidInput([
+      { path: 'body', message: 'An image in the text shows a file that is not attached to this record.' },
+    ]);
 }
 
 function existingRecordIds(ids: string[]): Set<string> {
