@@ -80,6 +80,7 @@ const hostileHtml =
   '<script>document.cookie="x"</script><img src="x" onerror="alert(4)">' +
   `<img src="data:image/png;base64,${png.toString('base64')}" alt="seal photo">` +
   '<img src="https://example.org/pixel.png" alt="maker pixel"><img src="javascript:alert(5)" alt="bad">' +
+  `<p><img src="data:image/png;base64,${Buffer.from('not a picture at all').toString('base64')}" alt="fake"></p>` +
   '<iframe src="https://example.org"></iframe><ul><li>Check weekly</li></ul></body></html>';
 /** Every image node in a stored document, with its attributes that are set. */
 function imagesOf(n: { type?: string; attrs?: Record<string, unknown>; content?: unknown[] }): unknown[] {
@@ -267,6 +268,9 @@ describe('a fixture folder imported', () => {
     expect(r.bodyHtml).toContain(`</p><img loading="lazy" src="/api/attachments/${image.id}" alt="seal photo"><p>`);
     expect(r.bodyHtml).not.toMatch(/<img[^>]+src="(?!\/api\/attachments\/)/);
     expect(r.bodyHtml).not.toContain('data:');
+    // A "picture" whose bytes are not one is not kept: its place holds its words, no image of a missing file.
+    expect(r.bodyHtml).toContain('<p>[image: fake]</p>');
+    expect(r.attachments.filter((a: { isImage: boolean }) => a.isImage)).toHaveLength(1);
     expect(r.bodyHtml).toContain('href="https://example.org/pixel.png">Image: maker pixel</a>[image: bad]');
     // The page's meta date (February 2024) falls in 2023–24.
     expect(r.seasonId).toBe(seasonNamed('2023–24').id);
