@@ -4,6 +4,7 @@ import { apiFetch, ApiError, fetcher } from '~/lib/client/api';
 import { fileSize } from '~/lib/import-files';
 import type { ImportReview as Review, ImportReviewRow } from '~/lib/schemas/import-review';
 import type { ImportItemState, ImportState } from '~/lib/domain';
+import SelectField from '../ui/SelectField';
 
 interface Option {
   value: string;
@@ -282,45 +283,15 @@ function ReviewList({
   );
 }
 
-function BulkSelect({
-  label,
-  value,
-  onChange,
-  options,
-  error,
-}: {
+/** A bulk-change field: its first choice leaves the selected drafts as they are. */
+function BulkSelect(props: {
   label: string;
   value: string;
   onChange: (v: string) => void;
   options: Option[];
   error?: string;
 }) {
-  const id = useId();
-  return (
-    <div className="field">
-      <label htmlFor={id}>{label}</label>
-      <select
-        id={id}
-        className="input"
-        value={value}
-        onChange={(e) => onChange(e.target.value)}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={error ? `${id}-error` : undefined}
-      >
-        <option value="">Keep as it is</option>
-        {options.map((o) => (
-          <option key={o.value} value={o.value}>
-            {o.label}
-          </option>
-        ))}
-      </select>
-      {error && (
-        <p id={`${id}-error`} className="field-error">
-          {error}
-        </p>
-      )}
-    </div>
-  );
+  return <SelectField id={useId()} empty="Keep as it is" {...props} />;
 }
 
 const STATE_WORDS: Record<ImportItemState, string> = {

@@ -1,3 +1,5 @@
+import SelectField from './SelectField';
+
 /** The subsystem a record or calculation is filed under: a labelled select with its field error (one copy for all). */
 export default function SubsystemSelect({
   id,
@@ -13,27 +15,13 @@ export default function SubsystemSelect({
   error?: string;
 }) {
   return (
-    <div className="field">
-      <label htmlFor={id}>Subsystem</label>
-      <select
-        id={id}
-        className="input"
-        value={value}
-        onChange={(e) => onChange(e.target.value)}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={error ? `${id}-error` : undefined}
-      >
-        {subsystems.map((s) => (
-          <option key={s.slug} value={s.slug}>
-            {s.name}
-          </option>
-        ))}
-      </select>
-      {error && (
-        <p id={`${id}-error`} className="field-error">
-          {error}
-        </p>
-      )}
-    </div>
+    <SelectField
+      id={id}
+      label="Subsystem"
+      value={value}
+      onChange={onChange}
+      options={subsystems.map((s) => ({ value: s.slug, label: s.name }))}
+      error={error}
+    />
   );
 }
