@@ -29,7 +29,7 @@ const extraHosts = (process.env.ALLOWED_HOSTS ?? '')
 
 export default defineConfig({
   output: 'server',
-  adapter: node({ mode: 'middleware' }),
+  adapter: node({ mode: 'middleware', experimentalDisableStreaming: true }),
   // Formulas in guides ($…$ inline, $$…$$ on their own lines) become KaTeX HTML at build time: no client JS.
   integrations: [
     react(),
