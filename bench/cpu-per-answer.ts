@@ -8,7 +8,7 @@ import { mkdtempSync } from 'node:fs';
 import { loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { cpuMs } from './load';
-import { signInCookie } from './server';
+import { signInCookie, startFlags } from './server';
 
 const args = process.argv.slice(2);
 const opt = (name: string, fallback: string) => {
@@ -32,7 +32,7 @@ const urls = opt(
 ).split(',');
 
 const dir = mkdtempSync(join(tmpdir(), 'wakebook-cpu-'));
-const child = spawn(process.execPath, [start], {
+const child = spawn(process.execPath, [...startFlags(), start], {
   env: {
     ...process.env,
     HOST: '127.0.0.1',

@@ -12,6 +12,16 @@ export interface RunningServer {
   rssMb(): number;
 }
 
+/**
+ * The V8 flags that `npm start` gives node (package.json's start script, e.g. `--max-old-space-size=512`): the
+ * benchmarks measure the server as it is started in production, not a bare `node scripts/start.mjs`.
+ */
+export function startFlags(): string[] {
+  const pkg = JSON.parse(readFileSync('package.json', 'utf8')) as { scripts: { start: string } };
+  const words = pkg.scripts.start.split(/\s+/);
+  return words.slice(words.indexOf('node') + 1, words.indexOf('scripts/start.mjs')).filter((w) => w.startsWith('--'));
+}
+
 export async function startBuiltServer(
   port: number,
   env: Record<string, string> = {},
@@ -20,7 +30,7 @@ export async function startBuiltServer(
   if (!existsSync('dist/prepare/prepare.mjs')) throw new Error('Build first: npm run build');
   const dir = reuseDir ?? mkdtempSync(join(tmpdir(), 'wakebook-bench-'));
   const t0 = performance.now();
-  const child = spawn(process.execPath, ['scripts/start.mjs'], {
+  const child = spawn(process.execPath, [...startFlags(), 'scripts/start.mjs'], {
     env: {
       ...process.env,
       HOST: '127.0.0.1',

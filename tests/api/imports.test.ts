@@ -15,6 +15,7 @@ import * as download from '../../src/pages/api/attachments/[id]';
 import * as seasonsRoute from '../../src/pages/api/seasons/index';
 import * as audit from '../../src/pages/api/audit';
 import { importsSettled, resumeImports } from '../../src/lib/server/imports/queue';
+import { TEXT_LIMITS } from '../../src/lib/server/imports/convert';
 import { db } from '../../src/lib/server/db/client';
 import { importItems, imports, users } from '../../src/lib/server/db/schema';
 import { storeBytes } from '../../src/lib/server/storage';
@@ -509,6 +510,40 @@ describe('limits', () => {
     const zip = await makeZip(['a', 'b', 'c', 'd'].map((n) => [`${n}.md`, `# note ${n}`] as FileSpec));
     const zipped = await importFiles('member', [['four.zip', zip]]);
     expect(zipped.status).toBe(413);
+  });
+
+  it('a text longer than a record can hold is refused before it is parsed (parsing takes tens of times its size)', async () => {
+    const word = (i: number) => (i * 2654435761).toString(36).slice(-6);
+    const paragraph = (n: number) => Array.from({ length: 40 }, (_, i) => word(n * 40 + i)).join(' ');
+    // A Word file whose document part unzips to just over 8 MB (varied words: not compressible enough to be a bomb).
+    const longWord = await makeDocx({
+      heading: 'Long',
+      paragraphs: Array.from({ length: 23_000 }, (_, n) => paragraph(n)),
+    });
+    const html = `<html><body><p>${paragraph(1)}</p>${' '.repeat(TEXT_LIMITS.html)}</body></html>`;
+    const text = 'x'.repeat(TEXT_LIMITS.text + 1);
+    const { done } = await importAndWait('member', [
+      ['long.docx', longWord],
+      ['long.html', html],
+      ['long.md', text],
+      ['long.txt', text],
+      ['short.md', '# Short enough'],
+    ]);
+    const byName = new Map(done.items.map((i: { fileName: string }) => [i.fileName, i]));
+    expect(byName.get('long.docx')).toMatchObject({ state: 'failed' });
+    expect(byName.get('long.docx').message).toMatch(
+      /^long\.docx was not imported: it is too long for one record: 9 MB of document text, over the limit of 8 MB/,
+    );
+    expect(byName.get('long.html').message).toMatch(
+      /^long\.html was not imported: it is too long for one record: 5 MB of web page, over the limit of 4 MB/,
+    );
+    expect(byName.get('long.md').message).toMatch(
+      /^long\.md was not imported: it is too long for one record: 3 MB of Markdown, over the limit of 2 MB/,
+    );
+    expect(byName.get('long.txt').message).toMatch(
+      /^long\.txt was not imported: it is too long for one record: 3 MB of text, over the limit of 2 MB/,
+    );
+    expect(byName.get('short.md')).toMatchObject({ state: 'done' });
   });
 
   it('a file inside a zip over the size limit fails alone', async () => {

@@ -42,6 +42,28 @@ const WINDOW_SETTINGS = {
   disableIframePageLoading: true,
   disableComputedStyleRendering: true,
 };
+/**
+ * How much text a converter is given at most. Parsing takes memory tens of times the size of what it parses (a
+ * 42 MB document part took over 2 GB of heap), and a record holds at most MAX_BODY_CHARS (400k characters of
+ * document) in any case: a longer file is refused before it is parsed, so no upload can exhaust the server's heap.
+ * Each limit sits well above what a 400k-character record takes in that format (Word repeats its formatting per
+ * run of text; a web page saved from an office program carries styles).
+ */
+export const TEXT_LIMITS = {
+  /** The unzipped `word/document.xml` of a .docx. */
+  docx: 8 * 1024 * 1024,
+  html: 4 * 1024 * 1024,
+  /** Markdown and plain text. */
+  text: 2 * 1024 * 1024,
+};
+
+function tooLong(bytes: number, limit: number, what: string): ImportProblem {
+  return new ImportProblem(
+    `it is too long for one record: ${Math.ceil(bytes / 1024 / 1024)} MB of ${what}, over the limit of ` +
+      `${limit / 1024 / 1024} MB (a record holds about 400k characters). Split it, or attach it to a record instead.`,
+  );
+}
+
 /** A Word file is a zip too: the same checks keep its parts from unzipping into gigabytes. */
 const DOCX_LIMITS = { maxEntries: 2000, maxTotalBytes: 200 * 1024 * 1024, maxRatio: MAX_RATIO };
 
@@ -237,9 +259,9 @@ async function readDocxCore(bytes: Buffer): Promise<{ title: string | null; date
     throw new ImportProblem('it is not a Word (.docx) file: it could not be opened as one.');
   }
   try {
-    const names = new Set(zip.entries.map((e) => e.name));
-    if (!names.has('word/document.xml'))
-      throw new ImportProblem('it is not a Word (.docx) file: it has no document part.');
+    const main = zip.entries.find((e) => e.name === 'word/document.xml');
+    if (!main) throw new ImportProblem('it is not a Word (.docx) file: it has no document part.');
+    if (main.size > TEXT_LIMITS.docx) throw tooLong(main.size, TEXT_LIMITS.docx, 'document text');
     const core = zip.entries.find((e) => e.name === 'docProps/core.xml');
     if (!core || core.size > 256 * 1024) return { title: null, date: null };
     const xml = (await zip.read(core)).toString('utf8');
@@ -327,6 +349,7 @@ export async function convertFile(bytes: Buffer, fileName: string, link: ImageLi
     }
     case 'md':
     case 'markdown': {
+      if (bytes.length > TEXT_LIMITS.text) throw tooLong(bytes.length, TEXT_LIMITS.text, 'Markdown');
       const text = decodeText(bytes).replace(/^\uFEFF/, '');
       const images: ImageFound[] = [];
       const html = await marked.parse(text, { gfm: true });
@@ -335,12 +358,14 @@ export async function convertFile(bytes: Buffer, fileName: string, link: ImageLi
     }
     case 'html':
     case 'htm': {
+      if (bytes.length > TEXT_LIMITS.html) throw tooLong(bytes.length, TEXT_LIMITS.html, 'web page');
       const text = decodeText(bytes).replace(/^\uFEFF/, '');
       const images: ImageFound[] = [];
       const { title, doc, meta } = htmlToDocument(text, { title: null, link, images });
       return { title, doc, date: metaDate(meta), images };
     }
     case 'txt': {
+      if (bytes.length > TEXT_LIMITS.text) throw tooLong(bytes.length, TEXT_LIMITS.text, 'text');
       const text = decodeText(bytes).replace(/^\uFEFF/, '');
       const { doc } = htmlToDocument(textToHtml(text, true), { title: null, link, images: [] });
       return { title: null, doc, date: null, images: [] };
