@@ -529,18 +529,20 @@ describe('limits', () => {
       ['long.txt', text],
       ['short.md', '# Short enough'],
     ]);
-    const byName = new Map(done.items.map((i: { fileName: string }) => [i.fileName, i]));
+    type Item = { fileName: string; state: string; message: string };
+    const byName = new Map((done.items as Item[]).map((i) => [i.fileName, i]));
+    const message = (name: string) => byName.get(name)?.message;
     expect(byName.get('long.docx')).toMatchObject({ state: 'failed' });
-    expect(byName.get('long.docx').message).toMatch(
+    expect(message('long.docx')).toMatch(
       /^long\.docx was not imported: it is too long for one record: 9 MB of document text, over the limit of 8 MB/,
     );
-    expect(byName.get('long.html').message).toMatch(
+    expect(message('long.html')).toMatch(
       /^long\.html was not imported: it is too long for one record: 5 MB of web page, over the limit of 4 MB/,
     );
-    expect(byName.get('long.md').message).toMatch(
+    expect(message('long.md')).toMatch(
       /^long\.md was not imported: it is too long for one record: 3 MB of Markdown, over the limit of 2 MB/,
     );
-    expect(byName.get('long.txt').message).toMatch(
+    expect(message('long.txt')).toMatch(
       /^long\.txt was not imported: it is too long for one record: 3 MB of text, over the limit of 2 MB/,
     );
     expect(byName.get('short.md')).toMatchObject({ state: 'done' });

@@ -80,38 +80,33 @@ export function attachmentView(a: typeof attachments.$inferSelect): AttachmentVi
   };
 }
 
-/**
- * The records that ids name, in one statement prepared once: the ids travel as one JSON array parameter, so a
- * different number of links does not build and prepare new SQL on every read.
- */
-function refs(ids: string[]): Map<string, RecordRef> {
-  if (ids.length === 0) return new Map();
-  const rows = prepared('record.refs', (d) =>
-    d
-      .select({
-        id: records.id,
-        title: records.title,
-        kind: records.kind,
-        status: records.status,
-        season: seasons.name,
-      })
-      .from(records)
-      .innerJoin(seasons, eq(seasons.id, records.seasonId))
-      .where(
-        and(sql`${records.id} in (select value from json_each(${sql.placeholder('ids')}))`, isNull(records.deletedAt)),
-      )
-      .prepare(),
-  ).all({ ids: JSON.stringify(ids) });
-  return new Map(rows.map((r) => [r.id, { ...r, url: `/records/${r.id}` }]));
-}
-
 const byId = sql.placeholder('id');
 
+/**
+ * The record's own row with the names it shows, selected column by column: the stored plain text (search's copy)
+ * is never read here, and a flat row maps faster than a nested one. Prepared once, like every statement here.
+ */
 function recordRowQuery() {
   return prepared('record.row', (d) =>
     d
       .select({
-        r: records,
+        id: records.id,
+        kind: records.kind,
+        title: records.title,
+        status: records.status,
+        source: records.source,
+        subsystem: records.subsystemSlug,
+        seasonId: records.seasonId,
+        authorId: records.authorId,
+        updatedById: records.updatedById,
+        version: records.version,
+        body: records.body,
+        bodyHtml: records.bodyHtml,
+        createdAt: records.createdAt,
+        updatedAt: records.updatedAt,
+        reviewedAt: records.reviewedAt,
+        reviewedVersion: records.reviewedVersion,
+        reviewNote: records.reviewNote,
         subsystemName: subsystems.name,
         season: seasons.name,
         seasonIsCurrent: seasons.isCurrent,
@@ -130,20 +125,67 @@ function recordRowQuery() {
   );
 }
 
-export function getRecordView(id: string): RecordView | null {
-  const row = recordRowQuery().get({ id });
-  if (!row) return null;
-  const r = row.r;
-  const links = prepared('record.links', (d) =>
+const other = alias(records, 'other');
+
+/**
+ * Every link of the record in either direction together with the (not deleted) record at its other end, in one
+ * statement: `outgoing` says whether the link starts at this record.
+ */
+function linkedQuery() {
+  return prepared('record.linked', (d) =>
     d
-      .select()
+      .select({
+        kind: recordLinks.kind,
+        outgoing: sql<number>`${recordLinks.fromRecordId} = ${byId}`,
+        id: other.id,
+        title: other.title,
+        otherKind: other.kind,
+        status: other.status,
+        season: seasons.name,
+      })
       .from(recordLinks)
-      .where(or(eq(recordLinks.fromRecordId, byId), eq(recordLinks.toRecordId, byId)))
+      .innerJoin(
+        other,
+        eq(
+          other.id,
+          sql`case when ${recordLinks.fromRecordId} = ${byId} then ${recordLinks.toRecordId} else ${recordLinks.fromRecordId} end`,
+        ),
+      )
+      .innerJoin(seasons, eq(seasons.id, other.seasonId))
+      .where(
+        and(
+          or(eq(recordLinks.fromRecordId, byId), eq(recordLinks.toRecordId, byId)),
+          sql`${other.id} <> ${byId}`,
+          isNull(other.deletedAt),
+        ),
+      )
+      .orderBy(asc(other.id))
       .prepare(),
-  ).all({ id });
-  const linked = refs([...new Set(links.flatMap((l) => [l.fromRecordId, l.toRecordId]).filter((x) => x !== id))]);
-  const pick = (pred: (l: (typeof links)[number]) => boolean, other: (l: (typeof links)[number]) => string) =>
-    [...new Set(links.filter(pred).map(other))].map((x) => linked.get(x)).filter((x): x is RecordRef => !!x);
+  );
+}
+
+export function getRecordView(id: string): RecordView | null {
+  const r = recordRowQuery().get({ id });
+  if (!r) return null;
+  const related: RecordRef[] = [];
+  const supersedes: RecordRef[] = [];
+  const supersededBy: RecordRef[] = [];
+  const seen = new Set<string>();
+  for (const l of linkedQuery().all({ id })) {
+    const list =
+      l.kind === 'related' ? related : l.kind !== 'supersedes' ? null : l.outgoing ? supersedes : supersededBy;
+    const key = `${l.kind}.${l.kind === 'related' ? '' : l.outgoing}.${l.id}`;
+    if (!list || seen.has(key)) continue;
+    seen.add(key);
+    list.push({
+      id: l.id,
+      title: l.title,
+      kind: l.otherKind,
+      status: l.status,
+      season: l.season,
+      url: `/records/${l.id}`,
+    });
+  }
   const calcs = prepared('record.calcs', (d) =>
     d
       .select({ id: calculations.id, title: calculations.title, kind: calculations.kind })
@@ -166,22 +208,22 @@ export function getRecordView(id: string): RecordView | null {
     title: r.title,
     status: r.status,
     source: r.source,
-    subsystem: r.subsystemSlug,
-    subsystemName: row.subsystemName,
+    subsystem: r.subsystem,
+    subsystemName: r.subsystemName,
     seasonId: r.seasonId,
-    season: row.season,
-    seasonIsCurrent: row.seasonIsCurrent,
-    author: r.authorId && row.authorName ? { id: r.authorId, name: row.authorName } : null,
-    updatedBy: r.updatedById && row.editorName ? { id: r.updatedById, name: row.editorName } : null,
+    season: r.season,
+    seasonIsCurrent: r.seasonIsCurrent,
+    author: r.authorId && r.authorName ? { id: r.authorId, name: r.authorName } : null,
+    updatedBy: r.updatedById && r.editorName ? { id: r.updatedById, name: r.editorName } : null,
     version: r.version,
     body: r.body,
     bodyHtml: r.bodyHtml,
     createdAt: r.createdAt.toISOString(),
     updatedAt: r.updatedAt.toISOString(),
     reviewed:
-      r.reviewedAt && row.reviewerName
+      r.reviewedAt && r.reviewerName
         ? {
-            by: row.reviewerName,
+            by: r.reviewerName,
             at: r.reviewedAt.toISOString(),
             version: r.reviewedVersion ?? 0,
             note: r.reviewNote,
@@ -189,18 +231,9 @@ export function getRecordView(id: string): RecordView | null {
           }
         : null,
     calculations: calcs.map((c) => ({ ...c, url: `/calculations/${c.id}` })),
-    related: pick(
-      (l) => l.kind === 'related',
-      (l) => (l.fromRecordId === id ? l.toRecordId : l.fromRecordId),
-    ),
-    supersedes: pick(
-      (l) => l.kind === 'supersedes' && l.fromRecordId === id,
-      (l) => l.toRecordId,
-    ),
-    supersededBy: pick(
-      (l) => l.kind === 'supersedes' && l.toRecordId === id,
-      (l) => l.fromRecordId,
-    ),
+    related,
+    supersedes,
+    supersededBy,
     attachments: files.map(attachmentView),
     commentCount,
     url: `/records/${r.id}`,

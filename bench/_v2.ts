@@ -1,0 +1,21 @@
+import { db } from '../src/lib/server/db/client';
+import { getRecordView } from '../src/lib/server/records/view';
+const id = 'demo-rec-2526-two-propellers';
+const raw = db().$client;
+const time = (name: string, f: () => unknown, n = 5000) => {
+  for (let i = 0; i < 500; i++) f();
+  const t = performance.now();
+  for (let i = 0; i < n; i++) f();
+  console.log(name.padEnd(20), (((performance.now() - t) / n) * 1000).toFixed(1), 'µs');
+};
+const q = (name: string, sql: string) => { const st = raw.prepare(sql); time(name, () => st.all({ id })); };
+q('row', `select r.*, s.name, se.name, se.is_current, a.name, e.name, v.name from records r join subsystems s on s.slug=r.subsystem_slug join seasons se on se.id=r.season_id left join users a on a.id=r.author_id left join users e on e.id=r.updated_by_id left join users v on v.id=r.reviewed_by_id where r.id=@id and r.deleted_at is null`);
+q('links', 'select * from record_links where from_record_id=@id or to_record_id=@id');
+q('links-union', 'select * from record_links where from_record_id=@id union all select * from record_links where to_record_id=@id and from_record_id<>@id');
+const ids = JSON.stringify(['demo-rec-2425-pod-shaft-seal','demo-rec-2425-prop-ventilation-slalom','demo-rec-2526-closed-cooling-loop','demo-rec-2526-endurance-energy-plan','demo-rec-2526-main-cable-size','demo-rec-2526-parts-lead-time','demo-rec-2526-sprint-prop-ventilation-launch','demo-rec-2425-single-propeller']);
+const refs = raw.prepare('select r.id, r.title, r.kind, r.status, s.name from records r join seasons s on s.id=r.season_id where r.id in (select value from json_each(@ids)) and r.deleted_at is null');
+time('refs', () => refs.all({ ids }));
+q('calcs', 'select c.id,c.title,c.kind from record_calculations rc join calculations c on c.id=rc.calculation_id where rc.record_id=@id and c.deleted_at is null order by c.title');
+q('files', 'select * from attachments where record_id=@id order by created_at');
+q('ccount', 'select count(*) from comments where record_id=@id');
+time('getRecordView', () => getRecordView(id));
