@@ -1,6 +1,6 @@
 import { and, desc, eq, gt, inArray, isNull, or, sql } from 'drizzle-orm';
 import type { AstroCookies } from 'astro';
-import { db } from './db/client';
+import { db, prepared } from './db/client';
 import type { Role } from '../domain';
 import { auditEntries, invitations, membershipSubsystems, seasonMemberships, subsystems, users } from './db/schema';
 import { conflict, invalidInput, notFound } from './http';
@@ -336,12 +336,20 @@ export async function acceptInvitation(
  * does not count): their home page welcomes them and starts their onboarding instead of "welcome back".
  */
 export function isNewInvitee(userId: string): boolean {
-  const rows = db()
-    .select({ action: auditEntries.action, n: sql<number>`count(*)` })
-    .from(auditEntries)
-    .where(and(eq(auditEntries.actorId, userId), inArray(auditEntries.action, ['invitation.accept', 'auth.sign-in'])))
-    .groupBy(auditEntries.action)
-    .all();
+  // On every home page: prepared once (building and preparing it cost more than running it).
+  const rows = prepared('invitations.isNewInvitee', (d) =>
+    d
+      .select({ action: auditEntries.action, n: sql<number>`count(*)` })
+      .from(auditEntries)
+      .where(
+        and(
+          eq(auditEntries.actorId, sql.placeholder('userId')),
+          inArray(auditEntries.action, ['invitation.accept', 'auth.sign-in']),
+        ),
+      )
+      .groupBy(auditEntries.action)
+      .prepare(),
+  ).all({ userId });
   const count = (a: string) => rows.find((r) => r.action === a)?.n ?? 0;
   return count('invitation.accept') > 0 && count('auth.sign-in') <= 1;
 }

@@ -51,7 +51,12 @@ export const auditEntries = sqliteTable(
     detail: text({ mode: 'json' }).$type<Record<string, unknown>>(),
     ip: text(),
   },
-  (t) => [index('audit_entries_at_idx').on(t.at), index('audit_entries_action_idx').on(t.action)],
+  (t) => [
+    index('audit_entries_at_idx').on(t.at),
+    index('audit_entries_action_idx').on(t.action),
+    // A person's own entries (the home page asks whether someone is a new invitee on every visit).
+    index('audit_entries_actor_idx').on(t.actorId, t.action),
+  ],
 );
 
 /** Mail as sent (or captured when no SMTP server is set), so leads can read it and failures are never silent. */

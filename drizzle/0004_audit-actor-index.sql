@@ -1,0 +1,1 @@
+CREATE INDEX `audit_entries_actor_idx` ON `audit_entries` (`actor_id`,`action`);
