@@ -2,7 +2,7 @@
 // every row it quotes (1–50 ms for ten rows of a 50,000-document index, see the decision record), while the ten
 // hits' text is a rowid lookup away. Words are matched with the same folding as the index (./tokens). The output is
 // HTML: every piece of stored text is escaped, and only our own <mark> elements are added.
-import { foldCase, isAscii } from './tokens';
+import { foldCase } from './tokens';
 
 export interface Highlighter {
   /** Folded terms matched whole. */
@@ -21,18 +21,23 @@ export function escapeHtml(text: string): string {
 const CONTROL = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\u007F]/g;
 const clean = (s: string) => s.replace(CONTROL, '').replace(/\s+/g, ' ');
 
-// Marks stay in a word so "naïve" is one word, as FTS5 sees it.
-const WORD = /[\p{L}\p{N}\p{Co}][\p{L}\p{N}\p{Co}\p{M}]*/gu;
-// The same words in lower-cased plain ASCII text (no marks or private-use characters there).
-const ASCII_WORD = /[a-z0-9]+/g;
+// A word is what FTS5 keeps together: it starts with a letter, digit or private-use character and goes on through
+// those and combining marks, so "naïve" is one word.
+const LETTER_LIKE = /[\p{L}\p{N}\p{Co}]/u;
+const MARK = /\p{M}/u;
 
-const NON_ASCII = /[^\u0000-\u007f]/;
+/** ASCII letters and digits, by character code. */
+const asciiWordChar = (c: number) => (c >= 97 && c <= 122) || (c >= 48 && c <= 57) || (c >= 65 && c <= 90);
 
-interface Word {
-  start: number;
-  end: number;
-  /** The query term this word matched, or null. */
-  hit: string | null;
+/**
+ * The words of a text as parallel arrays (a long guide has thousands; an object each was most of a search's cost):
+ * where each starts and ends, and the query term it matched (or null). `hitAt` lists the indexes that matched.
+ */
+interface Words {
+  starts: number[];
+  ends: number[];
+  hits: (string | null)[];
+  hitAt: number[];
 }
 
 /** The query term a folded word matches, or null. */
@@ -42,33 +47,76 @@ function matchOf(w: string, h: Highlighter): string | null {
   return null;
 }
 
-function words(text: string, h: Highlighter): Word[] {
-  const out: Word[] = [];
+/** The first character codes any query term can start with: a plain word starting otherwise cannot match. */
+function firstCodes(h: Highlighter): Set<number> {
+  const out = new Set<number>();
+  for (const t of h.exact) out.add(t.charCodeAt(0));
+  for (const p of h.prefixes) out.add(p.charCodeAt(0));
+  return out;
+}
+
+function words(text: string, h: Highlighter): Words {
+  const out: Words = { starts: [], ends: [], hits: [], hitAt: [] };
   // The text is lower-cased once rather than word by word. Lower-casing never shortens a string, so when the length
-  // is kept every offset is too (else each word is folded on its own); only words with non-ASCII letters still need
-  // their marks removed.
+  // is kept every offset is too, and a plain-ASCII word needs nothing more; otherwise (and for words with other
+  // letters) each word is folded on its own, as the index folds it.
   const lower = text.toLowerCase();
   const sameOffsets = lower.length === text.length;
-  if (sameOffsets && isAscii(text)) {
-    for (const m of lower.matchAll(ASCII_WORD))
-      out.push({ start: m.index, end: m.index + m[0].length, hit: matchOf(m[0], h) });
-    return out;
-  }
-  for (const m of (sameOffsets ? lower : text).matchAll(WORD)) {
-    const w = sameOffsets && !NON_ASCII.test(m[0]) ? m[0] : foldCase(m[0]);
-    out.push({ start: m.index, end: m.index + m[0].length, hit: matchOf(w, h) });
+  const s = sameOffsets ? lower : text;
+  const firsts = firstCodes(h);
+  const n = s.length;
+  let i = 0;
+  while (i < n) {
+    let c = s.charCodeAt(i);
+    let step = 1;
+    if (c >= 128) {
+      const cp = s.codePointAt(i)!;
+      step = cp > 0xffff ? 2 : 1;
+      if (!LETTER_LIKE.test(String.fromCodePoint(cp))) {
+        i += step;
+        continue;
+      }
+    } else if (!asciiWordChar(c)) {
+      i++;
+      continue;
+    }
+    const start = i;
+    let plain = c < 128;
+    i += step;
+    while (i < n) {
+      c = s.charCodeAt(i);
+      if (c < 128) {
+        if (!asciiWordChar(c)) break;
+        i++;
+        continue;
+      }
+      const cp = s.codePointAt(i)!;
+      const ch = String.fromCodePoint(cp);
+      if (!LETTER_LIKE.test(ch) && !MARK.test(ch)) break;
+      plain = false;
+      i += cp > 0xffff ? 2 : 1;
+    }
+    let hit: string | null = null;
+    if (sameOffsets && plain) {
+      if (firsts.has(s.charCodeAt(start))) hit = matchOf(s.slice(start, i), h);
+    } else hit = matchOf(foldCase(s.slice(start, i)), h);
+    if (hit) out.hitAt.push(out.hits.length);
+    out.starts.push(start);
+    out.ends.push(i);
+    out.hits.push(hit);
   }
   return out;
 }
 
-function render(text: string, list: Word[], from: number, to: number): string {
+function render(text: string, list: Words, from: number, to: number): string {
   let html = '';
   let at = from;
-  for (const w of list) {
-    if (!w.hit || w.end <= from || w.start >= to) continue;
-    html +=
-      escapeHtml(clean(text.slice(at, w.start))) + '<mark>' + escapeHtml(clean(text.slice(w.start, w.end))) + '</mark>';
-    at = w.end;
+  for (const k of list.hitAt) {
+    const start = list.starts[k];
+    const end = list.ends[k];
+    if (end <= from || start >= to) continue;
+    html += escapeHtml(clean(text.slice(at, start))) + '<mark>' + escapeHtml(clean(text.slice(start, end))) + '</mark>';
+    at = end;
   }
   return html + escapeHtml(clean(text.slice(at, to)));
 }
@@ -84,21 +132,22 @@ export function highlightHtml(text: string, h: Highlighter): string {
  */
 export function snippetHtml(text: string, h: Highlighter, size = 24): string {
   const list = words(text, h);
-  if (list.length === 0) return '';
+  const count = list.hits.length;
+  if (count === 0) return '';
   let best = 0;
   let bestDistinct = -1;
   let bestHits = -1;
   const counts = new Map<string, number>();
   let hits = 0;
-  for (let end = 0; end < list.length; end++) {
-    const add = list[end].hit;
+  for (let end = 0; end < count; end++) {
+    const add = list.hits[end];
     if (add) {
       counts.set(add, (counts.get(add) ?? 0) + 1);
       hits++;
     }
     const start = end - size + 1;
     if (start > 0) {
-      const drop = list[start - 1].hit;
+      const drop = list.hits[start - 1];
       if (drop) {
         const n = counts.get(drop)! - 1;
         if (n === 0) counts.delete(drop);
@@ -106,7 +155,7 @@ export function snippetHtml(text: string, h: Highlighter, size = 24): string {
         hits--;
       }
     }
-    if (start >= 0 || end === list.length - 1) {
+    if (start >= 0 || end === count - 1) {
       if (counts.size > bestDistinct || (counts.size === bestDistinct && hits > bestHits)) {
         best = Math.max(0, start);
         bestDistinct = counts.size;
@@ -115,16 +164,15 @@ export function snippetHtml(text: string, h: Highlighter, size = 24): string {
     }
   }
   // Centre the matches inside the passage rather than leaving them at its edge.
-  const inWindow = list.slice(best, best + size).flatMap((w, k) => (w.hit ? [best + k] : []));
-  if (inWindow.length > 0 && list.length > size) {
+  const inWindow = list.hitAt.filter((k) => k >= best && k < best + size);
+  if (inWindow.length > 0 && count > size) {
     const lo = inWindow[0];
     const hi = inWindow[inWindow.length - 1];
-    best = Math.max(0, Math.min(lo - Math.floor((size - (hi - lo + 1)) / 2), list.length - size));
+    best = Math.max(0, Math.min(lo - Math.floor((size - (hi - lo + 1)) / 2), count - size));
   }
-  const first = list[best];
-  const last = list[Math.min(list.length, best + size) - 1];
-  const from = best === 0 ? 0 : first.start;
-  const to = last === list[list.length - 1] ? text.length : last.end;
+  const lastIndex = Math.min(count, best + size) - 1;
+  const from = best === 0 ? 0 : list.starts[best];
+  const to = lastIndex === count - 1 ? text.length : list.ends[lastIndex];
   const html = render(text, list, from, to).trim();
   return (from > 0 ? '…' : '') + html + (to < text.length ? '…' : '');
 }
