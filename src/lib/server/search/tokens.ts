@@ -7,11 +7,6 @@ const MARKS = /\p{M}+/gu;
 
 const ASCII = /^[\u0000-\u007f]*$/;
 
-/** True when the text is plain ASCII: no marks, nothing to compose, and lower-casing keeps every offset. */
-export function isAscii(text: string): boolean {
-  return ASCII.test(text);
-}
-
 /** Lower-cased, diacritics removed ("Naïve Café" → "naive cafe"). */
 export function foldCase(text: string): string {
   // Plain ASCII has no marks and nothing to compose: lower-casing is all.
