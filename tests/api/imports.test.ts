@@ -3,6 +3,7 @@
 import { describe, it, expect, beforeAll, afterEach } from 'vitest';
 import { eq } from 'drizzle-orm';
 import { randomBytes } from 'node:crypto';
+import { PDFDocument } from 'pdf-lib';
 import { existsSync, readdirSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { call } from '../setup/http';
@@ -546,6 +547,16 @@ describe('limits', () => {
       /^long\.txt was not imported: it is too long for one record: 3 MB of text, over the limit of 2 MB/,
     );
     expect(byName.get('short.md')).toMatchObject({ state: 'done' });
+  });
+
+  it('a PDF of more pages than a record could hold is refused before its text is read', async () => {
+    const doc = await PDFDocument.create();
+    for (let i = 0; i < TEXT_LIMITS.pdfPages + 1; i++) doc.addPage([200, 200]);
+    const { done } = await importAndWait('member', [['many-pages.pdf', await doc.save()]]);
+    expect(done.items[0].state).toBe('failed');
+    expect(done.items[0].message).toMatch(
+      /^many-pages\.pdf was not imported: it is too long for one record: 1001 pages, over the limit of 1000/,
+    );
   });
 
   it('a file inside a zip over the size limit fails alone', async () => {

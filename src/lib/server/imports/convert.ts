@@ -55,6 +55,8 @@ export const TEXT_LIMITS = {
   html: 4 * 1024 * 1024,
   /** Markdown and plain text. */
   text: 2 * 1024 * 1024,
+  /** Pages of a PDF: its text is read page by page, and 400k characters fill some 150 pages of dense text. */
+  pdfPages: 1000,
 };
 
 function tooLong(bytes: number, limit: number, what: string): ImportProblem {
@@ -314,6 +316,14 @@ async function fromPdf(bytes: Buffer) {
   let info: Record<string, unknown> = {};
   try {
     const pdf = await getDocumentProxy(new Uint8Array(bytes));
+    if (pdf.numPages > TEXT_LIMITS.pdfPages) {
+      const count = pdf.numPages;
+      await pdf.destroy();
+      throw new ImportProblem(
+        `it is too long for one record: ${count} pages, over the limit of ${TEXT_LIMITS.pdfPages} (a record holds ` +
+          'about 400k characters). Split it, or attach it to a record instead.',
+      );
+    }
     try {
       info = ((await getMeta(pdf)).info ?? {}) as Record<string, unknown>;
     } catch {
@@ -322,6 +332,7 @@ async function fromPdf(bytes: Buffer) {
     pages = (await extractText(pdf, { mergePages: false })).text;
     await pdf.destroy();
   } catch (e) {
+    if (e instanceof ImportProblem) throw e;
     throw new ImportProblem(
       `it is not a PDF we can read (${e instanceof Error ? e.message.slice(0, 120) : 'unreadable'}).`,
     );
