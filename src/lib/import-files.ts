@@ -60,3 +60,8 @@ export function problemWithAll(files: { size: number }[], l: ImportLimits): stri
     return `Together these files are ${fileSize(total)}; one import takes up to ${l.totalMb} MB.`;
   return null;
 }
+
+/** How far an import has come, in the words its list shows (the page renders it; the browser keeps it current). */
+export function importProgress(i: { state: string; done: number; total: number }): string {
+  return i.state === 'done' ? 'finished' : `${i.done} of ${i.total} done`;
+}

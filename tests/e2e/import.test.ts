@@ -1,6 +1,7 @@
 // Importing documents in the browser: choose files, watch the conversion, and review the drafts (bulk kind change,
 // discard, open in the editor); the page at phone width; an axe check of the review list.
-import { describe, it, expect, beforeAll, afterAll } from 'vitest';
+import { describe, it, expect, beforeAll, afterAll, inject } from 'vitest';
+import Database from 'better-sqlite3';
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
@@ -141,6 +142,25 @@ describe('importing documents', () => {
     expect(await noSidewaysScroll(p)).toBe(true);
     await shot(p, 'import-review-phone');
     await phone.close();
+  });
+
+  it('keeps the list on /import current while an import runs, without a reload', async () => {
+    const id = importUrl.split('/').pop()!;
+    const db = new Database(inject('e2eDbPath'));
+    const set = db.prepare('update imports set state = ?, done = ? where id = ?');
+    try {
+      // The import is made to look unfinished, as one still converting is: the page shows it so and keeps asking.
+      set.run('running', 1, id);
+      await page.goto(`${baseUrl()}/import`);
+      const item = page.locator(`[data-import="${id}"]`);
+      expect(await item.textContent()).toContain('1 of 3 done');
+      set.run('done', 3, id);
+      await expect.poll(() => item.textContent(), { timeout: 10_000 }).toContain('finished');
+      expect(await item.locator('progress').evaluate((bar: HTMLProgressElement) => bar.value)).toBe(3);
+    } finally {
+      set.run('done', 3, id);
+      db.close();
+    }
   });
 
   it('is refused to an advisor with the 403 page', async () => {

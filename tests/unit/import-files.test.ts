@@ -1,5 +1,12 @@
 import { describe, it, expect } from 'vitest';
-import { fileSize, IMPORT_ACCEPT, limitsInWords, problemWith, problemWithAll } from '../../src/lib/import-files';
+import {
+  fileSize,
+  IMPORT_ACCEPT,
+  importProgress,
+  limitsInWords,
+  problemWith,
+  problemWithAll,
+} from '../../src/lib/import-files';
 import { IMPORT_EXTENSIONS } from '../../src/lib/domain';
 
 const limits = { fileMb: 20, zipMb: 200, totalMb: 500, files: 3 };
@@ -45,5 +52,13 @@ describe('what the import page checks before sending', () => {
       '42 MB',
     ]);
     expect(limitsInWords(limits).join(' ')).toContain('Up to 3 files in one import');
+  });
+});
+
+describe('the progress an import list shows', () => {
+  it('counts files done of total while running or queued, and says finished once done', () => {
+    expect(importProgress({ state: 'queued', done: 0, total: 3 })).toBe('0 of 3 done');
+    expect(importProgress({ state: 'running', done: 2, total: 3 })).toBe('2 of 3 done');
+    expect(importProgress({ state: 'done', done: 3, total: 3 })).toBe('finished');
   });
 });
