@@ -1,4 +1,4 @@
-import { useId, useRef, useState, type DragEvent, type FormEvent } from 'react';
+import { useId, useRef, useState, type FormEvent } from 'react';
 import { apiErrorMessage, type ApiErrorBody } from '~/lib/client/api';
 import {
   fileSize,
@@ -9,6 +9,7 @@ import {
   type ImportLimits,
 } from '~/lib/import-files';
 import type { RecordKind } from '~/lib/domain';
+import DropZone from '../ui/DropZone';
 
 interface Option {
   value: string;
@@ -43,7 +44,6 @@ export default function ImportForm({
   const [subsystem, setSubsystem] = useState(defaultSubsystem ?? '');
   const [kind, setKind] = useState<RecordKind>('decision');
   const [seasonId, setSeasonId] = useState(canPickSeason ? '' : (currentSeason?.value ?? ''));
-  const [over, setOver] = useState(false);
   const [sending, setSending] = useState<Sending>({ state: 'idle' });
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [problem, setProblem] = useState('');
@@ -60,12 +60,6 @@ export default function ImportForm({
   const fileProblems = files.map((f) => problemWith(f, limits));
   const allProblem = problemWithAll(files, limits);
   const busy = sending.state !== 'idle';
-
-  const onDrop = (e: DragEvent) => {
-    e.preventDefault();
-    setOver(false);
-    if (e.dataTransfer.files.length) add(e.dataTransfer.files);
-  };
 
   function start(e: FormEvent) {
     e.preventDefault();
@@ -118,15 +112,7 @@ export default function ImportForm({
   return (
     <form onSubmit={start} noValidate className="flex flex-col gap-5" aria-describedby={`${ids}-limits`}>
       <div className="flex flex-col gap-2">
-        <div
-          onDragOver={(e) => {
-            e.preventDefault();
-            setOver(true);
-          }}
-          onDragLeave={() => setOver(false)}
-          onDrop={onDrop}
-          className={`rounded-lg border-2 border-dashed p-6 text-center ${over ? 'border-accent bg-accent-soft' : 'border-line bg-surface'}`}
-        >
+        <DropZone onFiles={add} className="p-6 text-center" idle="border-line bg-surface">
           <p className="font-semibold">Drop documents or a zipped folder here</p>
           <p className="mx-auto mt-1 max-w-md text-sm text-muted">
             Word (.docx), Markdown (.md, .markdown), web pages (.html, .htm), text (.txt), PDF (.pdf), or a .zip of a
@@ -154,7 +140,7 @@ export default function ImportForm({
               e.target.value = '';
             }}
           />
-        </div>
+        </DropZone>
         {errors.file && (
           <p id={`${ids}-file-error`} className="field-error" role="alert">
             {errors.file}

@@ -1,5 +1,6 @@
-import { lazy, Suspense, useRef, useState, type DragEvent } from 'react';
+import { lazy, Suspense, useRef, useState } from 'react';
 import { apiErrorMessage } from '~/lib/client/api';
+import DropZone from '../ui/DropZone';
 
 // The plot (uPlot and the CSV parser, ~33 kB gzip) loads only once a CSV has been added here, not with every record page.
 const CsvPreview = lazy(() => import('./CsvPreview'));
@@ -24,7 +25,6 @@ interface Upload {
 export default function AttachmentUploader({ recordId, maxMb }: { recordId: string; maxMb: number }) {
   const [uploads, setUploads] = useState<Upload[]>([]);
   const [added, setAdded] = useState<Added[]>([]);
-  const [over, setOver] = useState(false);
   const input = useRef<HTMLInputElement>(null);
 
   const update = (i: number, patch: Partial<Upload>) =>
@@ -66,23 +66,9 @@ export default function AttachmentUploader({ recordId, maxMb }: { recordId: stri
     });
   }
 
-  const onDrop = (e: DragEvent) => {
-    e.preventDefault();
-    setOver(false);
-    if (e.dataTransfer.files.length) send(e.dataTransfer.files);
-  };
-
   return (
     <div className="flex flex-col gap-2">
-      <div
-        onDragOver={(e) => {
-          e.preventDefault();
-          setOver(true);
-        }}
-        onDragLeave={() => setOver(false)}
-        onDrop={onDrop}
-        className={`rounded-lg border-2 border-dashed p-4 text-center text-sm ${over ? 'border-accent bg-accent-soft' : 'border-line'}`}
-      >
+      <DropZone onFiles={send} className="p-4 text-center text-sm">
         <p>Drop photos, PDFs, CSV logs or text files here, or</p>
         <button type="button" className="btn btn-quiet mt-2 text-sm" onClick={() => input.current?.click()}>
           Choose files…
@@ -98,7 +84,7 @@ export default function AttachmentUploader({ recordId, maxMb }: { recordId: stri
           onChange={(e) => e.target.files && send(e.target.files)}
         />
         <p className="mt-2 text-xs text-muted">Up to {maxMb} MB each. The type is checked from the file’s contents.</p>
-      </div>
+      </DropZone>
       <ul className="flex flex-col gap-2" aria-live="polite">
         {uploads.map((u, i) => (
           <li key={i} className="text-sm">
