@@ -1,18 +1,6 @@
 import { z } from 'zod';
+import { idSchema as id, slugSchema as slug } from './keys';
 import { typedLine, typedText } from './text';
-
-const slug = z
-  .string()
-  .trim()
-  .min(1)
-  .max(64)
-  .regex(/^[a-z0-9-]+$/, 'Use a subsystem slug.');
-const id = z
-  .string()
-  .trim()
-  .min(1)
-  .max(64)
-  .regex(/^[A-Za-z0-9_-]+$/, 'Not a valid id.');
 
 /** Raw calculator inputs: a flat object of numbers and short strings; each calculator's own schema checks the rest. */
 export const rawInputsSchema = z

@@ -1,12 +1,7 @@
 import { z } from 'zod';
+import { idSchema as id } from './keys';
 import { RECORD_KINDS, type ImportItemState, type ImportState, type RecordKind } from '../domain';
 
-const id = z
-  .string()
-  .trim()
-  .min(1)
-  .max(64)
-  .regex(/^[A-Za-z0-9_-]+$/, 'Not a valid id.');
 const recordIds = z
   .array(id)
   .min(1, 'Select at least one draft.')

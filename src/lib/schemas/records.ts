@@ -1,20 +1,9 @@
 import { z } from 'zod';
+import { idSchema as id, slugSchema as slug } from './keys';
 import { typedLine, typedText } from './text';
 import { COMMENT_KINDS, LESSON_SOURCES, RECORD_KINDS, RECORD_STATUSES } from '../domain';
 import { MAX_CHANGE_NOTE } from '../record-rules';
 
-const id = z
-  .string()
-  .trim()
-  .min(1)
-  .max(64)
-  .regex(/^[A-Za-z0-9_-]+$/, 'Not a valid id.');
-const slug = z
-  .string()
-  .trim()
-  .min(1)
-  .max(64)
-  .regex(/^[a-z0-9-]+$/, 'Use a subsystem slug.');
 const ids = z.array(id).max(50).default([]);
 
 export const recordKindSchema = z.enum(RECORD_KINDS);
